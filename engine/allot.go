@@ -1,0 +1,240 @@
+package engine
+
+import (
+	"math/big"
+)
+
+// Allot apportions the scenario's seats and explains the result. detail
+// chooses the costlier parts of the explanation: the seat order and the
+// margins. Allot returns an *[Error] for a scenario that is invalid or
+// cannot be apportioned (bounds that cannot be met, too few seats for
+// Adams, Dean or Huntington–Hill).
+func Allot(s *Scenario, detail Detail) (*Result, error) {
+	pr, err := prepare(s)
+	if err != nil {
+		return nil, err
+	}
+	return pr.allot(detail)
+}
+
+// outcome is what both families of procedures produce.
+type outcome struct {
+	seats []int // after the tie rule
+	full  []int // as the procedure handed them out
+	tie   *Tie
+	div   *divisorOutcome
+	lr    *lrOutcome
+}
+
+func (pr *problem) run(keepOrder bool) (*outcome, error) {
+	if pr.m.IsDivisor() {
+		d, err := pr.divisorSeats(keepOrder)
+		if err != nil {
+			return nil, err
+		}
+		return &outcome{seats: d.seats, full: d.full, tie: d.tie, div: d}, nil
+	}
+	l, err := pr.remainderSeats()
+	if err != nil {
+		return nil, err
+	}
+	return &outcome{seats: l.seats, full: l.full, tie: l.tie, lr: l}, nil
+}
+
+func (pr *problem) allot(detail Detail) (*Result, error) {
+	o, err := pr.run(detail&WithOrder != 0)
+	if err != nil {
+		return nil, err
+	}
+	n := pr.n()
+	res := &Result{Method: pr.m, Seats: pr.h, Units: make([]UnitResult, n), Tie: pr.tie}
+	total := pr.eligibleTotal()
+	res.Total = scaledText(total, pr.places)
+	sum := 0
+	for i := range res.Units {
+		u := &res.Units[i]
+		u.Name = pr.names[i]
+		u.Population = Decimal{Coef: pr.pops[i], Places: uint8(pr.places)}.trim()
+		u.Seats = o.seats[i]
+		sum += u.Seats
+		u.Min, u.Max = pr.min[i], pr.max[i]
+		if u.Max == noCap {
+			u.Max = -1
+		}
+		u.Excluded = !pr.eligible[i]
+		pr.quota(i, total, u, detail != 0)
+	}
+	res.Unassigned = pr.h - sum
+	if o.tie != nil {
+		res.Ties = []Tie{*o.tie}
+		for _, j := range o.tie.Units {
+			res.Units[j].Tied = true
+		}
+	}
+	if o.div != nil {
+		pr.explainDivisor(o, res, detail)
+	} else {
+		pr.explainRemainder(o.lr, res)
+	}
+	if detail&WithMargins != 0 {
+		pr.margins(o, res)
+	}
+	return res, nil
+}
+
+// eligibleTotal is the population of the units not excluded.
+func (pr *problem) eligibleTotal() u128 {
+	var t u128
+	for i, p := range pr.pops {
+		if pr.eligible[i] {
+			t, _ = t.add64(p)
+		}
+	}
+	return t
+}
+
+func scaledText(x u128, places int) string {
+	if x.hi == 0 {
+		return formatScaled(x.lo, places)
+	}
+	r := new(big.Rat).SetFrac(x.big(), bigU(pow10(places)))
+	return decimalText(r)
+}
+
+// quota fills the standard quota p·H/P of unit i.
+func (pr *problem) quota(i int, total u128, u *UnitResult, text bool) {
+	if !pr.eligible[i] {
+		u.Quota = Fraction{Num: "0", Den: "1", Text: "0"}
+		u.MeetsQuota = u.Seats == 0
+		return
+	}
+	num := mul128(pr.pops[i], uint64(pr.h))
+	var q, rem uint64
+	if total.hi == 0 {
+		q, rem, _ = divmod128(num, total.lo)
+	} else {
+		qq, rr := new(big.Int).QuoRem(num.big(), total.big(), new(big.Int))
+		q, rem = qq.Uint64(), uint64(rr.Sign())
+	}
+	u.Lower, u.Upper = int(q), int(q)
+	if rem != 0 {
+		u.Upper++
+	}
+	u.MeetsQuota = u.Seats == u.Lower || u.Seats == u.Upper
+	r := new(big.Rat).SetFrac(num.big(), total.big())
+	u.Quota.Approx, _ = r.Float64()
+	if text {
+		u.Quota.Num, u.Quota.Den = r.Num().String(), r.Denom().String()
+		if s, ok := exactDecimal(r, 6); ok {
+			u.Quota.Text = s
+		} else {
+			u.Quota.Text = r.FloatString(6)
+		}
+	}
+}
+
+// explainDivisor adds the divisor range, seat order and priority values.
+func (pr *problem) explainDivisor(o *outcome, res *Result, detail Detail) {
+	d := o.div
+	res.Divisor = pr.divisorRange(d.full)
+	if o.tie != nil && pr.tie.Kind != TieReport {
+		// The settled result has its own (single-point) range.
+		res.Divisor = pr.divisorRange(o.seats)
+	}
+	low, lowOK, high, highOK := pr.divisorBounds(o.seats)
+	for i := range res.Units {
+		u := &res.Units[i]
+		a := o.seats[i]
+		if !pr.eligible[i] || pr.pops[i] == 0 {
+			continue
+		}
+		if a > pr.min[i] {
+			v := pr.m.value(prio{pr.pops[i], a - 1}, pr.places)
+			u.Last = &v
+		}
+		if a < pr.max[i] {
+			v := pr.m.value(prio{pr.pops[i], a}, pr.places)
+			u.Next = &v
+		}
+		// Held up by the minimum: its min-th seat ranks at or below every
+		// divisor in range. Held down by the cap: its next seat ranks at or
+		// above every divisor in range.
+		u.AtMin = a == pr.min[i] && a > 0 && lowOK && pr.m.cmpPrio(prio{pr.pops[i], a - 1}, low) <= 0
+		u.AtMax = a == pr.max[i] && highOK && pr.m.cmpPrio(prio{pr.pops[i], a}, high) >= 0
+	}
+	first := pr.h - d.free // seats given as minimums
+	if detail&WithOrder != 0 {
+		order := d.order
+		if d.tail != nil {
+			// Replace the tied seats at the end by the rule's winners, or
+			// drop them when the tie stays open.
+			order = order[:len(order)-len(d.tail)]
+			if o.tie.Winners != nil {
+				for _, w := range o.tie.Winners {
+					order = append(order, award{w, prio{pr.pops[w], o.seats[w] - 1}})
+				}
+			}
+		}
+		res.Order = make([]SeatAward, len(order))
+		for k, w := range order {
+			res.Order[k] = pr.seatAward(first+k+1, w)
+		}
+	}
+	res.Beyond = pr.beyond(o.seats, pr.h-res.Unassigned, 5)
+}
+
+func (pr *problem) seatAward(seat int, w award) SeatAward {
+	return SeatAward{Seat: seat, Unit: w.u, Name: pr.names[w.u], Nth: w.pr.a + 1, Priority: pr.m.value(w.pr, pr.places)}
+}
+
+// beyond lists the next k seats the procedure would hand out after the
+// given seats.
+func (pr *problem) beyond(seats []int, filled, k int) []SeatAward {
+	a := append([]int(nil), seats...)
+	h := &prioHeap{m: pr.m, pops: pr.pops, a: a}
+	var cand []int32
+	for i, p := range pr.pops {
+		if pr.eligible[i] && p > 0 && a[i] < pr.max[i] {
+			cand = append(cand, int32(i))
+		}
+	}
+	h.heapify(cand)
+	var out []SeatAward
+	for j := 0; j < k && len(h.idx) > 0; j++ {
+		u := h.top()
+		out = append(out, pr.seatAward(filled+j+1, award{u, prio{pr.pops[u], a[u]}}))
+		a[u]++
+		if a[u] < pr.max[u] {
+			h.down(0)
+		} else {
+			h.pop()
+		}
+	}
+	return out
+}
+
+// explainRemainder adds the quota, remainders and ranks.
+func (pr *problem) explainRemainder(l *lrOutcome, res *Result) {
+	res.Passes = l.rounds
+	r := l.final
+	for i := range res.Units {
+		res.Units[i].AtMin = l.pinned[i] < 0
+		res.Units[i].AtMax = l.pinned[i] > 0
+	}
+	if r == nil {
+		return
+	}
+	q := ratValue(r.quota)
+	res.Quota = &q
+	rank := make([]int, len(r.units))
+	for k, j := range r.ranked {
+		rank[j] = k + 1
+	}
+	for j, u := range r.units {
+		v := r.remValue(pr, j)
+		ur := &res.Units[u]
+		ur.Remainder = &v
+		ur.RemainderRank = rank[j]
+		ur.RemainderSeat = rank[j] <= r.extra
+	}
+}

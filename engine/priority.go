@@ -1,0 +1,152 @@
+package engine
+
+import (
+	"math/big"
+	"strconv"
+)
+
+// prio is the exact priority value p/s(a) of a unit's (a+1)-th seat under a
+// divisor method: p is the unit's scaled population, a the seats it holds.
+type prio struct {
+	p uint64
+	a int
+}
+
+// infinite reports whether the priority is p/0 with p > 0.
+func (m Method) infinite(x prio) bool { return x.p > 0 && m.signpost(x.a).n == 0 }
+
+// cmpPrio compares two priority values exactly.
+func (m Method) cmpPrio(x, y prio) int {
+	sx, sy := m.signpost(x.a), m.signpost(y.a)
+	return cmpQuot(x.p, sx, y.p, sy)
+}
+
+// cmpQuot compares px/s(x) with py/s(y). A zero population has priority 0;
+// a positive population over a zero signpost is infinite.
+func cmpQuot(px uint64, sx signpost, py uint64, sy signpost) int {
+	if px == 0 || py == 0 {
+		return cmpU(px, py)
+	}
+	ix, iy := sx.n == 0, sy.n == 0
+	switch {
+	case ix && iy:
+		return 0
+	case ix:
+		return 1
+	case iy:
+		return -1
+	}
+	if sx.sq {
+		// px^2/nx against py^2/ny.
+		return cmpProd3(px, px, sy.n, py, py, sx.n)
+	}
+	// px*dx/nx against py*dy/ny.
+	return cmpProd3(px, sx.d, sy.n, py, sy.d, sx.n)
+}
+
+func cmpU(a, b uint64) int {
+	switch {
+	case a < b:
+		return -1
+	case a > b:
+		return 1
+	}
+	return 0
+}
+
+// prioRat returns the priority as an exact rational (divided by 10^places),
+// or nil when it is infinite or irrational (Huntington–Hill).
+func (m Method) prioRat(x prio, places int) *big.Rat {
+	s := m.signpost(x.a)
+	if s.sq || (s.n == 0 && x.p > 0) {
+		return nil
+	}
+	if x.p == 0 {
+		return new(big.Rat)
+	}
+	num := new(big.Int).Mul(bigU(x.p), bigU(s.d))
+	den := new(big.Int).Mul(bigU(s.n), bigU(pow10(places)))
+	return new(big.Rat).SetFrac(num, den)
+}
+
+// prioFloat returns the priority in the input's units as a big.Float of the
+// given precision (display only; never used to decide a seat).
+func (m Method) prioFloat(x prio, places int, prec uint) *big.Float {
+	s := m.signpost(x.a)
+	p := new(big.Float).SetPrec(prec).SetUint64(x.p)
+	p.Quo(p, new(big.Float).SetPrec(prec).SetUint64(pow10(places)))
+	if x.p == 0 {
+		return p
+	}
+	if s.n == 0 {
+		return p.SetInf(false)
+	}
+	if s.sq {
+		r := new(big.Float).SetPrec(prec).SetUint64(s.n)
+		r.Sqrt(r)
+		return p.Quo(p, r)
+	}
+	p.Mul(p, new(big.Float).SetPrec(prec).SetUint64(s.d))
+	return p.Quo(p, new(big.Float).SetPrec(prec).SetUint64(s.n))
+}
+
+// ValueDigits is the number of decimal places in displayed priority values
+// and divisors.
+const ValueDigits = 3
+
+// A Value is a priority value or divisor as shown to people: a decimal string
+// (rounded to [ValueDigits] places unless Exact is set) and a float64
+// approximation for charts. Infinite values have Infinite set.
+type Value struct {
+	Text     string  // decimal text, e.g. "762314.333"
+	Approx   float64 // nearest float64, for charts and sorting in pages
+	Exact    bool    // Text is the exact value
+	Infinite bool    // the value is p/0: the unit's first seat under Adams, Dean or Huntington–Hill
+}
+
+func (m Method) value(x prio, places int) Value {
+	if m.infinite(x) {
+		return Value{Text: "inf", Infinite: true}
+	}
+	if r := m.prioRat(x, places); r != nil {
+		return ratValue(r)
+	}
+	f := m.prioFloat(x, places, 200)
+	a, _ := f.Float64()
+	return Value{Text: f.Text('f', ValueDigits), Approx: a}
+}
+
+// ratValue shows a rational exactly when it has a short decimal expansion,
+// otherwise rounded to ValueDigits places.
+func ratValue(r *big.Rat) Value {
+	a, _ := r.Float64()
+	if s, ok := exactDecimal(r, ValueDigits); ok {
+		return Value{Text: s, Approx: a, Exact: true}
+	}
+	return Value{Text: r.FloatString(ValueDigits), Approx: a}
+}
+
+// exactDecimal writes r with at most places decimals if that is exact.
+func exactDecimal(r *big.Rat, places int) (string, bool) {
+	den := new(big.Int).Set(r.Denom())
+	ten := big.NewInt(10)
+	for i := 0; i <= places; i++ {
+		if new(big.Int).Rem(new(big.Int).Mul(r.Num(), new(big.Int).Exp(ten, big.NewInt(int64(i)), nil)), den).Sign() == 0 {
+			s := r.FloatString(i)
+			return s, true
+		}
+	}
+	return "", false
+}
+
+func itoa(n int) string { return strconv.Itoa(n) }
+
+func ratString(n, d uint64) string {
+	r := new(big.Rat).SetFrac(bigU(n), bigU(d))
+	if s, ok := exactDecimal(r, 6); ok {
+		return s
+	}
+	return r.String()
+}
+
+func strconvQuote(s string) string { return strconv.Quote(s) }

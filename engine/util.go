@@ -1,0 +1,5 @@
+package engine
+
+import "sort"
+
+func sortInts(s []int) { sort.Ints(s) }

@@ -1,0 +1,3 @@
+module seatsmith
+
+go 1.26.8
