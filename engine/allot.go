@@ -121,9 +121,13 @@ func (pr *problem) quota(i int, total u128, u *UnitResult, text bool) {
 		u.Upper++
 	}
 	u.MeetsQuota = u.Seats == u.Lower || u.Seats == u.Upper
-	r := new(big.Rat).SetFrac(num.big(), total.big())
-	u.Quota.Approx, _ = r.Float64()
-	if text {
+	if total.hi == 0 && !forceBig {
+		u.Quota.Text = quotaText(q, rem, total.lo)
+		u.Quota.Approx = float64(q) + float64(rem)/float64(total.lo)
+	}
+	if text || total.hi != 0 || forceBig {
+		r := new(big.Rat).SetFrac(num.big(), total.big())
+		u.Quota.Approx, _ = r.Float64()
 		u.Quota.Num, u.Quota.Den = r.Num().String(), r.Denom().String()
 		if s, ok := exactDecimal(r, 6); ok {
 			u.Quota.Text = s
@@ -131,6 +135,41 @@ func (pr *problem) quota(i int, total u128, u *UnitResult, text bool) {
 			u.Quota.Text = r.FloatString(6)
 		}
 	}
+}
+
+// quotaText writes q + rem/den with six decimal places, rounded half up, or
+// fewer when that is exact.
+func quotaText(q, rem, den uint64) string {
+	var digits [6]byte
+	n := 0
+	for ; n < 6 && rem != 0; n++ {
+		d, r, _ := divmod128(mul128(rem, 10), den)
+		digits[n] = byte(d)
+		rem = r
+	}
+	if rem != 0 && mul128(rem, 2).cmp(u128{0, den}) >= 0 {
+		// Round up, carrying through the digits into the whole part.
+		k := n - 1
+		for ; k >= 0; k-- {
+			if digits[k] < 9 {
+				digits[k]++
+				break
+			}
+			digits[k] = 0
+		}
+		if k < 0 {
+			q++
+		}
+	}
+	s := strconvU(q)
+	if n == 0 {
+		return s
+	}
+	b := []byte(s + ".")
+	for i := 0; i < n; i++ {
+		b = append(b, '0'+digits[i])
+	}
+	return string(b)
 }
 
 // explainDivisor adds the divisor range, seat order and priority values.

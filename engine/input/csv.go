@@ -1,0 +1,147 @@
+package input
+
+import (
+	"bytes"
+	"encoding/csv"
+	"errors"
+	"io"
+	"strconv"
+	"strings"
+
+	"seatsmith/engine"
+)
+
+// ReadCSV reads a table of units. file names the input in error messages.
+// The scenario-level fields (seats, method, ...) are left for the caller.
+func ReadCSV(file string, r io.Reader) (*Source, error) {
+	data, err := io.ReadAll(io.LimitReader(r, 1<<31))
+	if err != nil {
+		return nil, &Error{File: file, Msg: err.Error()}
+	}
+	data = bytes.TrimPrefix(data, []byte("\xEF\xBB\xBF"))
+	cr := csv.NewReader(bytes.NewReader(data))
+	cr.FieldsPerRecord = 0 // every row as long as the header
+	cr.ReuseRecord = true
+	src := &Source{File: file, Given: map[string]bool{}, fieldLines: map[string]int{}}
+	header, err := cr.Read()
+	if err == io.EOF {
+		return nil, &Error{File: file, Line: 1, Msg: "empty file: expected a header row such as name,population"}
+	}
+	if err != nil {
+		return nil, csvError(file, err)
+	}
+	col := map[string]int{}
+	for i, h := range header {
+		k := strings.ToLower(strings.TrimSpace(h))
+		switch k {
+		case "name", "population", "min", "max":
+		default:
+			return nil, &Error{File: file, Line: 1, Field: "column " + strconv.Itoa(i+1),
+				Msg: "unknown column " + strconv.Quote(h) + "; the columns are name, population and optional min and max"}
+		}
+		if _, dup := col[k]; dup {
+			return nil, &Error{File: file, Line: 1, Field: k, Msg: "the column appears twice"}
+		}
+		col[k] = i
+	}
+	for _, need := range []string{"name", "population"} {
+		if _, ok := col[need]; !ok {
+			return nil, &Error{File: file, Line: 1, Field: need, Msg: "missing column; the header must name the columns name and population"}
+		}
+	}
+	for {
+		rec, err := cr.Read()
+		if err == io.EOF {
+			break
+		}
+		if err != nil {
+			return nil, csvError(file, err)
+		}
+		line, _ := cr.FieldPos(0)
+		if len(src.unitLines) >= engine.MaxUnits {
+			return nil, &Error{File: file, Line: line, Msg: "more than " + strconv.Itoa(engine.MaxUnits) + " units"}
+		}
+		u, uerr := unitFromRow(rec, col)
+		if uerr != nil {
+			uerr.File, uerr.Line = file, line
+			return nil, uerr
+		}
+		src.Scenario.Units = append(src.Scenario.Units, u)
+		src.unitLines = append(src.unitLines, line)
+	}
+	if len(src.Scenario.Units) == 0 {
+		return nil, &Error{File: file, Line: 2, Msg: "no units: the table has a header but no rows"}
+	}
+	return src, nil
+}
+
+func unitFromRow(rec []string, col map[string]int) (engine.Unit, *Error) {
+	var u engine.Unit
+	u.Name = strings.TrimSpace(rec[col["name"]])
+	if u.Name == "" {
+		return u, &Error{Field: "name", Msg: "empty"}
+	}
+	ptext := rec[col["population"]]
+	p, err := engine.ParseDecimal(ptext)
+	if err != nil {
+		return u, &Error{Field: "population", Msg: populationMsg(u.Name, ptext, err)}
+	}
+	u.Population = p
+	for _, b := range []struct {
+		key string
+		dst **int
+	}{{"min", &u.Min}, {"max", &u.Max}} {
+		i, ok := col[b.key]
+		if !ok || strings.TrimSpace(rec[i]) == "" {
+			continue
+		}
+		n, err := wholeSeats(rec[i])
+		if err != nil {
+			return u, &Error{Field: b.key, Msg: strconv.Quote(u.Name) + ": " + err.Error()}
+		}
+		*b.dst = &n
+	}
+	return u, nil
+}
+
+func populationMsg(name, text string, err error) string {
+	return strconv.Quote(name) + ": " + strconv.Quote(strings.TrimSpace(text)) + " is not a population: " + decimalProblem(err)
+}
+
+func decimalProblem(err error) string {
+	switch {
+	case errors.Is(err, engine.ErrEmpty):
+		return "missing"
+	case errors.Is(err, engine.ErrNegative):
+		return "populations cannot be negative"
+	case errors.Is(err, engine.ErrTooPrecise):
+		return "at most 9 decimal places"
+	case errors.Is(err, engine.ErrTooLarge):
+		return "at most 10^18"
+	}
+	return "write a whole number or an exact decimal such as 1250.5, without separators or exponents"
+}
+
+// wholeSeats reads a bound: a whole number of seats from 0 to engine.MaxSeats.
+func wholeSeats(s string) (int, error) {
+	t := strings.TrimSpace(s)
+	n, err := strconv.Atoi(t)
+	if err != nil || n < 0 {
+		return 0, errors.New(strconv.Quote(t) + " is not a whole number of seats")
+	}
+	if n > engine.MaxSeats {
+		return 0, errors.New(t + " is more than the limit of " + strconv.Itoa(engine.MaxSeats) + " seats")
+	}
+	return n, nil
+}
+
+func csvError(file string, err error) error {
+	var pe *csv.ParseError
+	if errors.As(err, &pe) {
+		if errors.Is(pe.Err, csv.ErrFieldCount) {
+			return &Error{File: file, Line: pe.Line, Field: "row", Msg: "this row has a different number of fields from the header"}
+		}
+		return &Error{File: file, Line: pe.Line, Field: "column " + strconv.Itoa(pe.Column), Msg: pe.Err.Error()}
+	}
+	return &Error{File: file, Msg: err.Error()}
+}

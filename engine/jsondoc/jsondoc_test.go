@@ -1,0 +1,65 @@
+package jsondoc
+
+import (
+	"strings"
+	"testing"
+)
+
+func TestRoundTrip(t *testing.T) {
+	in := `{"a": 1.50, "b": [true, false, null, "x\"y\u00e9"], "c": {"d": -2e3}}`
+	v, err := Parse([]byte(in))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := v.Get("a").Text; got != "1.50" {
+		t.Errorf("number text = %q, want exact 1.50", got)
+	}
+	out := string(Marshal(v))
+	want := `{"a":1.50,"b":[true,false,null,"x\"yé"],"c":{"d":-2e3}}`
+	if out != want {
+		t.Errorf("Marshal = %s, want %s", out, want)
+	}
+}
+
+func TestErrors(t *testing.T) {
+	for _, tc := range []struct{ in, want string }{
+		{"{\n\"a\": 1,\n\"a\": 2}", "line 3"},
+		{"[1,\n2,\n]", "line 3"},
+		{`{"a" 1}`, "expected ':'"},
+		{`"abc`, "unterminated"},
+		{`01`, "after the document"},
+		{``, "end of input"},
+		{strings.Repeat("[", 100), "deeply"},
+	} {
+		_, err := Parse([]byte(tc.in))
+		if err == nil || !strings.Contains(err.Error(), tc.want) {
+			t.Errorf("Parse(%q) error = %v, want one containing %q", tc.in, err, tc.want)
+		}
+	}
+}
+
+func TestHTMLSafe(t *testing.T) {
+	got := string(Marshal(Str("</script><b>&")))
+	if strings.ContainsAny(got, "<>&") {
+		t.Errorf("Marshal = %s: not safe inside a script element", got)
+	}
+}
+
+func FuzzParse(f *testing.F) {
+	for _, s := range []string{`{"units":[{"name":"A","population":12}]}`, `[1,2,{"x":null}]`, `"\ud83d\ude00"`} {
+		f.Add([]byte(s))
+	}
+	f.Fuzz(func(t *testing.T, data []byte) {
+		v, err := Parse(data)
+		if err != nil {
+			return
+		}
+		again, err := Parse(Marshal(v))
+		if err != nil {
+			t.Fatalf("re-parse of %s: %v", Marshal(v), err)
+		}
+		if string(Marshal(again)) != string(Marshal(v)) {
+			t.Fatalf("round trip changed %s", Marshal(v))
+		}
+	})
+}

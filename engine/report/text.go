@@ -1,0 +1,311 @@
+package report
+
+import (
+	"io"
+	"strconv"
+	"strings"
+
+	"seatsmith/engine"
+)
+
+// AllotTable returns one row per unit of res: name, population, quota,
+// seats, whether quota holds, the method's explanation columns and the
+// margins.
+func AllotTable(res *engine.Result) *Table {
+	t := &Table{}
+	div := res.Method.IsDivisor()
+	if div {
+		t.Header = []string{"unit", "population", "quota", "seats", "quota ok", "last priority", "next priority", "gain margin", "lose margin", "notes"}
+		t.Right = []bool{false, true, true, true, false, true, true, true, true, false}
+	} else {
+		t.Header = []string{"unit", "population", "quota", "seats", "quota ok", "remainder", "rank", "gain margin", "lose margin", "notes"}
+		t.Right = []bool{false, true, true, true, false, true, true, true, true, false}
+	}
+	for i := range res.Units {
+		u := &res.Units[i]
+		row := []string{u.Name, u.Population.String(), u.Quota.Text, strconv.Itoa(u.Seats), yesNo(u.MeetsQuota)}
+		if div {
+			row = append(row, valueText(u.Last), valueText(u.Next))
+		} else {
+			rank := ""
+			if u.Remainder != nil {
+				rank = strconv.Itoa(u.RemainderRank)
+				if u.RemainderSeat {
+					rank += " +1"
+				}
+			}
+			row = append(row, valueText(u.Remainder), rank)
+		}
+		row = append(row, marginText(u.Gain), marginText(u.Lose), unitNotes(u))
+		t.AddRow(row...)
+	}
+	return t
+}
+
+func unitNotes(u *engine.UnitResult) string {
+	var n []string
+	if u.Excluded {
+		n = append(n, "below threshold")
+	}
+	if u.AtMin {
+		n = append(n, "held at minimum "+strconv.Itoa(u.Min))
+	}
+	if u.AtMax {
+		n = append(n, "held at maximum "+strconv.Itoa(u.Max))
+	}
+	if u.Tied {
+		n = append(n, "TIED")
+	}
+	return strings.Join(n, "; ")
+}
+
+func yesNo(b bool) string {
+	if b {
+		return "yes"
+	}
+	return "NO"
+}
+
+func valueText(v *engine.Value) string {
+	switch {
+	case v == nil:
+		return "-"
+	case v.Infinite:
+		return "infinite"
+	}
+	return v.Text
+}
+
+func marginText(d *engine.Decimal) string {
+	if d == nil {
+		return "-"
+	}
+	return d.String()
+}
+
+// WriteAllotText writes a full explanation of res for reading in a
+// terminal. order chooses whether the whole seat order is listed; otherwise
+// the last five seats and the next five are.
+func WriteAllotText(w io.Writer, title string, res *engine.Result, order bool) error {
+	var b strings.Builder
+	if title != "" {
+		b.WriteString(title + "\n")
+	}
+	b.WriteString(res.Method.Name() + ", " + strconv.Itoa(res.Seats) + " seats, population " + res.Total + "\n\n")
+	if err := writeString(w, b.String()); err != nil {
+		return err
+	}
+	if err := AllotTable(res).WriteText(w); err != nil {
+		return err
+	}
+	b.Reset()
+	b.WriteString("\n")
+	writeExplanation(&b, res, order, "")
+	b.WriteString("\n" + Caution + "\n")
+	return writeString(w, b.String())
+}
+
+// WriteAllotMarkdown writes res as a Markdown section.
+func WriteAllotMarkdown(w io.Writer, title string, res *engine.Result) error {
+	var b strings.Builder
+	if title == "" {
+		title = "Apportionment"
+	}
+	b.WriteString("## " + title + "\n\n")
+	b.WriteString("**" + res.Method.Name() + "**, " + strconv.Itoa(res.Seats) + " seats, population " + res.Total + ".\n\n")
+	if err := writeString(w, b.String()); err != nil {
+		return err
+	}
+	if err := AllotTable(res).WriteMarkdown(w); err != nil {
+		return err
+	}
+	b.Reset()
+	b.WriteString("\n")
+	writeExplanation(&b, res, false, "- ")
+	b.WriteString("\n> " + Caution + "\n")
+	return writeString(w, b.String())
+}
+
+func writeExplanation(b *strings.Builder, res *engine.Result, order bool, bullet string) {
+	line := func(s string) { b.WriteString(bullet + s + "\n") }
+	for _, t := range res.Ties {
+		s := "TIE: " + strings.Join(t.Names, ", ") + " tie at " + t.Value.Text + " for " + plural(t.Seats, "seat")
+		if len(t.Winners) > 0 {
+			var ws []string
+			for _, u := range t.Winners {
+				ws = append(ws, res.Units[u].Name)
+			}
+			s += "; settled by " + t.Rule + " for " + strings.Join(ws, ", ")
+		} else {
+			s += "; not settled: " + plural(t.Seats, "seat") + " left unassigned (choose a tie rule, or follow the law's own rule)"
+		}
+		line(s)
+	}
+	if d := res.Divisor; d != nil {
+		if d.Single {
+			line("Divisor: only " + d.Low.Text + " gives this result (a tie)")
+		} else {
+			hi := d.High.Text
+			if d.High.Infinite {
+				hi = "unbounded"
+			}
+			line("Divisor range: every divisor D with " + d.Low.Text + " < D < " + hi + " gives this result; " +
+				d.Certificate + " is one (checked exactly)")
+		}
+	}
+	if res.Quota != nil {
+		name := "Hare quota (people per seat)"
+		if res.Method == engine.Droop {
+			name = "Droop quota"
+		}
+		s := name + ": " + res.Quota.Text
+		if res.Passes > 1 {
+			s += " in the last of " + strconv.Itoa(res.Passes) + " passes (units held at a bound were set aside)"
+		}
+		line(s)
+	}
+	if len(res.Order) > 0 {
+		from := 0
+		if !order && len(res.Order) > 5 {
+			from = len(res.Order) - 5
+			line("Last seats in the house:")
+		} else {
+			line("Seat order (beyond the minimums):")
+		}
+		for _, a := range res.Order[from:] {
+			line("  " + awardText(a))
+		}
+	}
+	if len(res.Beyond) > 0 {
+		line("Next seats beyond the house size:")
+		for _, a := range res.Beyond {
+			line("  " + awardText(a))
+		}
+	}
+}
+
+func awardText(a engine.SeatAward) string {
+	p := a.Priority.Text
+	if a.Priority.Infinite {
+		p = "infinite"
+	}
+	return "seat " + strconv.Itoa(a.Seat) + ": " + a.Name + " (its seat " + strconv.Itoa(a.Nth) + "), priority " + p
+}
+
+func plural(n int, w string) string {
+	if n == 1 {
+		return "1 " + w
+	}
+	return strconv.Itoa(n) + " " + w + "s"
+}
+
+func writeString(w io.Writer, s string) error {
+	_, err := io.WriteString(w, s)
+	return err
+}
+
+// ComparisonTable returns one row per unit with its seats under each method.
+// A seat count that breaks quota is marked with "!", and the last column
+// says whether the methods differ for the unit.
+func ComparisonTable(c *Comparison) *Table {
+	t := &Table{Header: []string{"unit", "population", "quota"}, Right: []bool{false, true, true}}
+	for _, m := range c.Methods {
+		t.Header = append(t.Header, m.String())
+		t.Right = append(t.Right, true)
+	}
+	t.Header = append(t.Header, "differs")
+	first := c.First()
+	if first == nil {
+		return t
+	}
+	for i := range first.Units {
+		u := &first.Units[i]
+		row := []string{u.Name, u.Population.String(), u.Quota.Text}
+		for _, r := range c.Results {
+			if r == nil {
+				row = append(row, "error")
+				continue
+			}
+			s := strconv.Itoa(r.Units[i].Seats)
+			if !r.Units[i].MeetsQuota {
+				s = "!" + s
+			}
+			row = append(row, s)
+		}
+		if c.Differs(i) {
+			row = append(row, "*")
+		} else {
+			row = append(row, "")
+		}
+		t.AddRow(row...)
+	}
+	return t
+}
+
+// WriteComparisonText writes the comparison for a terminal.
+func WriteComparisonText(w io.Writer, title string, c *Comparison) error {
+	var b strings.Builder
+	if title != "" {
+		b.WriteString(title + "\n")
+	}
+	if f := c.First(); f != nil {
+		b.WriteString("All methods, " + strconv.Itoa(f.Seats) + " seats, population " + f.Total + "\n\n")
+	}
+	if err := writeString(w, b.String()); err != nil {
+		return err
+	}
+	if err := ComparisonTable(c).WriteText(w); err != nil {
+		return err
+	}
+	b.Reset()
+	b.WriteString("\n")
+	comparisonNotes(&b, c, "")
+	b.WriteString("\n" + Caution + "\n")
+	return writeString(w, b.String())
+}
+
+// WriteComparisonMarkdown writes the comparison as a Markdown section.
+func WriteComparisonMarkdown(w io.Writer, title string, c *Comparison) error {
+	if title == "" {
+		title = "Methods compared"
+	}
+	if err := writeString(w, "## "+title+"\n\n"); err != nil {
+		return err
+	}
+	if err := ComparisonTable(c).WriteMarkdown(w); err != nil {
+		return err
+	}
+	var b strings.Builder
+	b.WriteString("\n")
+	comparisonNotes(&b, c, "- ")
+	b.WriteString("\n> " + Caution + "\n")
+	return writeString(w, b.String())
+}
+
+func comparisonNotes(b *strings.Builder, c *Comparison, bullet string) {
+	b.WriteString(bullet + "\"!\" marks seats outside the unit's lower and upper quota; \"*\" marks units the methods treat differently.\n")
+	for k, m := range c.Methods {
+		r := c.Results[k]
+		if r == nil {
+			b.WriteString(bullet + m.String() + ": cannot apportion this scenario: " + errText(c.Errors[k]) + "\n")
+			continue
+		}
+		if v := c.QuotaViolations(k); v > 0 {
+			b.WriteString(bullet + m.String() + ": breaks quota for " + plural(v, "unit") + "\n")
+		}
+		for _, t := range r.Ties {
+			s := bullet + m.String() + ": TIE among " + strings.Join(t.Names, ", ") + " for " + plural(t.Seats, "seat")
+			if len(t.Winners) == 0 {
+				s += " (left unassigned)"
+			}
+			b.WriteString(s + "\n")
+		}
+	}
+}
+
+func errText(err error) string {
+	if err == nil {
+		return ""
+	}
+	return err.Error()
+}

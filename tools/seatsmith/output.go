@@ -1,0 +1,59 @@
+package main
+
+import (
+	"bytes"
+	"flag"
+	"os"
+	"path/filepath"
+	"strings"
+)
+
+// outputFlags choose the output format and destination. Output is built in
+// full before anything is written, and a file is replaced only once the new
+// content is complete, so a failure never leaves half a result.
+type outputFlags struct {
+	format string
+	out    string
+}
+
+func (o *outputFlags) bind(fs *flag.FlagSet, formats ...string) {
+	fs.StringVar(&o.format, "format", formats[0], "output format: "+strings.Join(formats, ", "))
+	fs.StringVar(&o.out, "o", "", "write the output to this file instead of standard output")
+}
+
+func (o *outputFlags) check(formats ...string) error {
+	for _, f := range formats {
+		if o.format == f {
+			return nil
+		}
+	}
+	return usageError("-format: unknown format " + quote(o.format) + "; use " + strings.Join(formats, ", "))
+}
+
+// write delivers the finished output.
+func (o *outputFlags) write(e *env, b *bytes.Buffer) error {
+	if o.out == "" || o.out == "-" {
+		_, err := e.stdout.Write(b.Bytes())
+		return err
+	}
+	dir := filepath.Dir(o.out)
+	tmp, err := os.CreateTemp(dir, ".seatsmith-*")
+	if err != nil {
+		return err
+	}
+	name := tmp.Name()
+	if _, err := tmp.Write(b.Bytes()); err != nil {
+		tmp.Close()
+		os.Remove(name)
+		return err
+	}
+	if err := tmp.Close(); err != nil {
+		os.Remove(name)
+		return err
+	}
+	if err := os.Rename(name, o.out); err != nil {
+		os.Remove(name)
+		return err
+	}
+	return nil
+}

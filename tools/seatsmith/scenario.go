@@ -1,0 +1,132 @@
+package main
+
+import (
+	"flag"
+	"io"
+	"os"
+	"strconv"
+	"strings"
+
+	"seatsmith/engine"
+	"seatsmith/engine/input"
+)
+
+// scenarioFlags are the options every scenario-reading command shares.
+// Options given on the command line override the file's own values.
+type scenarioFlags struct {
+	seats     int
+	method    string
+	min, max  int
+	threshold string
+	tiebreak  string
+	set       map[string]bool
+}
+
+func (f *scenarioFlags) bind(fs *flag.FlagSet, withMethod bool) {
+	fs.IntVar(&f.seats, "seats", 0, "house size: the number of seats to divide")
+	if withMethod {
+		fs.StringVar(&f.method, "method", "", "method: "+strings.Join(engine.MethodIDs(), ", ")+"\n(aliases: hare, dhondt, sainte-lague, equal-proportions)")
+	}
+	fs.IntVar(&f.min, "min", 0, "default minimum seats per unit")
+	fs.IntVar(&f.max, "max", 0, "default maximum seats per unit (0: no cap)")
+	fs.StringVar(&f.threshold, "threshold", "", "exclude units below this share of the total, e.g. 0.05 or 5%")
+	fs.StringVar(&f.tiebreak, "tiebreak", "", "how to settle a tie: none (report it), order (input order), lot:SEED")
+}
+
+// load reads the scenario named by the single file argument and applies
+// the options. It returns a located error for bad input.
+func (f *scenarioFlags) load(e *env, fs *flag.FlagSet) (*input.Source, error) {
+	f.set = map[string]bool{}
+	fs.Visit(func(fl *flag.Flag) { f.set[fl.Name] = true })
+	if fs.NArg() != 1 {
+		return nil, usageError("expected one FILE argument (or - for standard input), got " + strconv.Itoa(fs.NArg()))
+	}
+	name := fs.Arg(0)
+	var r io.Reader
+	if name == "-" {
+		r = e.stdin
+		name = "stdin"
+	} else {
+		file, err := os.Open(name)
+		if err != nil {
+			return nil, &input.Error{File: name, Msg: "cannot read: " + strings.TrimPrefix(err.Error(), "open "+name+": ")}
+		}
+		defer file.Close()
+		r = file
+	}
+	src, err := input.Read(name, r)
+	if err != nil {
+		return nil, err
+	}
+	sc := &src.Scenario
+	flagErr := func(flagName, msg string) error {
+		return usageError("-" + flagName + ": " + msg)
+	}
+	if f.set["seats"] {
+		if f.seats < 1 || f.seats > engine.MaxSeats {
+			return nil, flagErr("seats", "must be between 1 and "+strconv.Itoa(engine.MaxSeats))
+		}
+		sc.Seats = f.seats
+	}
+	if f.set["method"] {
+		m, err := engine.ParseMethod(f.method)
+		if err != nil {
+			return nil, flagErr("method", errMsg(err))
+		}
+		sc.Method = m
+	}
+	if f.set["min"] {
+		if f.min < 0 {
+			return nil, flagErr("min", "cannot be negative")
+		}
+		sc.Min = f.min
+	}
+	if f.set["max"] {
+		if f.max < 0 {
+			return nil, flagErr("max", "cannot be negative")
+		}
+		sc.Max = f.max
+	}
+	if f.set["threshold"] {
+		th, err := input.ParseShare(f.threshold)
+		if err != nil {
+			return nil, flagErr("threshold", err.Error())
+		}
+		sc.Threshold = th
+	}
+	if f.set["tiebreak"] {
+		t, err := engine.ParseTieRule(f.tiebreak)
+		if err != nil {
+			return nil, flagErr("tiebreak", errMsg(err))
+		}
+		sc.Tie = t
+	}
+	if sc.Seats == 0 {
+		return nil, usageError("no house size: give -seats N (or \"seats\" in a JSON scenario)")
+	}
+	return src, nil
+}
+
+// usageErr is a command-line mistake (exit status 2).
+type usageErr struct{ msg string }
+
+func (u *usageErr) Error() string { return u.msg }
+
+func usageError(msg string) error { return &usageErr{msg} }
+
+func errMsg(err error) string {
+	if ee, ok := err.(*engine.Error); ok {
+		return ee.Msg
+	}
+	return err.Error()
+}
+
+// fail reports err and returns the exit status it calls for.
+func fail(e *env, cmd string, err error) int {
+	io.WriteString(e.stderr, "seatsmith "+cmd+": "+err.Error()+"\n")
+	if _, ok := err.(*usageErr); ok {
+		io.WriteString(e.stderr, "run \"seatsmith "+cmd+" -h\" for the options\n")
+		return exitUsage
+	}
+	return exitInput
+}
