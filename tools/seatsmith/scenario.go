@@ -41,6 +41,51 @@ func (f *scenarioFlags) load(e *env, fs *flag.FlagSet) (*input.Source, error) {
 	if fs.NArg() != 1 {
 		return nil, usageError("expected one FILE argument (or - for standard input), got " + strconv.Itoa(fs.NArg()))
 	}
+	// Check the options before reading the file, so that a mistake on the
+	// command line is reported as such.
+	var over engine.Scenario
+	flagErr := func(flagName, msg string) error {
+		return usageError("-" + flagName + ": " + msg)
+	}
+	if f.set["seats"] {
+		if f.seats < 1 || f.seats > engine.MaxSeats {
+			return nil, flagErr("seats", "must be between 1 and "+strconv.Itoa(engine.MaxSeats))
+		}
+		over.Seats = f.seats
+	}
+	if f.set["method"] {
+		m, err := engine.ParseMethod(f.method)
+		if err != nil {
+			return nil, flagErr("method", errMsg(err))
+		}
+		over.Method = m
+	}
+	if f.set["min"] {
+		if f.min < 0 {
+			return nil, flagErr("min", "cannot be negative")
+		}
+		over.Min = f.min
+	}
+	if f.set["max"] {
+		if f.max < 0 {
+			return nil, flagErr("max", "cannot be negative")
+		}
+		over.Max = f.max
+	}
+	if f.set["threshold"] {
+		th, err := input.ParseShare(f.threshold)
+		if err != nil {
+			return nil, flagErr("threshold", err.Error())
+		}
+		over.Threshold = th
+	}
+	if f.set["tiebreak"] {
+		t, err := engine.ParseTieRule(f.tiebreak)
+		if err != nil {
+			return nil, flagErr("tiebreak", errMsg(err))
+		}
+		over.Tie = t
+	}
 	name := fs.Arg(0)
 	var r io.Reader
 	if name == "-" {
@@ -59,47 +104,23 @@ func (f *scenarioFlags) load(e *env, fs *flag.FlagSet) (*input.Source, error) {
 		return nil, err
 	}
 	sc := &src.Scenario
-	flagErr := func(flagName, msg string) error {
-		return usageError("-" + flagName + ": " + msg)
-	}
 	if f.set["seats"] {
-		if f.seats < 1 || f.seats > engine.MaxSeats {
-			return nil, flagErr("seats", "must be between 1 and "+strconv.Itoa(engine.MaxSeats))
-		}
-		sc.Seats = f.seats
+		sc.Seats = over.Seats
 	}
 	if f.set["method"] {
-		m, err := engine.ParseMethod(f.method)
-		if err != nil {
-			return nil, flagErr("method", errMsg(err))
-		}
-		sc.Method = m
+		sc.Method = over.Method
 	}
 	if f.set["min"] {
-		if f.min < 0 {
-			return nil, flagErr("min", "cannot be negative")
-		}
-		sc.Min = f.min
+		sc.Min = over.Min
 	}
 	if f.set["max"] {
-		if f.max < 0 {
-			return nil, flagErr("max", "cannot be negative")
-		}
-		sc.Max = f.max
+		sc.Max = over.Max
 	}
 	if f.set["threshold"] {
-		th, err := input.ParseShare(f.threshold)
-		if err != nil {
-			return nil, flagErr("threshold", err.Error())
-		}
-		sc.Threshold = th
+		sc.Threshold = over.Threshold
 	}
 	if f.set["tiebreak"] {
-		t, err := engine.ParseTieRule(f.tiebreak)
-		if err != nil {
-			return nil, flagErr("tiebreak", errMsg(err))
-		}
-		sc.Tie = t
+		sc.Tie = over.Tie
 	}
 	if sc.Seats == 0 {
 		return nil, usageError("no house size: give -seats N (or \"seats\" in a JSON scenario)")
