@@ -101,7 +101,7 @@ func WriteAllotText(w io.Writer, title string, res *engine.Result, order bool) e
 	b.Reset()
 	b.WriteString("\n")
 	writeExplanation(&b, res, order, "")
-	b.WriteString("\n" + Caution + "\n")
+	b.WriteString("\n" + Wrap(Caution, 76) + "\n")
 	return writeString(w, b.String())
 }
 
@@ -260,7 +260,7 @@ func WriteComparisonText(w io.Writer, title string, c *Comparison) error {
 	b.Reset()
 	b.WriteString("\n")
 	comparisonNotes(&b, c, "")
-	b.WriteString("\n" + Caution + "\n")
+	b.WriteString("\n" + Wrap(Caution, 76) + "\n")
 	return writeString(w, b.String())
 }
 
@@ -308,4 +308,25 @@ func errText(err error) string {
 		return ""
 	}
 	return err.Error()
+}
+
+// Wrap breaks text into lines of at most width characters at spaces.
+func Wrap(text string, width int) string {
+	var b strings.Builder
+	n := 0
+	for i, w := range strings.Fields(text) {
+		l := len([]rune(w))
+		if i > 0 {
+			if n+1+l > width {
+				b.WriteString("\n")
+				n = 0
+			} else {
+				b.WriteString(" ")
+				n++
+			}
+		}
+		b.WriteString(w)
+		n += l
+	}
+	return b.String()
 }

@@ -48,7 +48,7 @@ func helpFunc(fs *flag.FlagSet, w io.Writer, text string) func() {
 		io.WriteString(w, text)
 		fs.SetOutput(w)
 		fs.PrintDefaults()
-		io.WriteString(w, "\nExit status: 0 done, 1 bad input, 2 bad command line, 3 a tie left seats unassigned.\n\n"+report.Caution+"\n")
+		io.WriteString(w, "\nExit status: 0 done, 1 bad input, 2 bad command line, 3 a tie left seats unassigned.\n\n"+report.Wrap(report.Caution, 76)+"\n")
 	}
 }
 
