@@ -59,6 +59,9 @@ func (t *Table) WriteText(w io.Writer) error {
 				b.WriteString(c + pad)
 			}
 		}
+		trimmed := strings.TrimRight(b.String(), " ")
+		b.Reset()
+		b.WriteString(trimmed)
 		b.WriteString("\n")
 	}
 	line(t.Header)
