@@ -1,0 +1,101 @@
+package calc
+
+import (
+	"math"
+	"strconv"
+
+	"seatsmith/engine"
+	. "seatsmith/site/render"
+)
+
+// maxChartUnits is the most units the chart draws; beyond it the table
+// alone shows the result.
+const maxChartUnits = 60
+
+// chart draws each unit's seats as a bar against its quota (a mark) and
+// the band from its lower to its upper quota. Floating-point numbers only
+// place the marks; they decide nothing.
+func chart(r *engine.Result) *Node {
+	n := len(r.Units)
+	if n == 0 || n > maxChartUnits {
+		return nil
+	}
+	const (
+		width  = 640.0
+		labelW = 150.0
+		left   = labelW + 10
+		right  = 40.0
+		top    = 30.0
+		rowH   = 24.0
+		barH   = 14.0
+	)
+	top1 := 1.0
+	for _, u := range r.Units {
+		top1 = math.Max(top1, math.Max(float64(u.Seats), float64(u.Upper)))
+	}
+	step := tickStep(top1)
+	scaleMax := math.Ceil(top1/step) * step
+	plotW := width - left - right
+	x := func(v float64) float64 { return left + v/scaleMax*plotW }
+	height := top + float64(n)*rowH + 10
+
+	fig := El("figure", "class", "sc-chart", "data-role", "chart")
+	svg := El("svg", "viewBox", "0 0 "+f1(width)+" "+f1(height), "role", "img", "class", "sc-svg",
+		"aria-label", "Bar chart: seats of each unit under "+r.Method.Name()+", with each unit's quota marked", "focusable", "false")
+	svg.Add(Wrap("title", "Seats against quota, "+r.Method.Name()))
+	axis := El("g", "class", "sc-axis")
+	for v := 0.0; v <= scaleMax+1e-9; v += step {
+		xx := f1(x(v))
+		axis.Add(El("line", "x1", xx, "x2", xx, "y1", f1(top-6), "y2", f1(height-10), "class", "sc-grid-line"))
+		axis.Add(Wrap("text", strconv.Itoa(int(v)), "x", xx, "y", f1(top-12), "text-anchor", "middle", "class", "sc-tick"))
+	}
+	svg.Add(axis)
+	for i := range r.Units {
+		u := &r.Units[i]
+		y := top + float64(i)*rowH
+		g := El("g", "class", "sc-bar-row", "data-chart-unit", u.Name)
+		g.Add(Wrap("text", shortName(u.Name), "x", f1(labelW), "y", f1(y+barH-2), "text-anchor", "end", "class", "sc-label"))
+		if !u.Excluded {
+			lo, hi := x(float64(u.Lower)), x(float64(u.Upper))
+			if hi-lo < 2 {
+				hi = lo + 2
+			}
+			g.Add(El("rect", "x", f1(lo), "y", f1(y-3), "width", f1(hi-lo), "height", f1(barH+6), "class", "sc-band"))
+		}
+		cls := "sc-bar"
+		if !u.MeetsQuota && !u.Excluded {
+			cls = "sc-bar sc-bar-off"
+		}
+		if u.Seats > 0 {
+			g.Add(El("rect", "x", f1(left), "y", f1(y), "width", f1(x(float64(u.Seats))-left), "height", f1(barH), "class", cls))
+		}
+		if !u.Excluded {
+			qx := f1(x(u.Quota.Approx))
+			g.Add(El("line", "x1", qx, "x2", qx, "y1", f1(y-4), "y2", f1(y+barH+4), "class", "sc-quota-mark"))
+		}
+		g.Add(Wrap("text", strconv.Itoa(u.Seats), "x", f1(x(float64(u.Seats))+6), "y", f1(y+barH-2), "class", "sc-value"))
+		svg.Add(g)
+	}
+	fig.Add(svg)
+	fig.Add(Wrap("figcaption", "Bars: seats. Dark mark: the unit's quota. Pale band: from its lower to its upper quota; a bar that ends outside its band breaks quota."))
+	return fig
+}
+
+func tickStep(max float64) float64 {
+	for _, s := range []float64{1, 2, 5, 10, 20, 25, 50, 100, 200, 250, 500, 1000, 2000, 5000, 10000} {
+		if max/s <= 10 {
+			return s
+		}
+	}
+	return math.Pow(10, math.Ceil(math.Log10(max/10)))
+}
+
+func shortName(s string) string {
+	r := []rune(s)
+	if len(r) > 22 {
+		return string(r[:21]) + "…"
+	}
+	return s
+}
+
+func f1(v float64) string { return strconv.FormatFloat(v, 'f', 1, 64) }

@@ -1,0 +1,196 @@
+package calc
+
+import (
+	"strconv"
+	"strings"
+
+	"seatsmith/engine"
+	"seatsmith/engine/jsondoc"
+	. "seatsmith/site/render"
+)
+
+// docText returns the text of a scalar member of doc, or "".
+func docText(doc *jsondoc.Value, key string) string {
+	x := doc.Get(key)
+	if x == nil {
+		return ""
+	}
+	switch x.Kind {
+	case jsondoc.String, jsondoc.Number:
+		return x.Text
+	}
+	return ""
+}
+
+// Editor lays out the controls for the scenario doc. live is false for a
+// page rendered ahead of time: its controls are disabled until the engine
+// has loaded in the browser.
+func Editor(b *Block, doc *jsondoc.Value, live bool) *Node {
+	if doc == nil {
+		doc = b.Doc
+	}
+	id := func(s string) string { return b.ID + "-" + s }
+	form := El("form", "class", "sc-editor", "data-part", "editor", "novalidate", "", "aria-label", "Scenario for "+title(b, doc))
+	fs := El("fieldset", "class", "sc-controls", "data-role", "controls").SetIf(!live, "disabled", "")
+	fs.Add(Wrap("legend", "Your numbers", "class", "sc-legend"))
+	if !live {
+		fs.Add(Wrap("p", "These results were computed when the page was built. The calculator becomes editable once its engine has loaded (it needs JavaScript).", "class", "sc-static-note", "data-role", "static-note"))
+	}
+	grid := El("div", "class", "sc-grid")
+	grid.Add(numberField(id("seats"), "House size (seats)", "seats", docText(doc, "seats"), "1"))
+	grid.Add(methodField(id("method"), docText(doc, "method")))
+	grid.Add(numberField(id("min"), "Minimum seats per unit", "min", docText(doc, "min"), "0"))
+	fs.Add(grid)
+
+	more := El("details", "class", "sc-more").SetIf(b.Mode == Full || hasAdvanced(doc), "open", "")
+	more.Add(Wrap("summary", "Caps, threshold and ties"))
+	mg := El("div", "class", "sc-grid")
+	mg.Add(numberField(id("max"), "Maximum seats per unit (0: no cap)", "max", docText(doc, "max"), "0"))
+	th := El("div", "class", "sc-field")
+	th.Add(Wrap("label", "Threshold (share of the total, e.g. 5%)", "for", id("threshold")))
+	th.Add(El("input", "id", id("threshold"), "type", "text", "data-field", "threshold", "value", docText(doc, "threshold"),
+		"inputmode", "decimal", "autocomplete", "off", "spellcheck", "false", "placeholder", "none"))
+	mg.Add(th)
+	kind, seed := tieParts(docText(doc, "tie"))
+	tf := El("div", "class", "sc-field")
+	tf.Add(Wrap("label", "When units tie for the last seat", "for", id("tie-kind")))
+	sel := El("select", "id", id("tie-kind"), "data-field", "tie-kind")
+	for _, o := range [][2]string{{"none", "Report the tie, leave the seat open"}, {"order", "Give it to the unit listed first"}, {"lot", "Draw lots (seeded, repeatable)"}} {
+		sel.Add(Wrap("option", o[1], "value", o[0]).SetIf(o[0] == kind, "selected", ""))
+	}
+	tf.Add(sel)
+	mg.Add(tf)
+	sf := El("div", "class", "sc-field")
+	sf.Add(Wrap("label", "Seed for drawing lots", "for", id("tie-seed")))
+	sf.Add(El("input", "id", id("tie-seed"), "type", "text", "inputmode", "numeric", "data-field", "tie-seed", "value", seed, "autocomplete", "off"))
+	mg.Add(sf)
+	more.Add(mg)
+	fs.Add(more)
+
+	fs.Add(unitsTable(b, doc))
+	acts := El("div", "class", "sc-actions")
+	acts.Add(Wrap("button", "Add a unit", "type", "button", "data-action", "add-unit"))
+	acts.Add(Wrap("button", "Back to the page's numbers", "type", "button", "data-action", "reset"))
+	fs.Add(acts)
+
+	csv := El("details", "class", "sc-csv")
+	csv.Add(Wrap("summary", "Paste or load a table"))
+	csv.Add(Wrap("p", "A CSV table with a header row: name and population, optionally min and max. It replaces the units above.", "class", "sc-hint", "id", id("csv-hint")))
+	cf := El("div", "class", "sc-field")
+	cf.Add(Wrap("label", "CSV table", "for", id("csv")))
+	cf.Add(El("textarea", "id", id("csv"), "data-field", "csv", "rows", "5", "spellcheck", "false", "aria-describedby", id("csv-hint"),
+		"placeholder", "name,population\nNorth,1200\nSouth,800"))
+	csv.Add(cf)
+	ca := El("div", "class", "sc-actions")
+	ca.Add(Wrap("button", "Use this table", "type", "button", "data-action", "use-csv"))
+	ca.Add(El("label", "class", "sc-file").AddText("Load a file (CSV or JSON scenario) ").
+		Add(El("input", "type", "file", "accept", ".csv,.json,text/csv,application/json", "data-action", "load-file")))
+	csv.Add(ca)
+	fs.Add(csv)
+
+	ex := El("div", "class", "sc-actions sc-export")
+	ex.Add(Wrap("button", "Download results (CSV)", "type", "button", "data-action", "export-csv"))
+	ex.Add(Wrap("button", "Download scenario and results (JSON)", "type", "button", "data-action", "export-json"))
+	ex.Add(Wrap("button", "Copy a link to these numbers", "type", "button", "data-action", "copy-link"))
+	fs.Add(ex)
+	fs.Add(El("p", "class", "sc-note", "data-role", "notice", "role", "status"))
+	form.Add(fs)
+	return form
+}
+
+func title(b *Block, doc *jsondoc.Value) string {
+	if t := docText(doc, "title"); t != "" {
+		return t
+	}
+	if t := docText(b.Doc, "title"); t != "" {
+		return t
+	}
+	return "this calculator"
+}
+
+func hasAdvanced(doc *jsondoc.Value) bool {
+	for _, k := range []string{"max", "threshold", "tie"} {
+		if t := docText(doc, k); t != "" && t != "0" && t != "none" {
+			return true
+		}
+	}
+	return false
+}
+
+func tieParts(s string) (kind, seed string) {
+	t := strings.ToLower(strings.TrimSpace(s))
+	switch {
+	case t == "order" || t == "input-order":
+		return "order", ""
+	case t == "lot":
+		return "lot", "1"
+	case strings.HasPrefix(t, "lot:"):
+		return "lot", t[4:]
+	}
+	return "none", ""
+}
+
+func numberField(id, label, field, val, min string) *Node {
+	f := El("div", "class", "sc-field")
+	f.Add(Wrap("label", label, "for", id))
+	f.Add(El("input", "id", id, "type", "number", "inputmode", "numeric", "min", min, "step", "1", "data-field", field, "value", val, "autocomplete", "off"))
+	return f
+}
+
+func methodField(id, val string) *Node {
+	cur, _ := engine.ParseMethod(val)
+	f := El("div", "class", "sc-field")
+	f.Add(Wrap("label", "Method", "for", id))
+	sel := El("select", "id", id, "data-field", "method")
+	lr := El("optgroup", "label", "Largest remainder")
+	dv := El("optgroup", "label", "Divisor methods")
+	for _, m := range engine.Methods() {
+		o := Wrap("option", m.Name(), "value", m.String()).SetIf(m == cur, "selected", "")
+		if m.IsDivisor() {
+			dv.Add(o)
+		} else {
+			lr.Add(o)
+		}
+	}
+	sel.Add(lr, dv)
+	f.Add(sel)
+	return f
+}
+
+func unitsTable(b *Block, doc *jsondoc.Value) *Node {
+	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Units (scrolls sideways)")
+	t := El("table", "class", "sc-units")
+	t.Add(Wrap("caption", "Units: names and populations. A blank minimum or maximum uses the default above."))
+	t.Add(El("thead").Add(El("tr").Add(
+		Wrap("th", "#", "scope", "col"),
+		Wrap("th", "Name", "scope", "col"),
+		Wrap("th", "Population", "scope", "col"),
+		Wrap("th", "Min", "scope", "col"),
+		Wrap("th", "Max", "scope", "col"),
+		El("th", "scope", "col").Add(Wrap("span", "Remove", "class", "sc-vh")),
+	)))
+	body := El("tbody")
+	us := doc.Get("units")
+	if us != nil && us.Kind == jsondoc.Array {
+		for k, u := range us.Items {
+			n := strconv.Itoa(k + 1)
+			key := "units." + strconv.Itoa(k) + "."
+			cell := func(field, label, mode, cls string) *Node {
+				return El("td").Add(El("input", "type", "text", "class", cls, "data-field", key+field, "value", docText(u, field),
+					"aria-label", label+" of unit "+n, "inputmode", mode, "autocomplete", "off", "spellcheck", "false"))
+			}
+			row := El("tr", "data-row", strconv.Itoa(k))
+			row.Add(Wrap("td", n, "class", "num sc-idx"))
+			row.Add(cell("name", "Name", "text", "sc-in-name"))
+			row.Add(cell("population", "Population", "decimal", "sc-in-pop num"))
+			row.Add(cell("min", "Minimum seats", "numeric", "sc-in-bound num"))
+			row.Add(cell("max", "Maximum seats", "numeric", "sc-in-bound num"))
+			row.Add(El("td").Add(Wrap("button", "×", "type", "button", "class", "sc-remove", "data-action", "remove-unit",
+				"data-index", strconv.Itoa(k), "aria-label", "Remove unit "+n)))
+			body.Add(row)
+		}
+	}
+	t.Add(body)
+	wrap.Add(t)
+	return wrap
+}

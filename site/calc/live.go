@@ -1,0 +1,233 @@
+package calc
+
+import (
+	"bytes"
+	"errors"
+	"strings"
+
+	"seatsmith/engine/input"
+	"seatsmith/engine/jsondoc"
+	"seatsmith/engine/report"
+	"seatsmith/site/render"
+)
+
+// Live answers one request from the browser and never panics. The request
+// is an object:
+//
+//	block_text  the calculator block's JSON text, as on the page (required)
+//	id          the calculator's id (required)
+//	mode        "full" or "compact"
+//	scenario    the scenario being edited, a scenario document; the
+//	            block's own when absent or null
+//	load        {name, text}: a CSV table (replaces the units) or a JSON
+//	            scenario document (replaces the scenario) to load first
+//	editor      true to lay out the editor as well as the results
+//	export      true to add the CSV and JSON exports
+//
+// The answer is an object:
+//
+//	state       "live", or "error" when the scenario cannot be apportioned
+//	error       {message, field} or null
+//	scenario    the scenario the answer is for, every number as a string
+//	            (so that no digit is lost in JavaScript)
+//	output      the results as a render tree (package render's JSON form)
+//	editor      the editor as a render tree, when asked for
+//	claims      [{id, holds, found}]
+//	load_error  {message, line, field} when load could not be read
+//	csv, json   the exports, when asked for and the scenario is valid
+//
+// A block that cannot be read answers {state: "error", error, fatal: true}.
+func Live(req *jsondoc.Value) (resp *jsondoc.Value) {
+	defer func() {
+		if p := recover(); p != nil {
+			resp = fatal("internal error: " + panicText(p))
+		}
+	}()
+	if req == nil || req.Kind != jsondoc.Object {
+		return fatal("the request must be an object")
+	}
+	bt := req.Get("block_text")
+	if bt == nil || bt.Kind != jsondoc.String {
+		return fatal("block_text: missing")
+	}
+	id := "calc"
+	if x := req.Get("id"); x != nil && x.Kind == jsondoc.String && x.Text != "" {
+		id = x.Text
+	}
+	mode, _ := ParseMode(str(req.Get("mode")))
+	bv, err := jsondoc.Parse([]byte(bt.Text))
+	if err != nil {
+		return fatal("the calculator's scenario block is not valid JSON: " + err.Error())
+	}
+	b, err := ParseBlock("", id, mode, bv)
+	if err != nil {
+		return fatal("the calculator's scenario block is invalid: " + trimInput(err))
+	}
+	doc := req.Get("scenario")
+	if doc.IsNull() {
+		doc = b.Doc
+	}
+	resp = jsondoc.NewObject()
+	if ld := req.Get("load"); !ld.IsNull() {
+		nd, lerr := load(doc, ld)
+		if lerr != nil {
+			le := jsondoc.NewObject().Set("message", jsondoc.Str(lerr.Msg)).Set("line", jsondoc.Int(lerr.Line)).Set("field", jsondoc.Str(lerr.Field))
+			resp.Set("load_error", le)
+		} else {
+			doc = nd
+		}
+	}
+	doc = stringNumbers(doc)
+	o := Run(b, doc)
+	resp.Set("state", jsondoc.Str(o.State()))
+	if o.Problem != nil {
+		resp.Set("error", jsondoc.NewObject().Set("message", jsondoc.Str(o.Problem.Msg)).Set("field", jsondoc.Str(o.Problem.Field)))
+	} else {
+		resp.Set("error", nil)
+	}
+	resp.Set("scenario", doc)
+	resp.Set("output", render.Doc(Output(o)))
+	if x := req.Get("editor"); x != nil && x.Kind == jsondoc.Bool && x.Bool {
+		resp.Set("editor", render.Doc(Editor(b, doc, true)))
+	}
+	cl := jsondoc.NewArray()
+	for _, v := range o.Verdicts {
+		cl.Append(jsondoc.NewObject().Set("id", jsondoc.Str(v.Claim.ID)).Set("holds", jsondoc.Boolean(v.Holds)).Set("found", jsondoc.Str(v.Found)))
+	}
+	resp.Set("claims", cl)
+	if x := req.Get("export"); x != nil && x.Kind == jsondoc.Bool && x.Bool && o.Problem == nil {
+		csv, js := Export(o)
+		resp.Set("csv", jsondoc.Str(csv)).Set("json", jsondoc.Str(js))
+	}
+	return resp
+}
+
+func fatal(msg string) *jsondoc.Value {
+	return jsondoc.NewObject().Set("state", jsondoc.Str("error")).Set("fatal", jsondoc.Boolean(true)).
+		Set("error", jsondoc.NewObject().Set("message", jsondoc.Str(msg)).Set("field", jsondoc.Str("")))
+}
+
+func panicText(p any) string {
+	switch x := p.(type) {
+	case error:
+		return x.Error()
+	case string:
+		return x
+	}
+	return "unexpected failure"
+}
+
+func str(v *jsondoc.Value) string {
+	if v != nil && v.Kind == jsondoc.String {
+		return v.Text
+	}
+	return ""
+}
+
+// trimInput drops the empty file name from an input error's text.
+func trimInput(err error) string {
+	var ie *input.Error
+	if errors.As(err, &ie) {
+		s := ""
+		if ie.Field != "" {
+			s = ie.Field + ": "
+		}
+		return s + ie.Msg
+	}
+	return err.Error()
+}
+
+// load reads a CSV table or a JSON scenario and merges it into doc: a table
+// replaces the units; a scenario replaces every member it gives.
+func load(doc, ld *jsondoc.Value) (*jsondoc.Value, *input.Error) {
+	text := str(ld.Get("text"))
+	name := str(ld.Get("name"))
+	if name == "" {
+		name = "table"
+	}
+	src, err := input.Read(name, strings.NewReader(text))
+	if err != nil {
+		var ie *input.Error
+		if errors.As(err, &ie) {
+			return nil, ie
+		}
+		return nil, &input.Error{File: name, Msg: err.Error()}
+	}
+	enc := input.Encode(src.Title, &src.Scenario)
+	out := jsondoc.NewObject()
+	isJSON := strings.HasPrefix(strings.TrimLeft(strings.TrimPrefix(text, "\uFEFF"), " \t\r\n"), "{")
+	if doc != nil && doc.Kind == jsondoc.Object {
+		for _, f := range doc.Fields {
+			if f.Key == "units" {
+				continue
+			}
+			if isJSON && src.Given[f.Key] {
+				continue
+			}
+			if isJSON && f.Key == "title" && src.Title != "" {
+				continue
+			}
+			out.Set(f.Key, f.Value)
+		}
+	}
+	for _, f := range enc.Fields {
+		switch {
+		case f.Key == "units":
+			out.Set("units", f.Value)
+		case isJSON && (src.Given[f.Key] || (f.Key == "title" && src.Title != "")):
+			out.Set(f.Key, f.Value)
+		}
+	}
+	return out, nil
+}
+
+// stringNumbers returns a copy of v with every number written as a string,
+// so that JavaScript keeps every digit.
+func stringNumbers(v *jsondoc.Value) *jsondoc.Value {
+	if v == nil {
+		return nil
+	}
+	switch v.Kind {
+	case jsondoc.Number:
+		return jsondoc.Str(v.Text)
+	case jsondoc.Array:
+		a := jsondoc.NewArray()
+		for _, x := range v.Items {
+			a.Append(stringNumbers(x))
+		}
+		return a
+	case jsondoc.Object:
+		o := jsondoc.NewObject()
+		for _, f := range v.Fields {
+			o.Set(f.Key, stringNumbers(f.Value))
+		}
+		return o
+	}
+	c := *v
+	return &c
+}
+
+// Export returns the CSV table of o's result (the seatsmith command's
+// allot -format csv table, cells guarded against spreadsheet formulas) and
+// a JSON document holding the scenario, the allotment and the comparison.
+func Export(o *Outcome) (csv, js string) {
+	if o.Result == nil {
+		return "", ""
+	}
+	var b bytes.Buffer
+	if err := report.AllotTable(o.Result).WriteCSV(&b); err != nil {
+		b.Reset()
+	}
+	v := jsondoc.NewObject().Set("version", jsondoc.Int(1)).Set("kind", jsondoc.Str("calculator-export"))
+	v.Set("caution", jsondoc.Str(report.Caution))
+	v.Set("scenario", input.Encode(o.Title, &o.Scenario))
+	v.Set("allotment", report.Allotment(o.Title, o.Result))
+	v.Set("comparison", o.Comparison.Doc(o.Title))
+	cl := jsondoc.NewArray()
+	for _, vd := range o.Verdicts {
+		cl.Append(jsondoc.NewObject().Set("id", jsondoc.Str(vd.Claim.ID)).Set("holds", jsondoc.Boolean(vd.Holds)).Set("found", jsondoc.Str(vd.Found)))
+	}
+	v.Set("claims", cl)
+	return b.String(), string(jsondoc.MarshalIndent(v, "  "))
+}
+

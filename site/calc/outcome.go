@@ -1,0 +1,127 @@
+package calc
+
+import (
+	"errors"
+	"strconv"
+	"strings"
+
+	"seatsmith/engine"
+	"seatsmith/engine/input"
+	"seatsmith/engine/jsondoc"
+	"seatsmith/engine/report"
+	"seatsmith/site/claim"
+)
+
+// A Problem is why a scenario cannot be apportioned, placed at the editor
+// field at fault.
+type Problem struct {
+	Msg string
+	// Field is the editor field at fault: "seats", "method", "min", "max",
+	// "threshold", "tie", "units", or "units.K.name" and the like for unit K
+	// (0-based); empty when no one field is at fault.
+	Field string
+}
+
+// An Outcome is a calculator's scenario apportioned, compared and checked.
+type Outcome struct {
+	Block *Block
+	// Doc is the scenario document the outcome is for.
+	Doc        *jsondoc.Value
+	Title      string
+	Scenario   engine.Scenario
+	Result     *engine.Result
+	Comparison *report.Comparison
+	Verdicts   []claim.Verdict
+	// Problem is set, and the results are nil, when the scenario cannot be
+	// apportioned.
+	Problem *Problem
+}
+
+// Run apportions doc (the block's own scenario when doc is nil) with every
+// explanation, compares the block's methods and checks its claims.
+func Run(b *Block, doc *jsondoc.Value) *Outcome {
+	if doc == nil {
+		doc = b.Doc
+	}
+	o := &Outcome{Block: b, Doc: doc}
+	src, err := input.FromDoc(b.File, doc)
+	if err != nil {
+		o.Problem = problemOf(err)
+		return o
+	}
+	o.Title, o.Scenario = src.Title, src.Scenario
+	for _, need := range []string{"seats", "method"} {
+		if !src.Given[need] {
+			o.Problem = &Problem{Field: need, Msg: fieldLabel(need) + ": missing"}
+			return o
+		}
+	}
+	res, err := engine.Allot(&src.Scenario, engine.Full)
+	if err != nil {
+		o.Problem = problemOf(err)
+		return o
+	}
+	o.Result = res
+	o.Comparison = report.Compare(src.Scenario, b.Compare, 0)
+	o.Verdicts = claim.Check(src.Scenario, b.Claims)
+	return o
+}
+
+// problemOf turns an input or engine error into a Problem.
+func problemOf(err error) *Problem {
+	var ie *input.Error
+	var ee *engine.Error
+	switch {
+	case errors.As(err, &ie):
+		f := editorField(ie.Field)
+		return &Problem{Field: f, Msg: placeLabel(f) + ie.Msg}
+	case errors.As(err, &ee):
+		f := ee.Field
+		if ee.Unit >= 0 {
+			f = "units." + strconv.Itoa(ee.Unit) + "." + ee.Field
+		}
+		return &Problem{Field: f, Msg: placeLabel(f) + ee.Msg}
+	}
+	return &Problem{Msg: err.Error()}
+}
+
+// editorField turns "units[2].population" into "units.2.population".
+func editorField(f string) string {
+	if !strings.HasPrefix(f, "units[") {
+		return f
+	}
+	r := strings.NewReplacer("[", ".", "]", "")
+	return r.Replace(f)
+}
+
+var fieldLabels = map[string]string{
+	"seats": "House size", "method": "Method", "min": "Minimum seats", "max": "Maximum seats",
+	"threshold": "Threshold", "tie": "Tie rule", "units": "Units", "population": "population",
+	"name": "name", "title": "Title", "version": "Version",
+}
+
+func fieldLabel(f string) string {
+	if l, ok := fieldLabels[f]; ok {
+		return l
+	}
+	return f
+}
+
+// placeLabel names a field for a message: "Unit 3, population: ".
+func placeLabel(f string) string {
+	if f == "" {
+		return ""
+	}
+	parts := strings.Split(f, ".")
+	if parts[0] == "units" && len(parts) >= 2 {
+		k, err := strconv.Atoi(parts[1])
+		if err == nil {
+			s := "Unit " + strconv.Itoa(k+1)
+			if len(parts) >= 3 {
+				s += ", " + fieldLabel(parts[2])
+			}
+			return s + ": "
+		}
+	}
+	return fieldLabel(f) + ": "
+}

@@ -1,0 +1,249 @@
+package claim
+
+import (
+	"strconv"
+	"strings"
+
+	"seatsmith/engine"
+	"seatsmith/engine/input"
+	"seatsmith/engine/jsondoc"
+)
+
+// A Kind is what a claim asserts.
+type Kind uint8
+
+// The kinds of claims.
+const (
+	Seats Kind = iota + 1
+	Differ
+	Agree
+	BreaksQuota
+	MeetsQuota
+	GainBelow
+	LoseBelow
+	Alabama
+	Excluded
+	Included
+)
+
+var kindIDs = [...]string{
+	Seats: "seats", Differ: "differ", Agree: "agree", BreaksQuota: "breaks-quota",
+	MeetsQuota: "meets-quota", GainBelow: "gain-below", LoseBelow: "lose-below",
+	Alabama: "alabama", Excluded: "excluded", Included: "included",
+}
+
+// String returns the kind's id, as written in a claim.
+func (k Kind) String() string {
+	if k >= Seats && k <= Included {
+		return kindIDs[k]
+	}
+	return "unknown"
+}
+
+// Kinds returns the ids of every kind.
+func Kinds() []string {
+	var ids []string
+	for k := Seats; k <= Included; k++ {
+		ids = append(ids, kindIDs[k])
+	}
+	return ids
+}
+
+// A Claim is one checkable statement.
+type Claim struct {
+	ID   string
+	Text string // the author's sentence, or empty
+	Kind Kind
+	Unit string
+	// Method is the method the claim is about (zero: the scenario's own);
+	// Methods the two methods of a differ or agree claim.
+	Method  engine.Method
+	Methods [2]engine.Method
+	// House is the house size the claim is about (zero: the scenario's).
+	House int
+	// Seats is the seat count of a seats claim.
+	Seats int
+	// Below is the bound of a margin claim.
+	Below engine.Decimal
+	// Line is where the claim starts in its file.
+	Line int
+}
+
+var members = []string{"id", "text", "kind", "unit", "method", "methods", "house", "seats", "below"}
+
+// needs lists the members each kind requires beyond id, kind and unit.
+var needs = map[Kind][]string{
+	Seats: {"seats"}, Differ: {"methods"}, Agree: {"methods"},
+	GainBelow: {"below"}, LoseBelow: {"below"},
+}
+
+// Parse reads a claims array. Errors are *input.Error values with the line
+// and field at fault (the file is left for the caller to fill in).
+func Parse(v *jsondoc.Value) ([]Claim, error) {
+	if v.IsNull() {
+		return nil, nil
+	}
+	if v.Kind != jsondoc.Array {
+		return nil, &input.Error{Line: v.Line, Field: "claims", Msg: "must be an array of claims"}
+	}
+	var out []Claim
+	seen := map[string]bool{}
+	for i, x := range v.Items {
+		c, err := parseOne(x)
+		if err != nil {
+			err.Field = "claims[" + strconv.Itoa(i) + "]" + dotted(err.Field)
+			if err.Line == 0 {
+				err.Line = x.Line
+			}
+			return nil, err
+		}
+		if seen[c.ID] {
+			return nil, &input.Error{Line: x.Line, Field: "claims[" + strconv.Itoa(i) + "].id", Msg: strconv.Quote(c.ID) + " is used by another claim"}
+		}
+		seen[c.ID] = true
+		out = append(out, c)
+	}
+	return out, nil
+}
+
+func dotted(f string) string {
+	if f == "" {
+		return ""
+	}
+	return "." + f
+}
+
+func parseOne(x *jsondoc.Value) (Claim, *input.Error) {
+	c := Claim{Line: x.Line}
+	if x.Kind != jsondoc.Object {
+		return c, &input.Error{Msg: "a claim is an object with id, kind and unit"}
+	}
+	for _, f := range x.Fields {
+		if !contains(members, f.Key) {
+			return c, &input.Error{Line: f.Value.Line, Field: f.Key, Msg: "unknown member; a claim has " + strings.Join(members, ", ")}
+		}
+	}
+	str := func(key string, required bool) (string, *input.Error) {
+		v := x.Get(key)
+		if v.IsNull() {
+			if required {
+				return "", &input.Error{Field: key, Msg: "missing"}
+			}
+			return "", nil
+		}
+		if v.Kind != jsondoc.String || strings.TrimSpace(v.Text) == "" {
+			return "", &input.Error{Line: v.Line, Field: key, Msg: "must be a non-empty string"}
+		}
+		return strings.TrimSpace(v.Text), nil
+	}
+	var err *input.Error
+	if c.ID, err = str("id", true); err != nil {
+		return c, err
+	}
+	if c.Text, err = str("text", false); err != nil {
+		return c, err
+	}
+	k, err := str("kind", true)
+	if err != nil {
+		return c, err
+	}
+	for kk := Seats; kk <= Included; kk++ {
+		if kindIDs[kk] == k {
+			c.Kind = kk
+		}
+	}
+	if c.Kind == 0 {
+		return c, &input.Error{Line: x.Get("kind").Line, Field: "kind", Msg: "unknown kind " + strconv.Quote(k) + "; known: " + strings.Join(Kinds(), ", ")}
+	}
+	if c.Unit, err = str("unit", true); err != nil {
+		return c, err
+	}
+	for _, need := range needs[c.Kind] {
+		if x.Get(need).IsNull() {
+			return c, &input.Error{Field: need, Msg: "missing: a " + k + " claim needs " + need}
+		}
+	}
+	for _, f := range x.Fields {
+		switch f.Key {
+		case "method":
+			m, e := method(f.Value)
+			if e != nil {
+				return c, e
+			}
+			c.Method = m
+		case "methods":
+			if c.Kind != Differ && c.Kind != Agree {
+				return c, &input.Error{Line: f.Value.Line, Field: "methods", Msg: "only differ and agree claims name two methods"}
+			}
+			if f.Value.Kind != jsondoc.Array || len(f.Value.Items) != 2 {
+				return c, &input.Error{Line: f.Value.Line, Field: "methods", Msg: "must be an array of two method ids"}
+			}
+			for j, mv := range f.Value.Items {
+				m, e := method(mv)
+				if e != nil {
+					e.Field = "methods[" + strconv.Itoa(j) + "]"
+					return c, e
+				}
+				c.Methods[j] = m
+			}
+		case "house", "seats":
+			n, e := whole(f.Value, f.Key)
+			if e != nil {
+				return c, e
+			}
+			if f.Key == "house" {
+				if n < 1 || n > engine.MaxSeats {
+					return c, &input.Error{Line: f.Value.Line, Field: "house", Msg: "must be a house size of at least 1"}
+				}
+				c.House = n
+			} else {
+				if c.Kind != Seats {
+					return c, &input.Error{Line: f.Value.Line, Field: "seats", Msg: "only a seats claim has seats"}
+				}
+				c.Seats = n
+			}
+		case "below":
+			if c.Kind != GainBelow && c.Kind != LoseBelow {
+				return c, &input.Error{Line: f.Value.Line, Field: "below", Msg: "only gain-below and lose-below claims have below"}
+			}
+			if f.Value.Kind != jsondoc.Number && f.Value.Kind != jsondoc.String {
+				return c, &input.Error{Line: f.Value.Line, Field: "below", Msg: "must be a population (a number)"}
+			}
+			d, e := engine.ParseDecimal(f.Value.Text)
+			if e != nil {
+				return c, &input.Error{Line: f.Value.Line, Field: "below", Msg: strconv.Quote(f.Value.Text) + " is not a population"}
+			}
+			c.Below = d
+		}
+	}
+	return c, nil
+}
+
+func method(v *jsondoc.Value) (engine.Method, *input.Error) {
+	if v.Kind != jsondoc.String {
+		return 0, &input.Error{Line: v.Line, Field: "method", Msg: "must be a method id such as \"webster\""}
+	}
+	m, err := engine.ParseMethod(v.Text)
+	if err != nil {
+		return 0, &input.Error{Line: v.Line, Field: "method", Msg: "unknown method " + strconv.Quote(v.Text) + "; known: " + strings.Join(engine.MethodIDs(), ", ")}
+	}
+	return m, nil
+}
+
+func whole(v *jsondoc.Value, key string) (int, *input.Error) {
+	if v.Kind == jsondoc.Number {
+		if n, err := strconv.Atoi(v.Text); err == nil && n >= 0 {
+			return n, nil
+		}
+	}
+	return 0, &input.Error{Line: v.Line, Field: key, Msg: "must be a whole number"}
+}
+
+func contains(list []string, s string) bool {
+	for _, x := range list {
+		if x == s {
+			return true
+		}
+	}
+	return false
+}

@@ -1,0 +1,33 @@
+// Package claim states and checks claims about apportionments: sentences
+// an author writes beside a calculator ("Orlen gets 12 seats under
+// Huntington–Hill", "Hamilton and Webster treat Sarrow differently") in a
+// form the engine can verify.
+//
+// The same code runs when a site is built, where a claim that does not hold
+// is an error, and in the browser, where each claim shows whether it still
+// holds after the reader changes the numbers.
+//
+// # Claims in a scenario block
+//
+// A claim is a JSON object:
+//
+//	{"id": "orlen-hh", "kind": "seats", "unit": "Orlen", "seats": 12,
+//	 "method": "huntington-hill", "house": 40,
+//	 "text": "Under Huntington–Hill, Orlen gets 12 of the 40 seats."}
+//
+// id (required) names the claim; text is the sentence shown to readers
+// (when absent, the claim is shown in a standard wording). method and house
+// default to the scenario's own. The kinds are:
+//
+//	seats          unit gets exactly seats seats
+//	differ         methods [A, B] give unit different seats
+//	agree          methods [A, B] give unit the same seats
+//	breaks-quota   unit gets less than its lower or more than its upper quota
+//	meets-quota    unit gets its lower or its upper quota
+//	gain-below     unit's gain margin is below below (a population)
+//	lose-below     unit's lose margin is below below
+//	alabama        unit gets fewer seats at house+1 than at house (the
+//	               Alabama paradox)
+//	excluded       unit falls below the threshold
+//	included       unit clears the threshold
+package claim

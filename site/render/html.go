@@ -1,0 +1,108 @@
+package render
+
+import "strings"
+
+// voidElements have no end tag in HTML.
+var voidElements = map[string]bool{
+	"area": true, "br": true, "col": true, "hr": true, "img": true,
+	"input": true, "link": true, "meta": true, "source": true, "wbr": true,
+}
+
+// svgElements are written in SVG's foreign-content form (self-closing when
+// empty).
+var svgElements = map[string]bool{
+	"svg": true, "g": true, "rect": true, "line": true, "text": true,
+	"title": true, "desc": true, "path": true, "circle": true, "tspan": true,
+}
+
+// Allowed reports whether tag is one of the elements this package writes.
+// The browser side refuses any other tag.
+func Allowed(tag string) bool { return allowed[tag] }
+
+var allowed = map[string]bool{}
+
+func init() {
+	for _, t := range strings.Fields(`a abbr button caption code col colgroup dd details div dl dt em fieldset
+		figcaption figure form h2 h3 h4 input label legend li ol optgroup option output p section select
+		small span strong summary table tbody td textarea tfoot th thead tr ul br hr mark b i sup sub
+		svg g rect line text title desc path circle tspan`) {
+		allowed[t] = true
+	}
+}
+
+// HTML returns n written as HTML. Text and attribute values are escaped.
+func HTML(n *Node) string {
+	var b strings.Builder
+	WriteHTML(&b, n)
+	return b.String()
+}
+
+// WriteHTML writes n as HTML to b.
+func WriteHTML(b *strings.Builder, n *Node) {
+	writeNode(b, n, false)
+}
+
+func writeNode(b *strings.Builder, n *Node, inSVG bool) {
+	if n.Tag == "" {
+		escapeText(b, n.Text)
+		return
+	}
+	svg := inSVG || n.Tag == "svg"
+	b.WriteByte('<')
+	b.WriteString(n.Tag)
+	for _, a := range n.Attrs {
+		b.WriteByte(' ')
+		b.WriteString(a.Key)
+		b.WriteString(`="`)
+		escapeAttr(b, a.Val)
+		b.WriteByte('"')
+	}
+	if svg && len(n.Kids) == 0 {
+		b.WriteString("/>")
+		return
+	}
+	b.WriteByte('>')
+	if !svg && voidElements[n.Tag] {
+		return
+	}
+	for _, k := range n.Kids {
+		writeNode(b, k, svg)
+	}
+	b.WriteString("</")
+	b.WriteString(n.Tag)
+	b.WriteByte('>')
+}
+
+func escapeText(b *strings.Builder, s string) {
+	for i := 0; i < len(s); i++ {
+		switch c := s[i]; c {
+		case '&':
+			b.WriteString("&amp;")
+		case '<':
+			b.WriteString("&lt;")
+		case '>':
+			b.WriteString("&gt;")
+		default:
+			b.WriteByte(c)
+		}
+	}
+}
+
+func escapeAttr(b *strings.Builder, s string) {
+	for i := 0; i < len(s); i++ {
+		switch c := s[i]; c {
+		case '&':
+			b.WriteString("&amp;")
+		case '<':
+			b.WriteString("&lt;")
+		case '>':
+			b.WriteString("&gt;")
+		case '"':
+			b.WriteString("&#34;")
+		case '\'':
+			b.WriteString("&#39;")
+		default:
+			b.WriteByte(c)
+		}
+	}
+}

@@ -1,0 +1,102 @@
+package render
+
+// A Node is an element or a run of text.
+type Node struct {
+	// Tag is the element's tag name; empty for a text node.
+	Tag string
+	// Text is the content of a text node.
+	Text  string
+	Attrs []Attr
+	Kids  []*Node
+}
+
+// An Attr is one attribute of an element.
+type Attr struct {
+	Key, Val string
+}
+
+// El returns an element with the given tag and attributes, given as
+// alternating keys and values. A key without a value gets the empty value.
+func El(tag string, kv ...string) *Node {
+	n := &Node{Tag: tag}
+	for i := 0; i < len(kv); i += 2 {
+		v := ""
+		if i+1 < len(kv) {
+			v = kv[i+1]
+		}
+		n.Attrs = append(n.Attrs, Attr{kv[i], v})
+	}
+	return n
+}
+
+// Text returns a text node.
+func Text(s string) *Node { return &Node{Text: s} }
+
+// Add appends children and returns n. Nil children are skipped.
+func (n *Node) Add(kids ...*Node) *Node {
+	for _, k := range kids {
+		if k != nil {
+			n.Kids = append(n.Kids, k)
+		}
+	}
+	return n
+}
+
+// AddText appends a text child and returns n.
+func (n *Node) AddText(s string) *Node { return n.Add(Text(s)) }
+
+// Set adds or replaces an attribute and returns n.
+func (n *Node) Set(key, val string) *Node {
+	for i := range n.Attrs {
+		if n.Attrs[i].Key == key {
+			n.Attrs[i].Val = val
+			return n
+		}
+	}
+	n.Attrs = append(n.Attrs, Attr{key, val})
+	return n
+}
+
+// SetIf adds the attribute when cond is true, and returns n.
+func (n *Node) SetIf(cond bool, key, val string) *Node {
+	if cond {
+		n.Set(key, val)
+	}
+	return n
+}
+
+// Attr returns the value of an attribute and whether it is set.
+func (n *Node) Attr(key string) (string, bool) {
+	for _, a := range n.Attrs {
+		if a.Key == key {
+			return a.Val, true
+		}
+	}
+	return "", false
+}
+
+// Wrap returns an element holding the text s.
+func Wrap(tag, s string, kv ...string) *Node { return El(tag, kv...).AddText(s) }
+
+// Walk calls f for n and every node below it, depth first.
+func (n *Node) Walk(f func(*Node)) {
+	f(n)
+	for _, k := range n.Kids {
+		k.Walk(f)
+	}
+}
+
+// TextContent returns the concatenated text below n, as the DOM's
+// textContent would.
+func (n *Node) TextContent() string {
+	if n.Tag == "" {
+		return n.Text
+	}
+	var b []byte
+	n.Walk(func(x *Node) {
+		if x.Tag == "" {
+			b = append(b, x.Text...)
+		}
+	})
+	return string(b)
+}

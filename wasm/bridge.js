@@ -1,0 +1,509 @@
+// seatsmith bridge: makes the calculator blocks of a page live.
+//
+// A page adds one module script and, for each calculator, a block holding
+// its scenario as JSON:
+//
+//   <script type="module" src="/seatsmith/bridge.js"></script>
+//   <div class="seatsmith" id="assembly" data-seatsmith="compact">
+//     <script type="application/json">{"seats": 40, "method": "webster", "units": [...]}</script>
+//   </div>
+//
+// The bridge loads Go's wasm_exec.js and the seatsmith engine (from the
+// same folder as this file unless <meta name="seatsmith-engine"> and
+// <meta name="seatsmith-runtime"> name other URLs, or from an inlined
+// <script type="application/octet-stream" data-seatsmith-engine> block in a
+// self-contained page), then renders each calculator with the engine's
+// `calculator` function. The engine returns markup as a tree of tags, text
+// and attributes; the bridge builds DOM nodes from it and never parses
+// HTML, so names and other text from the user always show as text.
+//
+// Each calculator root carries data-state: "static" (rendered ahead of
+// time), "live" (the engine has run here) or "error" (with the message
+// shown). The edited scenario is kept in the URL fragment as
+// #ID=BASE64URL(JSON), so a link reproduces the same view.
+
+const ROOT = '[data-seatsmith]';
+const SVG_NS = 'http://www.w3.org/2000/svg';
+const TAGS = new Set(('a abbr button caption code col colgroup dd details div dl dt em fieldset ' +
+  'figcaption figure form h2 h3 h4 input label legend li ol optgroup option output p section select ' +
+  'small span strong summary table tbody td textarea tfoot th thead tr ul br hr mark b i sup sub ' +
+  'svg g rect line text title desc path circle tspan').split(' '));
+const URL_ATTRS = new Set(['href', 'src', 'action', 'formaction', 'xlink:href', 'srcdoc', 'style']);
+
+const here = import.meta.url;
+
+function metaURL(name, file) {
+  const m = document.querySelector('meta[name="' + name + '"]');
+  return new URL(m && m.content ? m.content : file, m && m.content ? document.baseURI : here).href;
+}
+
+// build turns a render tree into DOM nodes. Unknown tags, event-handler
+// attributes and URL-bearing attributes are refused.
+export function build(t, inSvg = false) {
+  if (typeof t === 'string') return document.createTextNode(t);
+  if (!Array.isArray(t) || typeof t[0] !== 'string' || !TAGS.has(t[0])) {
+    throw new Error('the engine returned markup this page does not accept');
+  }
+  const svg = inSvg || t[0] === 'svg';
+  const el = svg ? document.createElementNS(SVG_NS, t[0]) : document.createElement(t[0]);
+  const attrs = t[1] || {};
+  for (const k of Object.keys(attrs)) {
+    if (/^on/i.test(k) || URL_ATTRS.has(k.toLowerCase()) || !/^[a-zA-Z][a-zA-Z0-9:._-]*$/.test(k)) continue;
+    el.setAttribute(k, String(attrs[k]));
+  }
+  for (let i = 2; i < t.length; i++) el.appendChild(build(t[i], svg));
+  return el;
+}
+
+function loadScript(src) {
+  return new Promise((resolve, reject) => {
+    const s = document.createElement('script');
+    s.src = src;
+    s.onload = () => resolve();
+    s.onerror = () => reject(new Error('could not load ' + src));
+    document.head.appendChild(s);
+  });
+}
+
+function base64Bytes(text) {
+  const bin = atob(text.replace(/\s+/g, ''));
+  const out = new Uint8Array(bin.length);
+  for (let i = 0; i < bin.length; i++) out[i] = bin.charCodeAt(i);
+  return out;
+}
+
+async function instantiate(go) {
+  const inline = document.querySelector('script[type="application/octet-stream"][data-seatsmith-engine]');
+  if (inline) {
+    return (await WebAssembly.instantiate(base64Bytes(inline.textContent), go.importObject)).instance;
+  }
+  const url = metaURL('seatsmith-engine', 'seatsmith.wasm');
+  if (WebAssembly.instantiateStreaming && /^https?:/.test(url)) {
+    try {
+      return (await WebAssembly.instantiateStreaming(fetch(url), go.importObject)).instance;
+    } catch (e) {
+      // A server that sends the wrong MIME type: fall back to a buffer.
+    }
+  }
+  const resp = await fetch(url);
+  if (!resp.ok) throw new Error('could not load the engine (' + resp.status + ')');
+  return (await WebAssembly.instantiate(await resp.arrayBuffer(), go.importObject)).instance;
+}
+
+let enginePromise = null;
+
+// engine loads the seatsmith engine once and resolves to its API object.
+export function engine() {
+  if (!enginePromise) {
+    enginePromise = (async () => {
+      if (!globalThis.Go) await loadScript(metaURL('seatsmith-runtime', 'wasm_exec.js'));
+      const go = new globalThis.Go();
+      const instance = await instantiate(go);
+      go.run(instance).catch(() => {});
+      for (let i = 0; i < 200 && !(globalThis.seatsmith && globalThis.seatsmith.calculator); i++) {
+        await new Promise((r) => setTimeout(r, 10));
+      }
+      const api = globalThis.seatsmith;
+      if (!api || typeof api.calculator !== 'function') throw new Error('the engine started but offers no calculator');
+      return api;
+    })();
+  }
+  return enginePromise;
+}
+
+// Fragment: "#id=payload&id2=payload2"; other fragments are left alone.
+function fragmentParts() {
+  const h = location.hash.replace(/^#/, '');
+  const parts = new Map();
+  if (!h) return parts;
+  for (const p of h.split('&')) {
+    const i = p.indexOf('=');
+    if (i > 0) parts.set(decodeURIComponent(p.slice(0, i)), p.slice(i + 1));
+  }
+  return parts;
+}
+
+function encodeScenario(obj) {
+  const bytes = new TextEncoder().encode(JSON.stringify(obj));
+  let bin = '';
+  for (let i = 0; i < bytes.length; i += 0x8000) bin += String.fromCharCode.apply(null, bytes.subarray(i, i + 0x8000));
+  return btoa(bin).replace(/\+/g, '-').replace(/\//g, '_').replace(/=+$/, '');
+}
+
+function decodeScenario(s) {
+  if (!/^[A-Za-z0-9_-]*$/.test(s)) throw new Error('the link holds characters that are not part of a scenario');
+  let b = s.replace(/-/g, '+').replace(/_/g, '/');
+  while (b.length % 4) b += '=';
+  let bytes;
+  try {
+    bytes = base64Bytes(b);
+  } catch (e) {
+    throw new Error('the link is damaged (not valid base64)');
+  }
+  let text;
+  try {
+    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+  } catch (e) {
+    throw new Error('the link is damaged (not valid text)');
+  }
+  let v;
+  try {
+    v = JSON.parse(text);
+  } catch (e) {
+    throw new Error('the link is damaged (not valid JSON)');
+  }
+  if (!v || typeof v !== 'object' || Array.isArray(v)) throw new Error('the link does not hold a scenario');
+  return v;
+}
+
+function download(name, type, text) {
+  const url = URL.createObjectURL(new Blob([text], { type }));
+  const a = document.createElement('a');
+  a.href = url;
+  a.download = name;
+  document.body.appendChild(a);
+  a.click();
+  a.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 1000);
+}
+
+let counter = 0;
+
+class Calculator {
+  constructor(root, api) {
+    this.root = root;
+    this.api = api;
+    if (!root.id) root.id = 'calculator-' + ++counter;
+    this.id = root.id;
+    this.mode = root.getAttribute('data-seatsmith') === 'full' ? 'full' : 'compact';
+    const data = root.querySelector('script[type="application/json"]');
+    this.blockText = data ? data.textContent : '';
+    this.scenario = null;
+    this.timer = 0;
+  }
+
+  call(extra) {
+    const req = Object.assign({ block_text: this.blockText, id: this.id, mode: this.mode, scenario: this.scenario }, extra);
+    let r;
+    try {
+      r = this.api.calculator(req);
+    } catch (e) {
+      r = { error: { message: String(e && e.message ? e.message : e) } };
+    }
+    if (!r || typeof r !== 'object') r = { error: { message: 'the engine gave no answer' } };
+    if (!r.state) r.state = 'error';
+    return r;
+  }
+
+  start() {
+    let linked = null;
+    let linkError = '';
+    const frag = fragmentParts();
+    if (frag.has(this.id)) {
+      try {
+        linked = decodeScenario(frag.get(this.id));
+      } catch (e) {
+        linkError = e.message;
+      }
+    }
+    this.scenario = linked;
+    const r = this.call({ editor: true });
+    if (r.fatal) {
+      this.fail(r.error.message);
+      return;
+    }
+    this.apply(r, true);
+    if (linkError) {
+      this.notice('The numbers in this link could not be read: ' + linkError + '. Showing the page\u2019s own numbers.', true);
+    }
+    this.wire();
+  }
+
+  fail(message) {
+    this.root.setAttribute('data-state', 'error');
+    let box = this.root.querySelector('[data-role="engine-error"]');
+    if (!box) {
+      box = document.createElement('p');
+      box.className = 'sc-error';
+      box.setAttribute('role', 'alert');
+      box.setAttribute('data-role', 'engine-error');
+      this.root.insertBefore(box, this.root.firstChild);
+    }
+    box.textContent = 'The live calculator could not start: ' + message +
+      (this.root.querySelector('[data-part="output"]') ? ' The numbers shown were computed when the page was built.' : '');
+  }
+
+  replacePart(name, tree) {
+    const el = build(tree);
+    const old = this.root.querySelector('[data-part="' + name + '"]');
+    if (old) old.replaceWith(el);
+    else if (name === 'editor') this.root.appendChild(el);
+    else this.root.appendChild(el);
+    return el;
+  }
+
+  apply(r, withEditor) {
+    if (r.scenario) this.scenario = r.scenario;
+    if (withEditor && r.editor) this.replacePart('editor', r.editor);
+    if (r.output) this.replacePart('output', r.output);
+    const err = this.root.querySelector('[data-role="engine-error"]');
+    if (err) err.remove();
+    this.root.setAttribute('data-state', r.state === 'live' ? 'live' : 'error');
+    for (const el of this.root.querySelectorAll('[aria-invalid]')) {
+      el.removeAttribute('aria-invalid');
+      el.removeAttribute('aria-errormessage');
+    }
+    if (r.error && r.error.field) {
+      const el = this.root.querySelector('[data-part="editor"] [data-field="' + CSS.escape(r.error.field) + '"]');
+      if (el) {
+        el.setAttribute('aria-invalid', 'true');
+        el.setAttribute('aria-errormessage', this.id + '-error');
+      }
+    }
+    for (const c of r.claims || []) {
+      for (const ref of document.querySelectorAll('[data-claim-ref="' + CSS.escape(c.id) + '"]')) {
+        ref.setAttribute('data-holds', c.holds ? 'true' : 'false');
+        ref.setAttribute('title', (c.holds ? 'Holds. ' : 'Does not hold with these numbers. ') + c.found + '.');
+      }
+    }
+    if (r.load_error) {
+      const where = r.load_error.line ? ' (line ' + r.load_error.line + (r.load_error.field ? ', ' + r.load_error.field : '') + ')' : '';
+      this.notice('The table could not be read' + where + ': ' + r.load_error.message, true);
+    }
+  }
+
+  notice(text, isError) {
+    const n = this.root.querySelector('[data-role="notice"]');
+    if (!n) return;
+    n.textContent = text;
+    n.classList.toggle('sc-note-error', !!isError);
+    if (isError) n.setAttribute('data-error', 'true');
+    else n.removeAttribute('data-error');
+  }
+
+  wire() {
+    const root = this.root;
+    root.addEventListener('submit', (e) => e.preventDefault());
+    root.addEventListener('input', (e) => this.onField(e, false));
+    root.addEventListener('change', (e) => this.onField(e, true));
+    root.addEventListener('click', (e) => {
+      const b = e.target.closest('button[data-action]');
+      if (b && root.contains(b)) this.onAction(b.getAttribute('data-action'), b);
+    });
+  }
+
+  onField(e, committed) {
+    const el = e.target;
+    if (el.matches('input[type="file"][data-action="load-file"]')) {
+      if (committed && el.files && el.files[0]) this.loadFile(el.files[0], el);
+      return;
+    }
+    const f = el.getAttribute && el.getAttribute('data-field');
+    if (!f || f === 'csv') return;
+    if (!this.setField(f, el.value)) return;
+    clearTimeout(this.timer);
+    if (committed || el.tagName === 'SELECT') this.refresh(false);
+    else this.timer = setTimeout(() => this.refresh(false), 150);
+  }
+
+  setField(f, value) {
+    const s = this.scenario || {};
+    const v = String(value);
+    const put = (obj, key) => {
+      if (v.trim() === '') delete obj[key];
+      else obj[key] = v;
+    };
+    const m = /^units\.(\d+)\.(name|population|min|max)$/.exec(f);
+    if (m) {
+      const u = Array.isArray(s.units) ? s.units[Number(m[1])] : null;
+      if (!u) return false;
+      if (m[2] === 'name') u.name = v;
+      else if (m[2] === 'population') u.population = v;
+      else put(u, m[2]);
+      return true;
+    }
+    switch (f) {
+      case 'seats':
+      case 'min':
+      case 'max':
+      case 'threshold':
+      case 'method':
+        put(s, f);
+        return true;
+      case 'tie-kind':
+      case 'tie-seed': {
+        const kind = this.root.querySelector('[data-field="tie-kind"]').value;
+        const seed = this.root.querySelector('[data-field="tie-seed"]').value.trim();
+        if (kind === 'order') s.tie = 'order';
+        else if (kind === 'lot') s.tie = 'lot:' + (seed || '1');
+        else delete s.tie;
+        return true;
+      }
+    }
+    return false;
+  }
+
+  refresh(withEditor, extra) {
+    const r = this.call(Object.assign({ editor: withEditor }, extra || {}));
+    if (r.fatal) {
+      this.fail(r.error.message);
+      return r;
+    }
+    const focus = document.activeElement;
+    const key = focus && this.root.contains(focus) ? focus.getAttribute('data-field') || focus.getAttribute('data-action') : null;
+    this.apply(r, withEditor);
+    if (withEditor && key) {
+      const again = this.root.querySelector('[data-field="' + CSS.escape(key) + '"], [data-action="' + CSS.escape(key) + '"]');
+      if (again) again.focus();
+    }
+    this.saveFragment();
+    return r;
+  }
+
+  saveFragment() {
+    const parts = fragmentParts();
+    parts.set(this.id, encodeScenario(this.scenario));
+    const h = [...parts].map(([k, v]) => encodeURIComponent(k) + '=' + v).join('&');
+    history.replaceState(history.state, '', '#' + h);
+  }
+
+  link() {
+    const parts = fragmentParts();
+    parts.set(this.id, encodeScenario(this.scenario));
+    const u = new URL(location.href);
+    u.hash = [...parts].map(([k, v]) => encodeURIComponent(k) + '=' + v).join('&');
+    return u.href;
+  }
+
+  onAction(action, button) {
+    const s = this.scenario;
+    switch (action) {
+      case 'add-unit': {
+        s.units = Array.isArray(s.units) ? s.units : [];
+        s.units.push({ name: 'Unit ' + (s.units.length + 1), population: '0' });
+        this.refresh(true);
+        const last = this.root.querySelector('[data-field="units.' + (s.units.length - 1) + '.name"]');
+        if (last) {
+          last.focus();
+          last.select();
+        }
+        break;
+      }
+      case 'remove-unit': {
+        const k = Number(button.getAttribute('data-index'));
+        if (Array.isArray(s.units) && s.units.length > 1) {
+          s.units.splice(k, 1);
+          this.refresh(true);
+          const next = this.root.querySelector('[data-action="remove-unit"][data-index="' + Math.min(k, s.units.length - 1) + '"]');
+          if (next) next.focus();
+          this.notice('Removed unit ' + (k + 1) + '.', false);
+        } else {
+          this.notice('A scenario needs at least one unit.', true);
+        }
+        break;
+      }
+      case 'reset': {
+        this.scenario = null;
+        this.refresh(true);
+        this.notice('Back to the page\u2019s own numbers.', false);
+        break;
+      }
+      case 'use-csv': {
+        const ta = this.root.querySelector('[data-field="csv"]');
+        const text = ta ? ta.value : '';
+        if (!text.trim()) {
+          this.notice('Paste a CSV table first: a header row (name,population) and one row a unit.', true);
+          break;
+        }
+        const r = this.refresh(true, { load: { name: 'pasted table', text } });
+        if (!r.load_error) this.notice('Loaded ' + (this.scenario.units || []).length + ' units from the table.', false);
+        break;
+      }
+      case 'export-csv':
+      case 'export-json': {
+        const r = this.call({ export: true });
+        if (r.state !== 'live' || !r.csv) {
+          this.notice('Fix the numbers first: there are no results to export.', true);
+          break;
+        }
+        if (action === 'export-csv') download(this.id + '-results.csv', 'text/csv;charset=utf-8', r.csv);
+        else download(this.id + '-scenario.json', 'application/json', r.json);
+        this.notice('Downloaded.', false);
+        break;
+      }
+      case 'copy-link': {
+        const href = this.link();
+        this.saveFragment();
+        const shown = () => this.notice('Link to these numbers: ' + href, false);
+        if (navigator.clipboard && window.isSecureContext) {
+          navigator.clipboard.writeText(href).then(() => this.notice('Link copied. It holds these numbers: anyone who opens it sees the same view.', false), shown);
+        } else shown();
+        break;
+      }
+    }
+  }
+
+  loadFile(file, input) {
+    if (file.size > 20 * 1024 * 1024) {
+      this.notice('That file is larger than 20 MB.', true);
+      return;
+    }
+    file.text().then((text) => {
+      const r = this.refresh(true, { load: { name: file.name, text } });
+      if (!r.load_error) this.notice('Loaded ' + file.name + '.', false);
+    }, () => this.notice('The file could not be read.', true));
+    input.value = '';
+  }
+
+  reloadFromFragment() {
+    const frag = fragmentParts();
+    if (!frag.has(this.id)) return;
+    try {
+      const v = decodeScenario(frag.get(this.id));
+      if (JSON.stringify(v) === JSON.stringify(this.scenario)) return;
+      this.scenario = v;
+      this.refresh(true);
+    } catch (e) {
+      this.notice('The numbers in this link could not be read: ' + e.message + '.', true);
+    }
+  }
+}
+
+function ensureStyles(root) {
+  if (getComputedStyle(root).getPropertyValue('--seatsmith-styled').trim()) return;
+  if (document.querySelector('link[data-seatsmith-style]')) return;
+  const l = document.createElement('link');
+  l.rel = 'stylesheet';
+  l.href = metaURL('seatsmith-style', 'seatsmith.css');
+  l.setAttribute('data-seatsmith-style', '');
+  document.head.appendChild(l);
+}
+
+// start makes every calculator on the page live.
+export async function start() {
+  const roots = [...document.querySelectorAll(ROOT)];
+  if (!roots.length) return [];
+  ensureStyles(roots[0]);
+  let api;
+  try {
+    api = await engine();
+  } catch (e) {
+    for (const root of roots) new Calculator(root, null).fail(e.message || String(e));
+    return [];
+  }
+  const calcs = [];
+  for (const root of roots) {
+    const c = new Calculator(root, api);
+    try {
+      c.start();
+    } catch (e) {
+      c.fail(e.message || String(e));
+    }
+    calcs.push(c);
+  }
+  window.addEventListener('hashchange', () => calcs.forEach((c) => c.reloadFromFragment()));
+  return calcs;
+}
+
+if (document.readyState === 'loading') document.addEventListener('DOMContentLoaded', () => start());
+else start();
