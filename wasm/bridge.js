@@ -75,7 +75,12 @@ function base64Bytes(text) {
 async function instantiate(go) {
   const inline = document.querySelector('script[type="application/octet-stream"][data-seatsmith-engine]');
   if (inline) {
-    return (await WebAssembly.instantiate(base64Bytes(inline.textContent), go.importObject)).instance;
+    let bytes = base64Bytes(inline.textContent);
+    if (inline.getAttribute('data-encoding') === 'gzip') {
+      const stream = new Blob([bytes]).stream().pipeThrough(new DecompressionStream('gzip'));
+      bytes = await new Response(stream).arrayBuffer();
+    }
+    return (await WebAssembly.instantiate(bytes, go.importObject)).instance;
   }
   const url = metaURL('seatsmith-engine', 'seatsmith.wasm');
   if (WebAssembly.instantiateStreaming && /^https?:/.test(url)) {

@@ -73,7 +73,11 @@ func chart(r *engine.Result) *Node {
 			qx := f1(x(u.Quota.Approx))
 			g.Add(El("line", "x1", qx, "x2", qx, "y1", f1(y-4), "y2", f1(y+barH+4), "class", "sc-quota-mark"))
 		}
-		g.Add(Wrap("text", strconv.Itoa(u.Seats), "x", f1(x(float64(u.Seats))+6), "y", f1(y+barH-2), "class", "sc-value"))
+		vx := x(float64(u.Seats))
+		if !u.Excluded {
+			vx = math.Max(vx, math.Max(x(float64(u.Upper)), x(u.Quota.Approx)+2))
+		}
+		g.Add(Wrap("text", strconv.Itoa(u.Seats), "x", f1(vx+6), "y", f1(y+barH-2), "class", "sc-value"))
 		svg.Add(g)
 	}
 	fig.Add(svg)

@@ -230,4 +230,3 @@ func Export(o *Outcome) (csv, js string) {
 	v.Set("claims", cl)
 	return b.String(), string(jsondoc.MarshalIndent(v, "  "))
 }
-

@@ -301,7 +301,6 @@ func explanation(o *Outcome) *Node {
 	return sec
 }
 
-
 func signpostText(m engine.Method) string {
 	switch m {
 	case engine.Jefferson:
