@@ -1,0 +1,399 @@
+package analysis
+
+import (
+	"errors"
+	"math/big"
+	"strconv"
+	"strings"
+
+	"seatsmith/engine"
+)
+
+// A SeatChange is one unit's seats before and after a change.
+type SeatChange struct {
+	Unit          int // index in the scenario the change starts from
+	Name          string
+	Before, After int
+}
+
+func changeText(cs []SeatChange) string {
+	parts := make([]string, len(cs))
+	for k, c := range cs {
+		parts[k] = c.Name + " (" + itoa(c.Before) + " → " + itoa(c.After) + ")"
+	}
+	return strings.Join(parts, ", ")
+}
+
+// An Alabama finding is one occurrence of the Alabama paradox: a unit holds
+// fewer seats at house size To = From+1 than at From, although its quota
+// p·H/P rises with the house size.
+type Alabama struct {
+	Method        engine.Method
+	Unit          int
+	Name          string
+	From, To      int // the house sizes
+	Before, After int // the unit's seats at From and at To
+	// QuotaBefore and QuotaAfter are the unit's exact standard quotas at
+	// From and To.
+	QuotaBefore, QuotaAfter *big.Rat
+	// Gainers are the units with more seats at To than at From.
+	Gainers []SeatChange
+	// Tied is set when the unit is in a tie at either size, so that one
+	// of the two seat counts is its outright seats (or the tie rule's
+	// draw) rather than a settled result.
+	Tied bool
+}
+
+// Text says what happened, in numbers.
+func (f *Alabama) Text() string {
+	s := f.Method.Name() + ": " + f.Name + " has " + plural(f.Before, "seat") + " in a house of " + itoa(f.From) +
+		" but " + itoa(f.After) + " in a house of " + itoa(f.To) + ", although its quota rises from " +
+		Decimal(f.QuotaBefore) + " to " + Decimal(f.QuotaAfter)
+	if len(f.Gainers) > 0 {
+		s += "; gaining: " + changeText(f.Gainers)
+	}
+	if f.Tied {
+		s += " (a tie is involved: see the ties at these sizes)"
+	}
+	return s + "."
+}
+
+func tiedAt(z *engine.SweepSize, i int) bool {
+	for _, t := range z.Ties {
+		for _, u := range t.Units {
+			if u == i {
+				return true
+			}
+		}
+	}
+	return false
+}
+
+// FindAlabama lists every Alabama paradox in a sweep: each unit and pair of
+// neighbouring house sizes where the unit's seats fall as the house grows.
+// Sizes the sweep could not apportion are skipped. Divisor methods never
+// show one, except by a tie rule that draws lots afresh at every size.
+func FindAlabama(sw *engine.SweepResult) []Alabama {
+	var out []Alabama
+	total := totalOf(sw.Populations, sw.Excluded)
+	for k := 1; k < len(sw.Sizes); k++ {
+		prev, cur := &sw.Sizes[k-1], &sw.Sizes[k]
+		if prev.Err != nil || cur.Err != nil {
+			continue
+		}
+		var gainers []SeatChange
+		for i := range cur.Seats {
+			if cur.Seats[i] > prev.Seats[i] {
+				gainers = append(gainers, SeatChange{i, sw.Names[i], prev.Seats[i], cur.Seats[i]})
+			}
+		}
+		for i := range cur.Seats {
+			if cur.Seats[i] >= prev.Seats[i] {
+				continue
+			}
+			out = append(out, Alabama{
+				Method: sw.Method, Unit: i, Name: sw.Names[i], From: prev.House, To: cur.House,
+				Before: prev.Seats[i], After: cur.Seats[i],
+				QuotaBefore: quotaOf(sw.Populations[i], total, prev.House, sw.Excluded[i]),
+				QuotaAfter:  quotaOf(sw.Populations[i], total, cur.House, sw.Excluded[i]),
+				Gainers:     gainers,
+				Tied:        tiedAt(prev, i) || tiedAt(cur, i),
+			})
+		}
+	}
+	return out
+}
+
+// A QuotaViolation is a unit whose seats lie outside its lower and upper
+// quota.
+type QuotaViolation struct {
+	Method engine.Method
+	House  int
+	Unit   int
+	Name   string
+	Seats  int
+	Quota  *big.Rat
+	// Lower and Upper are floor and ceiling of Quota.
+	Lower, Upper int
+	// Bounds is set when minimums or maximums bind at this house size:
+	// some unit sits at its minimum above its quota, or at its maximum
+	// below it, so the bounds and not the method alone may cause the
+	// violation.
+	Bounds bool
+}
+
+// Above reports whether the seats exceed the upper quota (otherwise they
+// fall below the lower quota).
+func (v *QuotaViolation) Above() bool { return v.Seats > v.Upper }
+
+// Text says what happened, in numbers.
+func (v *QuotaViolation) Text() string {
+	s := v.Method.Name() + ", house of " + itoa(v.House) + ": " + v.Name + " gets " + plural(v.Seats, "seat") + ", "
+	if v.Above() {
+		s += "above its upper quota " + itoa(v.Upper)
+	} else {
+		s += "below its lower quota " + itoa(v.Lower)
+	}
+	s += " (quota " + Decimal(v.Quota) + ")"
+	if v.Bounds {
+		s += "; minimums or maximums bind at this size"
+	}
+	return s + "."
+}
+
+// FindQuotaViolations lists every unit at every size of a sweep whose seats
+// break quota. Jefferson can exceed the upper quota of large units and
+// Adams fall below the lower quota of large units; Webster, Dean and
+// Huntington–Hill can break it either way; Hamilton never does without
+// bounds. s is the swept scenario: its units' minimums and maximums tell
+// at which sizes the bounds bind.
+func FindQuotaViolations(sw *engine.SweepResult, s *engine.Scenario) []QuotaViolation {
+	var out []QuotaViolation
+	total := totalOf(sw.Populations, sw.Excluded)
+	lo, hi := unitBounds(s)
+	for k := range sw.Sizes {
+		z := &sw.Sizes[k]
+		if z.Err != nil {
+			continue
+		}
+		qs := make([]*big.Rat, len(z.Seats))
+		bind := false
+		for i, a := range z.Seats {
+			qs[i] = quotaOf(sw.Populations[i], total, z.House, sw.Excluded[i])
+			if sw.Excluded[i] {
+				continue
+			}
+			c := qs[i].Cmp(big.NewRat(int64(a), 1))
+			bind = bind || (a == lo[i] && c < 0) || (hi[i] >= 0 && a == hi[i] && c > 0)
+		}
+		for i, a := range z.Seats {
+			l, u := floorCeil(qs[i])
+			if a >= l && a <= u {
+				continue
+			}
+			out = append(out, QuotaViolation{sw.Method, z.House, i, sw.Names[i], a, qs[i], l, u, bind})
+		}
+	}
+	return out
+}
+
+// unitBounds returns each unit's minimum and maximum (-1 for none).
+func unitBounds(s *engine.Scenario) (lo, hi []int) {
+	lo, hi = make([]int, len(s.Units)), make([]int, len(s.Units))
+	for i, u := range s.Units {
+		lo[i], hi[i] = s.Min, -1
+		if s.Max > 0 {
+			hi[i] = s.Max
+		}
+		if u.Min != nil {
+			lo[i] = *u.Min
+		}
+		if u.Max != nil {
+			hi[i] = *u.Max
+		}
+	}
+	return lo, hi
+}
+
+// A Population finding is one occurrence of the population paradox between
+// two population sets at the same house size: unit Loser grew at least as
+// fast as unit Gainer (by growth rate p'/p - 1) yet lost a seat while
+// Gainer gained one.
+type Population struct {
+	Method engine.Method
+	House  int
+	Loser  PopulationChange
+	Gainer PopulationChange
+	// Faster is set when the loser's growth rate is strictly greater;
+	// otherwise the two rates are equal.
+	Faster bool
+	// Tied is set when either unit is in a tie in either apportionment.
+	Tied bool
+}
+
+// A PopulationChange is one unit's population and seats before and after.
+type PopulationChange struct {
+	Unit          int
+	Name          string
+	From, To      engine.Decimal // populations
+	Growth        *big.Rat       // To/From - 1, exactly
+	Before, After int            // seats
+}
+
+// Text says what happened, in numbers.
+func (f *Population) Text() string {
+	how := "faster than"
+	if !f.Faster {
+		how = "at the same rate as"
+	}
+	l, g := &f.Loser, &f.Gainer
+	s := f.Method.Name() + ", house of " + itoa(f.House) + ": " + l.Name + " grew " + Percent(l.Growth) +
+		" (" + l.From.String() + " → " + l.To.String() + "), " + how + " " + g.Name + " at " + Percent(g.Growth) +
+		" (" + g.From.String() + " → " + g.To.String() + "), yet " + l.Name + " loses a seat (" + itoa(l.Before) + " → " + itoa(l.After) +
+		") while " + g.Name + " gains one (" + itoa(g.Before) + " → " + itoa(g.After) + ")"
+	if f.Tied {
+		s += " (a tie is involved)"
+	}
+	return s + "."
+}
+
+// PopulationResult is the outcome of [FindPopulation].
+type PopulationResult struct {
+	Before, After *engine.Result
+	Findings      []Population
+}
+
+// FindPopulation apportions s with its populations and again with the
+// populations of later (matched by unit name; later's other settings are
+// not used), and lists every pair of units where one grew at least as fast
+// as the other but lost a seat to it. Growth rates are compared exactly by
+// cross-multiplication. Pairs where either unit had no population before
+// are skipped: their growth rate is undefined. Divisor methods are
+// population monotone and never show the paradox; Hamilton can.
+func FindPopulation(s, later *engine.Scenario) (*PopulationResult, error) {
+	if len(later.Units) != len(s.Units) {
+		return nil, errors.New("the later population set has " + itoa(len(later.Units)) + " units, the first " + itoa(len(s.Units)))
+	}
+	byName := map[string]int{}
+	for j, u := range later.Units {
+		byName[strings.TrimSpace(u.Name)] = j
+	}
+	t := *s
+	t.Units = append([]engine.Unit(nil), s.Units...)
+	for i, u := range s.Units {
+		j, ok := byName[strings.TrimSpace(u.Name)]
+		if !ok {
+			return nil, errors.New("unit " + strconv.Quote(u.Name) + " is missing from the later population set")
+		}
+		t.Units[i].Population = later.Units[j].Population
+	}
+	before, err := engine.Allot(s, 0)
+	if err != nil {
+		return nil, err
+	}
+	after, err := engine.Allot(&t, 0)
+	if err != nil {
+		return nil, err
+	}
+	pr := &PopulationResult{Before: before, After: after}
+	n := len(s.Units)
+	for i := 0; i < n; i++ {
+		bi, ai := before.Units[i].Seats, after.Units[i].Seats
+		if ai >= bi || s.Units[i].Population.IsZero() {
+			continue
+		}
+		for j := 0; j < n; j++ {
+			bj, aj := before.Units[j].Seats, after.Units[j].Seats
+			if j == i || aj <= bj || s.Units[j].Population.IsZero() {
+				continue
+			}
+			// p'_i/p_i against p'_j/p_j.
+			c := new(big.Rat).Mul(ratOf(t.Units[i].Population), ratOf(s.Units[j].Population)).Cmp(
+				new(big.Rat).Mul(ratOf(t.Units[j].Population), ratOf(s.Units[i].Population)))
+			if c < 0 {
+				continue
+			}
+			pr.Findings = append(pr.Findings, Population{
+				Method: s.Method, House: s.Seats,
+				Loser:  popChange(i, s, &t, bi, ai),
+				Gainer: popChange(j, s, &t, bj, aj),
+				Faster: c > 0,
+				Tied:   before.Units[i].Tied || after.Units[i].Tied || before.Units[j].Tied || after.Units[j].Tied,
+			})
+		}
+	}
+	return pr, nil
+}
+
+func popChange(i int, s, t *engine.Scenario, before, after int) PopulationChange {
+	from, to := s.Units[i].Population, t.Units[i].Population
+	g := new(big.Rat).Quo(ratOf(to), ratOf(from))
+	g.Sub(g, big.NewRat(1, 1))
+	return PopulationChange{Unit: i, Name: strings.TrimSpace(s.Units[i].Name), From: from, To: to, Growth: g, Before: before, After: after}
+}
+
+// NewStates is the outcome of admitting a new unit with its fair share of
+// added seats ([FindNewStates]).
+type NewStates struct {
+	Method engine.Method
+	Name   string         // the new unit
+	People engine.Decimal // its population
+	// House and NewHouse are the house sizes before and after; Added is
+	// NewHouse - House, the seats added for the new unit.
+	House, NewHouse, Added int
+	// FairShare is the new unit's exact quota at the old standard divisor
+	// P/H: p·H/P. Added is it rounded to the nearest whole number (halves
+	// up) unless chosen by the caller.
+	FairShare *big.Rat
+	// NewSeats is what the new unit receives in the larger house.
+	NewSeats int
+	Before   *engine.Result // the old units in the old house
+	After    *engine.Result // every unit in the new house, the new one last
+	// Changes lists the old units whose seats differ: the paradox when not
+	// empty.
+	Changes []SeatChange
+}
+
+// Paradox reports whether admitting the unit changed the other units'
+// seats.
+func (r *NewStates) Paradox() bool { return len(r.Changes) > 0 }
+
+// Text says what happened, in numbers.
+func (r *NewStates) Text() string {
+	s := r.Method.Name() + ": admitting " + r.Name + " (population " + r.People.String() + ", fair share " +
+		Decimal(r.FairShare) + " seats at the old standard divisor) with " + plural(r.Added, "added seat") +
+		" raises the house from " + itoa(r.House) + " to " + itoa(r.NewHouse) + "; " + r.Name + " receives " + plural(r.NewSeats, "seat")
+	if !r.Paradox() {
+		return s + ", and no other unit's seats change."
+	}
+	return s + ", and the other units' seats change: " + changeText(r.Changes) + " (the new-states paradox)."
+}
+
+// FairShare returns the whole number nearest to p·H/P (halves round up)
+// for a unit of population p joining scenario s, and the exact p·H/P.
+func FairShare(s *engine.Scenario, p engine.Decimal) (int, *big.Rat) {
+	pops := make([]engine.Decimal, len(s.Units))
+	for i, u := range s.Units {
+		pops[i] = u.Population
+	}
+	q := quotaOf(p, totalOf(pops, nil), s.Seats, false)
+	twice := new(big.Rat).Mul(q, big.NewRat(2, 1))
+	twice.Add(twice, big.NewRat(1, 1))
+	k := new(big.Int).Quo(twice.Num(), twice.Denom())
+	k.Quo(k, big.NewInt(2))
+	return int(k.Int64()), q
+}
+
+// FindNewStates apportions s, then admits unit u with added seats (its
+// fair share, see [FairShare], when added < 0) and apportions again, and
+// reports which of the old units' seats changed. The standard divisor is
+// taken over all units of s (a threshold, if any, still applies in both
+// apportionments).
+func FindNewStates(s *engine.Scenario, u engine.Unit, added int) (*NewStates, error) {
+	share, exact := FairShare(s, u.Population)
+	if added < 0 {
+		added = share
+	}
+	before, err := engine.Allot(s, 0)
+	if err != nil {
+		return nil, err
+	}
+	t := *s
+	t.Units = append(append([]engine.Unit(nil), s.Units...), u)
+	t.Seats = s.Seats + added
+	after, err := engine.Allot(&t, 0)
+	if err != nil {
+		return nil, err
+	}
+	r := &NewStates{
+		Method: s.Method, Name: strings.TrimSpace(u.Name), People: u.Population,
+		House: s.Seats, NewHouse: t.Seats, Added: added, FairShare: exact,
+		NewSeats: after.Units[len(s.Units)].Seats, Before: before, After: after,
+	}
+	for i := range s.Units {
+		if b, a := before.Units[i].Seats, after.Units[i].Seats; a != b {
+			r.Changes = append(r.Changes, SeatChange{i, before.Units[i].Name, b, a})
+		}
+	}
+	return r, nil
+}

@@ -1,0 +1,94 @@
+package main
+
+import (
+	"flag"
+	"io"
+	"strings"
+
+	"seatsmith/engine"
+	"seatsmith/engine/input"
+)
+
+// This file holds what the analysis commands (sweep, paradox, growth,
+// admit, diff, measure, house, derived, bias) share.
+
+// methodList reads -method for the analysis commands: "all" (or empty)
+// for every method, or ids and aliases separated by commas.
+func methodList(s string) ([]engine.Method, error) {
+	t := strings.TrimSpace(s)
+	if t == "" || strings.EqualFold(t, "all") {
+		return engine.Methods(), nil
+	}
+	var ms []engine.Method
+	for _, part := range strings.Split(t, ",") {
+		m, err := engine.ParseMethod(part)
+		if err != nil {
+			return nil, usageError("-method: " + errMsg(err))
+		}
+		ms = append(ms, m)
+	}
+	return ms, nil
+}
+
+const methodListHelp = "methods: all (the default), or ids separated by commas, such as webster,huntington-hill"
+
+// parseArgs parses the command line; it returns done when the command
+// should stop at once with the given status (help shown, or bad flags).
+func parseArgs(fs *flag.FlagSet, args []string) (status int, done bool) {
+	if err := fs.Parse(args); err != nil {
+		if err == flag.ErrHelp {
+			return exitOK, true
+		}
+		return exitUsage, true
+	}
+	return 0, false
+}
+
+// loadFileWith reads the scenario in file with the shared scenario options
+// that were given on the command line main, exactly as scenarioFlags.load
+// applies them; extra sets further options by name (such as "seats").
+func loadFileWith(e *env, main *flag.FlagSet, withMethod bool, file string, extra map[string]string) (*input.Source, error) {
+	fs := flag.NewFlagSet("", flag.ContinueOnError)
+	fs.SetOutput(io.Discard)
+	var sf scenarioFlags
+	sf.bind(fs, withMethod)
+	var err error
+	main.Visit(func(fl *flag.Flag) {
+		if err == nil && fs.Lookup(fl.Name) != nil {
+			err = fs.Set(fl.Name, fl.Value.String())
+		}
+	})
+	for k, v := range extra {
+		if err == nil {
+			err = fs.Set(k, v)
+		}
+	}
+	if err != nil {
+		return nil, usageError(err.Error())
+	}
+	if err := fs.Parse([]string{"--", file}); err != nil {
+		return nil, usageError(err.Error())
+	}
+	return sf.load(e, fs)
+}
+
+// given reports whether the flag was set on the command line.
+func given(fs *flag.FlagSet, name string) bool {
+	set := false
+	fs.Visit(func(fl *flag.Flag) {
+		if fl.Name == name {
+			set = true
+		}
+	})
+	return set
+}
+
+// tieNote warns on standard error when a tie left seats unassigned and
+// returns the exit status for it.
+func tieNote(e *env, cmd string, unsettled bool) int {
+	if !unsettled {
+		return exitOK
+	}
+	io.WriteString(e.stderr, "seatsmith "+cmd+": a tie left seats unassigned; settle it with -tiebreak or by the governing rule\n")
+	return exitTie
+}

@@ -1,0 +1,116 @@
+package main
+
+import (
+	"bytes"
+	"flag"
+	"os"
+	"strconv"
+	"strings"
+
+	"seatsmith/engine/input"
+	"seatsmith/engine/jsondoc"
+	"seatsmith/engine/report"
+)
+
+func init() {
+	register(&command{name: "growth", summary: "population paradox between two population sets", run: runGrowth})
+}
+
+const growthHelp = `Usage: seatsmith growth [options] BEFORE AFTER
+
+Apportions the house with the populations in BEFORE and again with those
+in AFTER (same units, matched by name; only AFTER's populations are used),
+by each method, and lists every population paradox: a pair of units where
+one grew at least as fast as the other (growth rates compared exactly) yet
+lost a seat while the other gained one. Divisor methods never show it;
+largest-remainder methods can.
+
+JSON (-format json): {version, kind: "population-paradox", caution, title,
+seats, total_before, total_after, units: [{name, before, after, growth,
+growth_exact}], results: [{method, method_name, error, seats_before: {unit:
+seats}, seats_after, paradoxes, unassigned_before, unassigned_after}],
+paradoxes: [{kind: "population", method, house, unit, loser: {unit, from,
+to, growth, growth_exact, seats_before, seats_after}, gainer: {...},
+faster, tied, text}]}.
+
+Examples:
+  seatsmith growth -seats 40 -min 1 testdata/demo/vessaria.csv later.csv
+  seatsmith growth -method hamilton -format json before.json after.csv
+
+Options:
+`
+
+func runGrowth(e *env, args []string) int {
+	fs := flag.NewFlagSet("growth", flag.ContinueOnError)
+	fs.SetOutput(e.stderr)
+	var sf scenarioFlags
+	var of outputFlags
+	sf.bind(fs, false)
+	of.bind(fs, "text", "csv", "json", "markdown")
+	method := fs.String("method", "all", methodListHelp)
+	fs.Usage = helpFunc(fs, e.stdout, growthHelp)
+	if code, done := parseArgs(fs, args); done {
+		return code
+	}
+	if err := of.check("text", "csv", "json", "markdown"); err != nil {
+		return fail(e, "growth", err)
+	}
+	ms, err := methodList(*method)
+	if err != nil {
+		return fail(e, "growth", err)
+	}
+	if fs.NArg() != 2 {
+		return fail(e, "growth", usageError("expected two files, BEFORE and AFTER, got "+strconv.Itoa(fs.NArg())))
+	}
+	src, err := loadFileWith(e, fs, false, fs.Arg(0), nil)
+	if err != nil {
+		return fail(e, "growth", err)
+	}
+	later, err := readSource(e, fs.Arg(1))
+	if err != nil {
+		return fail(e, "growth", err)
+	}
+	g, err := report.FindGrowth(src.Scenario, later.Scenario, ms)
+	if err != nil {
+		return fail(e, "growth", &input.Error{File: later.File, Msg: err.Error()})
+	}
+	if g.First() == nil {
+		return fail(e, "growth", src.Locate(g.Errors[0]))
+	}
+	var b bytes.Buffer
+	switch of.format {
+	case "json":
+		b.Write(jsondoc.MarshalIndent(g.Doc(src.Title), "  "))
+	case "csv":
+		err = report.GrowthTable(g).WriteCSV(&b)
+	default:
+		err = report.WriteGrowthText(&b, src.Title, g, of.format == "markdown")
+	}
+	if err == nil {
+		err = of.write(e, &b)
+	}
+	if err != nil {
+		return fail(e, "growth", err)
+	}
+	unsettled := false
+	for _, r := range g.Results {
+		if r != nil && (r.Before.Unassigned > 0 || r.After.Unassigned > 0) {
+			unsettled = true
+		}
+	}
+	return tieNote(e, "growth", unsettled)
+}
+
+// readSource reads a scenario file (or standard input for "-") without
+// applying any option.
+func readSource(e *env, name string) (*input.Source, error) {
+	if name == "-" {
+		return input.Read("stdin", e.stdin)
+	}
+	f, err := os.Open(name)
+	if err != nil {
+		return nil, &input.Error{File: name, Msg: "cannot read: " + strings.TrimPrefix(err.Error(), "open "+name+": ")}
+	}
+	defer f.Close()
+	return input.Read(name, f)
+}

@@ -1,0 +1,88 @@
+package main
+
+import (
+	"bytes"
+	"flag"
+
+	"seatsmith/engine/jsondoc"
+	"seatsmith/engine/report"
+)
+
+func init() {
+	register(&command{name: "measure", summary: "disproportionality measures of each method's result", run: runMeasure})
+}
+
+const measureHelp = `Usage: seatsmith measure [options] FILE
+
+Apportions the house by each method and measures how far each result is
+from proportionality: the Loosemore–Hanby index ½Σ|v−s|, the Gallagher
+index √(½Σ(v−s)²), the Sainte-Laguë index Σ(s−v)²/v (shares v and s in
+percent), the largest and smallest district size (persons per seat) and
+their ratio, their absolute and relative difference, and Huntington's
+pairwise tests: whether moving one seat between any two units would lower
+their relative difference of district size (Huntington–Hill passes), their
+absolute difference of district size (Dean) or of representation per
+person (Webster). Measures are float64, for display; seats are exact.
+
+JSON (-format json): {version, kind: "measures", caution, title, seats,
+total, note, methods: [{method, method_name, error, unassigned,
+loosemore_hanby, gallagher, sainte_lague, largest_district: {unit,
+persons_per_seat}, smallest_district, ratio, absolute_difference,
+relative_difference, unseated, improving_transfers: {relative_difference,
+district_size_difference, representation_difference}}]}.
+
+Examples:
+  seatsmith measure -seats 40 -min 1 testdata/demo/vessaria.csv
+  seatsmith measure -method webster,huntington-hill -format json testdata/demo/vessaria.json
+
+Options:
+`
+
+func runMeasure(e *env, args []string) int {
+	fs := flag.NewFlagSet("measure", flag.ContinueOnError)
+	fs.SetOutput(e.stderr)
+	var sf scenarioFlags
+	var of outputFlags
+	sf.bind(fs, false)
+	of.bind(fs, "text", "csv", "json", "markdown")
+	method := fs.String("method", "all", methodListHelp)
+	fs.Usage = helpFunc(fs, e.stdout, measureHelp)
+	if code, done := parseArgs(fs, args); done {
+		return code
+	}
+	if err := of.check("text", "csv", "json", "markdown"); err != nil {
+		return fail(e, "measure", err)
+	}
+	ms, err := methodList(*method)
+	if err != nil {
+		return fail(e, "measure", err)
+	}
+	src, err := sf.load(e, fs)
+	if err != nil {
+		return fail(e, "measure", err)
+	}
+	set := report.MeasureAll(src.Scenario, ms)
+	if set.Comparison.First() == nil {
+		return fail(e, "measure", src.Locate(set.Comparison.Errors[0]))
+	}
+	var b bytes.Buffer
+	switch of.format {
+	case "json":
+		b.Write(jsondoc.MarshalIndent(set.Doc(src.Title), "  "))
+	case "csv":
+		err = report.MeasureTable(set).WriteCSV(&b)
+	default:
+		err = report.WriteMeasureText(&b, src.Title, set, of.format == "markdown")
+	}
+	if err == nil {
+		err = of.write(e, &b)
+	}
+	if err != nil {
+		return fail(e, "measure", err)
+	}
+	unsettled := false
+	for _, r := range set.Comparison.Results {
+		unsettled = unsettled || (r != nil && r.Unassigned > 0)
+	}
+	return tieNote(e, "measure", unsettled)
+}

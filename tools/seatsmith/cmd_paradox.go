@@ -1,0 +1,126 @@
+package main
+
+import (
+	"bytes"
+	"flag"
+	"strconv"
+
+	"seatsmith/engine"
+	"seatsmith/engine/input"
+	"seatsmith/engine/jsondoc"
+	"seatsmith/engine/report"
+)
+
+func init() {
+	register(&command{name: "paradox", summary: "Alabama paradoxes and quota violations over a range of house sizes", run: runParadox})
+}
+
+const paradoxHelp = `Usage: seatsmith paradox [options] FILE
+
+Sweeps the house sizes from -from to -to by each method and lists, in
+numbers, every Alabama paradox (a unit with fewer seats when the house
+grows by one, although its quota rises) and every quota violation (a unit
+with more than its upper or fewer than its lower quota). Divisor methods
+never show an Alabama paradox; Hamilton never breaks quota without bounds.
+For the population paradox see "seatsmith growth", for the new-states
+paradox "seatsmith admit".
+
+JSON (-format json): {version, kind: "paradoxes", caution, title, from, to,
+methods: [{method, method_name, error, alabama, quota_violations}],
+paradoxes: [{kind: "alabama", method, unit, from, to, seats_before,
+seats_after, quota_before, quota_after, gainers, tied, text} or {kind:
+"quota", method, unit, house, seats, quota, quota_exact, lower_quota,
+upper_quota, side, bounds_bind, text}]}.
+
+Examples:
+  seatsmith paradox -method hamilton -from 9 -to 120 testdata/demo/vessaria.csv
+  seatsmith paradox -method jefferson,adams -from 20 -to 60 -limit 5 testdata/demo/vessaria.json
+  seatsmith paradox -to 200 -format json testdata/demo/vessaria.csv
+
+Options:
+`
+
+func runParadox(e *env, args []string) int {
+	fs := flag.NewFlagSet("paradox", flag.ContinueOnError)
+	fs.SetOutput(e.stderr)
+	var sf scenarioFlags
+	var of outputFlags
+	sf.bind(fs, false)
+	of.bind(fs, "text", "csv", "json", "markdown")
+	method := fs.String("method", "all", methodListHelp)
+	from := fs.Int("from", 1, "smallest house size")
+	to := fs.Int("to", 0, "largest house size (default: the house size)")
+	limit := fs.Int("limit", 20, "findings of each kind listed per method in text and markdown (0: all)")
+	fs.Usage = helpFunc(fs, e.stdout, paradoxHelp)
+	if code, done := parseArgs(fs, args); done {
+		return code
+	}
+	if err := of.check("text", "csv", "json", "markdown"); err != nil {
+		return fail(e, "paradox", err)
+	}
+	ms, err := methodList(*method)
+	if err != nil {
+		return fail(e, "paradox", err)
+	}
+	if *limit < 0 {
+		return fail(e, "paradox", usageError("-limit: cannot be negative"))
+	}
+	set, src, code := sweepFromFlags(e, "paradox", fs, ms, *from, *to)
+	if set == nil {
+		return code
+	}
+	var b bytes.Buffer
+	switch of.format {
+	case "json":
+		b.Write(jsondoc.MarshalIndent(report.ParadoxDoc(src.Title, set, &src.Scenario), "  "))
+	case "csv":
+		err = report.ParadoxTable(set, &src.Scenario).WriteCSV(&b)
+	default:
+		err = report.WriteParadoxText(&b, src.Title, set, &src.Scenario, *limit, of.format == "markdown")
+	}
+	if err == nil {
+		err = of.write(e, &b)
+	}
+	if err != nil {
+		return fail(e, "paradox", err)
+	}
+	return tieNote(e, "paradox", set.Unsettled())
+}
+
+// sweepFromFlags loads the one FILE argument with the scenario options and
+// sweeps it from from to to (to defaulting to the house size). On failure
+// it reports the error and returns a nil set with the exit status.
+func sweepFromFlags(e *env, cmd string, fs *flag.FlagSet, ms []engine.Method, from, to int) (*report.SweepSet, *input.Source, int) {
+	if from < 1 || from > engine.MaxSeats {
+		return nil, nil, fail(e, cmd, usageError("-from: must be between 1 and "+strconv.Itoa(engine.MaxSeats)))
+	}
+	if given(fs, "to") && (to < from || to > engine.MaxSeats) {
+		return nil, nil, fail(e, cmd, usageError("-to: must be between -from ("+strconv.Itoa(from)+") and "+strconv.Itoa(engine.MaxSeats)))
+	}
+	if fs.NArg() != 1 {
+		return nil, nil, fail(e, cmd, usageError("expected one FILE argument (or - for standard input), got "+strconv.Itoa(fs.NArg())))
+	}
+	extra := map[string]string{}
+	if given(fs, "to") && !given(fs, "seats") {
+		extra["seats"] = strconv.Itoa(to)
+	}
+	src, err := loadFileWith(e, fs, false, fs.Arg(0), extra)
+	if err != nil {
+		return nil, nil, fail(e, cmd, err)
+	}
+	if !given(fs, "to") {
+		to = src.Scenario.Seats
+		if to < from {
+			return nil, nil, fail(e, cmd, usageError("-to: the house size "+strconv.Itoa(to)+" is below -from "+strconv.Itoa(from)+"; give -to"))
+		}
+	}
+	if n := len(src.Scenario.Units); n > 0 && to-from+1 > engine.MaxSweepCells/n {
+		return nil, nil, fail(e, cmd, usageError("-from/-to: "+strconv.Itoa(to-from+1)+" house sizes of "+strconv.Itoa(n)+
+			" units is more than the limit of "+strconv.Itoa(engine.MaxSweepCells)+" results"))
+	}
+	set := report.SweepAll(src.Scenario, ms, from, to)
+	if set.First() == nil {
+		return nil, nil, fail(e, cmd, src.Locate(set.Errors[0]))
+	}
+	return set, src, exitOK
+}

@@ -1,0 +1,86 @@
+package main
+
+import (
+	"bytes"
+	"flag"
+
+	"seatsmith/engine/jsondoc"
+	"seatsmith/engine/report"
+)
+
+func init() {
+	register(&command{name: "sweep", summary: "seats of every unit at every house size in a range", run: runSweep})
+}
+
+const sweepHelp = `Usage: seatsmith sweep [options] FILE
+
+Apportions the seats at every house size from -from to -to and shows each
+unit's seats at each size, what changed from one size to the next, the
+ties, and every Alabama paradox (a unit that loses a seat when the house
+grows by one). Divisor methods are computed in one pass of the priority
+sequence over the whole range; largest-remainder methods size by size.
+
+-to defaults to the house size (-seats, or "seats" in a JSON scenario);
+-from defaults to 1. -format svg draws a step chart, one panel per method.
+
+JSON (-format json): {version, kind: "sweep", caution, title, from, to,
+methods: [{method, method_name, error}], units: [{name, population,
+excluded}], sizes: [{method, seats, units: [{name, seats}], unassigned,
+ties, error}], paradoxes: [{kind: "alabama", method, unit, from, to,
+seats_before, seats_after, quota_before, quota_after, gainers, tied,
+text}]}. "seats" in a size is the house size.
+
+Examples:
+  seatsmith sweep -method hamilton -from 30 -to 60 testdata/demo/vessaria.csv
+  seatsmith sweep -method huntington-hill -min 1 -from 9 -to 80 -format svg -o chart.svg testdata/demo/vessaria.csv
+  seatsmith sweep -from 1 -to 40 -format json testdata/demo/vessaria.json
+
+Options:
+`
+
+func runSweep(e *env, args []string) int {
+	fs := flag.NewFlagSet("sweep", flag.ContinueOnError)
+	fs.SetOutput(e.stderr)
+	var sf scenarioFlags
+	var of outputFlags
+	sf.bind(fs, false)
+	of.bind(fs, "text", "csv", "json", "markdown", "svg")
+	method := fs.String("method", "all", methodListHelp)
+	from := fs.Int("from", 1, "smallest house size")
+	to := fs.Int("to", 0, "largest house size (default: the house size)")
+	fs.Usage = helpFunc(fs, e.stdout, sweepHelp)
+	if code, done := parseArgs(fs, args); done {
+		return code
+	}
+	if err := of.check("text", "csv", "json", "markdown", "svg"); err != nil {
+		return fail(e, "sweep", err)
+	}
+	ms, err := methodList(*method)
+	if err != nil {
+		return fail(e, "sweep", err)
+	}
+	set, src, code := sweepFromFlags(e, "sweep", fs, ms, *from, *to)
+	if set == nil {
+		return code
+	}
+	var b bytes.Buffer
+	switch of.format {
+	case "json":
+		b.Write(jsondoc.MarshalIndent(set.Doc(src.Title), "  "))
+	case "csv":
+		err = report.SweepCSVTable(set).WriteCSV(&b)
+	case "markdown":
+		err = report.WriteSweepMarkdown(&b, src.Title, set)
+	case "svg":
+		b.WriteString(report.SweepChart(src.Title, set))
+	default:
+		err = report.WriteSweepText(&b, src.Title, set)
+	}
+	if err == nil {
+		err = of.write(e, &b)
+	}
+	if err != nil {
+		return fail(e, "sweep", err)
+	}
+	return tieNote(e, "sweep", set.Unsettled())
+}
