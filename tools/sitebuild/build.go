@@ -65,9 +65,13 @@ func Build(opt Options) (*Stats, error) {
 		}
 		return b, nil
 	}
+	// The bridge lives in the module's wasm folder: the module holding the
+	// sources, or else the one the build runs in.
 	root, err := moduleRoot(opt.Src)
 	if err != nil {
-		return nil, err
+		if root, err = moduleRoot("."); err != nil {
+			return nil, err
+		}
 	}
 	cssRaw, err := read(filepath.Join(opt.Src, "static", "style.css"))
 	if err != nil {
