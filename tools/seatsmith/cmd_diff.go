@@ -121,7 +121,11 @@ func runDiff(e *env, args []string) int {
 			if se.Side == "baseline" {
 				return fail(e, "diff", base.Locate(se.Err))
 			}
-			return fail(e, "diff", propSrc.Locate(se.Err))
+			located := propSrc.Locate(se.Err)
+			if ie, ok := located.(*input.Error); ok {
+				ie.Msg = "in the proposal: " + ie.Msg
+			}
+			return fail(e, "diff", located)
 		}
 		return fail(e, "diff", err)
 	}
