@@ -241,7 +241,14 @@ class Calculator {
   replacePart(name, tree) {
     const el = build(tree);
     const old = this.root.querySelector('[data-part="' + name + '"]');
-    if (old) old.replaceWith(el);
+    if (old) {
+      // Folded sections stay as the reader left them.
+      for (const d of old.querySelectorAll('details[class]')) {
+        const same = el.querySelector('details.' + CSS.escape(d.classList[0]));
+        if (same) same.open = d.open;
+      }
+      old.replaceWith(el);
+    }
     else if (name === 'editor') this.root.appendChild(el);
     else this.root.appendChild(el);
     return el;

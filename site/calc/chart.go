@@ -21,13 +21,13 @@ func chart(r *engine.Result) *Node {
 		return nil
 	}
 	const (
-		width  = 640.0
-		labelW = 150.0
-		left   = labelW + 10
-		right  = 40.0
+		width  = 540.0
+		labelW = 124.0
+		left   = labelW + 8
+		right  = 30.0
 		top    = 30.0
-		rowH   = 24.0
-		barH   = 14.0
+		rowH   = 26.0
+		barH   = 16.0
 	)
 	top1 := 1.0
 	for _, u := range r.Units {
@@ -39,7 +39,7 @@ func chart(r *engine.Result) *Node {
 	x := func(v float64) float64 { return left + v/scaleMax*plotW }
 	height := top + float64(n)*rowH + 10
 
-	fig := El("figure", "class", "sc-chart", "data-role", "chart")
+	fig := El("figure", "class", "sc-chart", "data-role", "chart", "tabindex", "0", "aria-label", "Chart of seats against quota (scrolls sideways on narrow screens)")
 	svg := El("svg", "viewBox", "0 0 "+f1(width)+" "+f1(height), "role", "img", "class", "sc-svg",
 		"aria-label", "Bar chart: seats of each unit under "+r.Method.Name()+", with each unit's quota marked", "focusable", "false")
 	svg.Add(Wrap("title", "Seats against quota, "+r.Method.Name()))
@@ -96,8 +96,8 @@ func tickStep(max float64) float64 {
 
 func shortName(s string) string {
 	r := []rune(s)
-	if len(r) > 22 {
-		return string(r[:21]) + "…"
+	if len(r) > 18 {
+		return string(r[:17]) + "…"
 	}
 	return s
 }

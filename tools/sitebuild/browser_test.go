@@ -1,0 +1,532 @@
+package main
+
+// Browser tests: the built site in real headless Chromium. They need
+// /usr/bin/chromium (or SEATSMITH_CHROMIUM); without it they skip locally
+// and fail when CI is set. SEATSMITH_WASM names a prebuilt engine to use
+// instead of building ./wasm.
+
+import (
+	"bufio"
+	"context"
+	"encoding/base64"
+	"encoding/json"
+	"net/http/httptest"
+	"net/url"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"regexp"
+	"strings"
+	"sync"
+	"testing"
+	"time"
+
+	"github.com/chromedp/cdproto/network"
+	"github.com/chromedp/chromedp"
+)
+
+var (
+	builtOnce sync.Once
+	builtDir  string
+	builtErr  error
+)
+
+// builtSite builds the real site once for every browser test.
+func builtSite(t *testing.T) string {
+	t.Helper()
+	builtOnce.Do(func() {
+		dir, err := os.MkdirTemp("", "sitebuild-browser-")
+		if err != nil {
+			builtErr = err
+			return
+		}
+		var eng []byte
+		if p := os.Getenv("SEATSMITH_WASM"); p != "" {
+			eng, err = os.ReadFile(p)
+		} else {
+			eng, err = buildEngine(siteSrc, "")
+		}
+		if err != nil {
+			builtErr = err
+			return
+		}
+		builtDir = filepath.Join(dir, "site")
+		_, builtErr = Build(Options{Src: siteSrc, Out: builtDir, Engine: eng})
+	})
+	if builtErr != nil {
+		t.Fatalf("building the site: %v", builtErr)
+	}
+	return builtDir
+}
+
+func chromiumPath(t *testing.T) string {
+	t.Helper()
+	p := os.Getenv("SEATSMITH_CHROMIUM")
+	if p == "" {
+		p = "/usr/bin/chromium"
+	}
+	if _, err := os.Stat(p); err != nil {
+		if lp, lerr := exec.LookPath("chromium"); lerr == nil {
+			return lp
+		}
+		if os.Getenv("CI") != "" {
+			t.Fatalf("chromium is missing (%s): the browser tests must run in CI; install the chromium package", p)
+		}
+		t.Skipf("chromium is missing (%s): skipping the browser tests (they run in CI)", p)
+	}
+	return p
+}
+
+// browser starts one headless Chromium for a test and returns its context.
+func browser(t *testing.T) context.Context {
+	t.Helper()
+	exe := chromiumPath(t)
+	ud := t.TempDir()
+	opts := []chromedp.ExecAllocatorOption{
+		chromedp.ExecPath(exe),
+		chromedp.Headless,
+		chromedp.NoSandbox,
+		chromedp.DisableGPU,
+		chromedp.NoFirstRun,
+		chromedp.NoDefaultBrowserCheck,
+		chromedp.Flag("disable-background-networking", true),
+		chromedp.Flag("disable-component-update", true),
+		chromedp.Flag("disable-sync", true),
+		chromedp.Flag("disable-dev-shm-usage", true),
+		chromedp.Flag("disable-extensions", true),
+		chromedp.Flag("disable-default-apps", true),
+		chromedp.Flag("no-default-browser-check", true),
+		chromedp.UserDataDir(ud),
+		chromedp.WindowSize(1280, 900),
+	}
+	actx, cancel := chromedp.NewExecAllocator(context.Background(), opts...)
+	t.Cleanup(cancel)
+	bctx, bcancel := chromedp.NewContext(actx)
+	t.Cleanup(bcancel)
+	if err := chromedp.Do(bctx); err != nil {
+		t.Fatalf("starting chromium: %v", err)
+	}
+	return bctx
+}
+
+// A tab is one page under test, with everything it logged and requested.
+type tab struct {
+	t        *testing.T
+	ctx      context.Context
+	mu       sync.Mutex
+	console  []chromedp.ConsoleMessage
+	requests []string
+}
+
+func newTab(t *testing.T, parent context.Context) *tab {
+	t.Helper()
+	ctx, cancel := chromedp.NewContext(parent)
+	ctx, tcancel := context.WithTimeout(ctx, 60*time.Second)
+	t.Cleanup(func() { tcancel(); cancel() })
+	tb := &tab{t: t, ctx: ctx}
+	msgs := chromedp.Console(ctx)
+	reqs := chromedp.Events(ctx, network.RequestWillBeSent)
+	go func() {
+		for m, err := range msgs {
+			if err != nil {
+				return
+			}
+			tb.mu.Lock()
+			tb.console = append(tb.console, m)
+			tb.mu.Unlock()
+		}
+	}()
+	go func() {
+		for ev, err := range reqs {
+			if err != nil {
+				return
+			}
+			tb.mu.Lock()
+			tb.requests = append(tb.requests, ev.Request.URL)
+			tb.mu.Unlock()
+		}
+	}()
+	return tb
+}
+
+func (tb *tab) do(steps ...chromedp.Action[chromedp.Void]) {
+	tb.t.Helper()
+	if err := chromedp.Do(tb.ctx, steps...); err != nil {
+		tb.t.Fatalf("browser: %v", err)
+	}
+}
+
+func eval[T any](tb *tab, js string) T {
+	tb.t.Helper()
+	v, err := chromedp.Run(tb.ctx, chromedp.Evaluate[T](js, chromedp.EvalAwaitPromise))
+	if err != nil {
+		tb.t.Fatalf("evaluating %s: %v", js, err)
+	}
+	return v
+}
+
+// waitFor polls a JavaScript condition.
+func (tb *tab) waitFor(what, js string) {
+	tb.t.Helper()
+	if _, err := chromedp.Run(tb.ctx, chromedp.Poll[bool](js, chromedp.WithPollingTimeout(20*time.Second), chromedp.WithPollingInterval(50*time.Millisecond))); err != nil {
+		state := eval[string](tb, `JSON.stringify([...document.querySelectorAll('[data-seatsmith]')].map(e => [e.id, e.dataset.state, (e.querySelector('[role=alert]')||{}).textContent]))`)
+		tb.t.Fatalf("waiting for %s: %v (calculators: %s; console: %v)", what, err, state, tb.messages())
+	}
+}
+
+const allLive = `document.querySelectorAll('[data-seatsmith]').length > 0 && [...document.querySelectorAll('[data-seatsmith]')].every(e => e.dataset.state === 'live')`
+
+func (tb *tab) messages() []string {
+	tb.mu.Lock()
+	defer tb.mu.Unlock()
+	var out []string
+	for _, m := range tb.console {
+		out = append(out, string(m.Type)+": "+m.Text)
+	}
+	return out
+}
+
+// checkClean fails on any console error or exception and on any request to
+// another origin than allowed.
+func (tb *tab) checkClean(origin string) {
+	tb.t.Helper()
+	time.Sleep(100 * time.Millisecond)
+	tb.mu.Lock()
+	defer tb.mu.Unlock()
+	for _, m := range tb.console {
+		if m.Type == chromedp.ConsoleError || m.Type == chromedp.ConsoleException {
+			tb.t.Errorf("console %s: %s (%s:%d)", m.Type, m.Text, m.URL, m.Line)
+		}
+	}
+	for _, r := range tb.requests {
+		if strings.HasPrefix(r, "data:") || strings.HasPrefix(r, "blob:") {
+			continue
+		}
+		if !strings.HasPrefix(r, origin) {
+			tb.t.Errorf("request to another origin: %s", r)
+		}
+	}
+}
+
+// A row is one result row: calculator, unit and seats.
+type row struct{ Calc, Unit, Seats string }
+
+const rowsJS = `JSON.stringify([...document.querySelectorAll('[data-seatsmith] tr[data-unit]')].map(r => ({Calc: r.closest('[data-seatsmith]').id, Unit: r.dataset.unit, Seats: r.dataset.seats})))`
+
+func (tb *tab) rows() []row {
+	tb.t.Helper()
+	var rs []row
+	if err := json.Unmarshal([]byte(eval[string](tb, rowsJS)), &rs); err != nil {
+		tb.t.Fatal(err)
+	}
+	return rs
+}
+
+// goldenRows reads the rows of testdata/site/PAGE.txt.
+func goldenRows(t *testing.T, name string) []row {
+	t.Helper()
+	f, err := os.Open(filepath.Join(goldenDir, name+".txt"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	var rs []row
+	calc := ""
+	sc := bufio.NewScanner(f)
+	for sc.Scan() {
+		l := sc.Text()
+		if strings.HasPrefix(l, "calculator ") {
+			calc = strings.TrimSuffix(strings.Fields(l)[1], ":")
+			continue
+		}
+		if strings.HasPrefix(l, "  ") && !strings.HasPrefix(l, "    ") {
+			parts := strings.Split(strings.TrimPrefix(l, "  "), "\t")
+			if len(parts) >= 3 && strings.HasPrefix(parts[2], "quota ") {
+				rs = append(rs, row{calc, parts[0], parts[1]})
+			}
+		}
+	}
+	return rs
+}
+
+var staticRow = regexp.MustCompile(`<tr data-unit="([^"]*)" data-seats="(\d+)"`)
+
+func sameRows(t *testing.T, what string, got, want []row) {
+	t.Helper()
+	if len(got) != len(want) {
+		t.Fatalf("%s: %d rows, golden has %d\n got %v\nwant %v", what, len(got), len(want), got, want)
+	}
+	for i := range got {
+		if got[i] != want[i] {
+			t.Errorf("%s: row %d is %v, golden %v", what, i, got[i], want[i])
+		}
+	}
+}
+
+func artifact(t *testing.T, name string, png []byte) {
+	t.Helper()
+	dir := filepath.Join("..", "..", "testdata", "artifacts")
+	if err := os.MkdirAll(dir, 0o755); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(filepath.Join(dir, name), png, 0o644); err != nil {
+		t.Fatal(err)
+	}
+}
+
+func (tb *tab) screenshot(name string, width, height int64, mobile bool) {
+	tb.t.Helper()
+	var opts []chromedp.EmulateViewportOption
+	if mobile {
+		opts = append(opts, chromedp.EmulateScale(2), chromedp.EmulatePortrait, chromedp.EmulateMobile)
+	}
+	tb.do(chromedp.EmulateViewport(width, height, opts...))
+	time.Sleep(150 * time.Millisecond)
+	png, err := chromedp.Run(tb.ctx, chromedp.FullScreenshot(100))
+	if err != nil {
+		tb.t.Fatalf("screenshot: %v", err)
+	}
+	artifact(tb.t, name, png)
+}
+
+// TestBrowser drives the built site in headless Chromium.
+func TestBrowser(t *testing.T) {
+	chromiumPath(t)
+	dir := builtSite(t)
+	h, err := siteHandler(dir)
+	if err != nil {
+		t.Fatal(err)
+	}
+	srv := httptest.NewServer(h)
+	defer srv.Close()
+	bctx := browser(t)
+	origin := srv.URL + "/"
+
+	pages, _ := filepath.Glob(filepath.Join(siteSrc, "pages", "*.html"))
+	t.Run("pages", func(t *testing.T) {
+		for _, p := range pages {
+			name := strings.TrimSuffix(filepath.Base(p), ".html")
+			t.Run(name, func(t *testing.T) {
+				want := goldenRows(t, name)
+				html, err := os.ReadFile(filepath.Join(dir, name+".html"))
+				if err != nil {
+					t.Fatal(err)
+				}
+				var static []row
+				for _, m := range staticRow.FindAllStringSubmatch(string(html), -1) {
+					static = append(static, row{"", m[1], m[2]})
+				}
+				for i := range static {
+					if i < len(want) {
+						static[i].Calc = want[i].Calc
+					}
+				}
+				sameRows(t, "prerendered "+name, static, want)
+				if !strings.Contains(string(html), `data-state="static"`) || !strings.Contains(string(html), "Not an official") {
+					t.Error("the prerendered page lacks data-state=static or the caution")
+				}
+				tb := newTab(t, bctx)
+				tb.do(chromedp.Navigate(origin + name + ".html"))
+				tb.waitFor("every calculator live", allLive)
+				sameRows(t, "live "+name, tb.rows(), want)
+				if n := eval[int](tb, `document.querySelectorAll('[data-role=caution]').length + document.querySelectorAll('[data-role=site-caution]').length`); n < 2 {
+					t.Errorf("the caution shows %d times", n)
+				}
+				bad := eval[int](tb, `document.querySelectorAll('[data-claim][data-holds="false"], [data-claim-ref][data-holds="false"]').length`)
+				if bad != 0 {
+					t.Errorf("%d claims do not hold on the live page", bad)
+				}
+				tb.screenshot(name+"-desktop.png", 1280, 900, false)
+				tb.screenshot(name+"-phone.png", 390, 844, true)
+				tb.checkClean(origin)
+			})
+		}
+	})
+
+	t.Run("edit population", func(t *testing.T) {
+		tb := newTab(t, bctx)
+		tb.do(chromedp.Navigate(origin + "assembly.html"))
+		tb.waitFor("live", allLive)
+		before := eval[string](tb, `document.querySelector('#assembly tr[data-unit="Marrowgate"]').dataset.seats`)
+		sel := chromedp.CSS(`#assembly [data-field="units.8.population"]`)
+		tb.do(chromedp.Focus(sel), chromedp.Evaluate[chromedp.Void](`document.activeElement.select()`), chromedp.SendKeys(sel, "3055971"))
+		tb.waitFor("Marrowgate to gain seats", `+document.querySelector('#assembly tr[data-unit="Marrowgate"]').dataset.seats > 10`)
+		after := eval[string](tb, `document.querySelector('#assembly tr[data-unit="Marrowgate"]').dataset.seats`)
+		if before == after {
+			t.Errorf("seats stayed %s", before)
+		}
+		if got := eval[string](tb, `document.activeElement.getAttribute('data-field')`); got != "units.8.population" {
+			t.Errorf("focus moved to %q while typing", got)
+		}
+		// Claims now show whether they still hold.
+		if n := eval[int](tb, `document.querySelectorAll('#assembly [data-claim][data-holds]').length`); n != 6 {
+			t.Errorf("%d claims shown", n)
+		}
+		if !strings.Contains(eval[string](tb, `location.hash`), "assembly=") {
+			t.Error("the edit is not in the fragment")
+		}
+		tb.checkClean(origin)
+	})
+
+	t.Run("bad input", func(t *testing.T) {
+		tb := newTab(t, bctx)
+		tb.do(chromedp.Navigate(origin + "devices.html"))
+		tb.waitFor("live", allLive)
+		sel := chromedp.CSS(`#carts [data-field="units.2.population"]`)
+		tb.do(chromedp.Focus(sel), chromedp.SendKeys(sel, "x"))
+		tb.waitFor("the error state", `document.querySelector('#carts').dataset.state === 'error'`)
+		msg := eval[string](tb, `document.querySelector('#carts [data-role=error]').textContent`)
+		if !strings.Contains(msg, "Unit 3") || !strings.Contains(msg, "population") {
+			t.Errorf("error message %q does not name the unit and field", msg)
+		}
+		if eval[string](tb, `document.querySelector('#carts [data-field="units.2.population"]').getAttribute('aria-invalid')`) != "true" {
+			t.Error("the bad field is not marked invalid")
+		}
+		// The rest keeps working: other controls still answer, and fixing
+		// the number brings the results back.
+		tb.do(chromedp.SetValue(chromedp.CSS(`#carts [data-field="method"]`), "webster"),
+			chromedp.Evaluate[chromedp.Void](`document.querySelector('#carts [data-field="method"]').dispatchEvent(new Event('change', {bubbles: true}))`))
+		if eval[string](tb, `document.querySelector('#carts').dataset.state`) != "error" {
+			t.Error("changing the method hid the error")
+		}
+		tb.do(chromedp.Focus(sel), chromedp.KeyEvent("\b"))
+		tb.waitFor("live again", `document.querySelector('#carts').dataset.state === 'live'`)
+		if got := eval[string](tb, `document.querySelector('#carts table.sc-results').dataset.method`); got != "webster" {
+			t.Errorf("method after the fix is %q", got)
+		}
+		if eval[bool](tb, `!!document.querySelector('#carts [aria-invalid]')`) {
+			t.Error("a field stays marked invalid after the fix")
+		}
+		tb.checkClean(origin)
+	})
+
+	t.Run("markup in names", func(t *testing.T) {
+		tb := newTab(t, bctx)
+		tb.do(chromedp.Navigate(origin + "index.html"))
+		tb.waitFor("live", allLive)
+		evil := `<img src=x onerror="window.__hit=1"><script>window.__hit=2</script><b>bold</b>`
+		sel := chromedp.CSS(`#islands [data-field="units.0.name"]`)
+		tb.do(chromedp.Focus(sel), chromedp.Evaluate[chromedp.Void](`document.activeElement.select()`), chromedp.SendKeys(sel, evil))
+		tb.waitFor("the new name", `!!document.querySelector('#islands tr[data-unit]') && document.querySelector('#islands tr[data-unit]').dataset.unit.includes('bold')`)
+		time.Sleep(200 * time.Millisecond)
+		if got := eval[string](tb, `document.querySelector('#islands tr[data-unit]').dataset.unit`); got != evil {
+			t.Errorf("data-unit is %q", got)
+		}
+		if got := eval[string](tb, `document.querySelector('#islands tr[data-unit] th').textContent`); got != evil {
+			t.Errorf("the name shows as %q", got)
+		}
+		if n := eval[int](tb, `document.querySelectorAll('#islands img, #islands b, #islands .sc-output script').length`); n != 0 {
+			t.Errorf("the name became %d elements", n)
+		}
+		if eval[bool](tb, `window.__hit !== undefined`) {
+			t.Error("script in a unit name ran")
+		}
+		tb.checkClean(origin)
+	})
+
+	t.Run("fragment round trip", func(t *testing.T) {
+		tb := newTab(t, bctx)
+		tb.do(chromedp.Navigate(origin + "party-list.html"))
+		tb.waitFor("live", allLive)
+		tb.do(chromedp.SetValue(chromedp.CSS(`#council [data-field="method"]`), "webster"),
+			chromedp.Evaluate[chromedp.Void](`document.querySelector('#council [data-field="method"]').dispatchEvent(new Event('change', {bubbles: true}))`))
+		sel := chromedp.CSS(`#council [data-field="seats"]`)
+		tb.do(chromedp.Focus(sel), chromedp.Evaluate[chromedp.Void](`document.activeElement.select()`), chromedp.SendKeys(sel, "41"))
+		tb.waitFor("41 seats", `document.querySelector('#council table.sc-results').dataset.house === '41'`)
+		rows := tb.rows()
+		link := eval[string](tb, `location.href`)
+		if !strings.Contains(link, "#council=") {
+			t.Fatalf("no scenario in the link %s", link)
+		}
+		tb2 := newTab(t, bctx)
+		tb2.do(chromedp.Navigate(link))
+		tb2.waitFor("live", allLive)
+		sameRows(t, "reopened link", tb2.rows(), rows)
+		if got := eval[string](tb2, `document.querySelector('#council [data-field="seats"]').value + ' ' + document.querySelector('#council [data-field="method"]').value`); got != "41 webster" {
+			t.Errorf("the reopened editor shows %q", got)
+		}
+		tb2.checkClean(origin)
+
+		// A damaged link shows an inline error and the page's own numbers.
+		tb3 := newTab(t, bctx)
+		u, _ := url.Parse(link)
+		u.Fragment = "council=" + strings.Repeat("Zm9v", 3) + "%%%"
+		tb3.do(chromedp.Navigate(u.String()))
+		tb3.waitFor("live", allLive)
+		note := eval[string](tb3, `(document.querySelector('#council [data-role=notice][data-error]')||{}).textContent || ''`)
+		if !strings.Contains(note, "could not be read") {
+			t.Errorf("no inline error for a damaged link (notice %q)", note)
+		}
+		sameRows(t, "damaged link", tb3.rows(), goldenRows(t, "party-list"))
+		// A link whose scenario is readable but wrong shows the engine's error.
+		bad := `{"seats":"30","method":"jefferson","units":[{"name":"A","population":"-4"}]}`
+		u.Fragment = ""
+		tb4 := newTab(t, bctx)
+		tb4.do(chromedp.Navigate(u.String() + "#council=" + b64url(bad)))
+		tb4.waitFor("the error state", `document.querySelector('#council').dataset.state === 'error'`)
+		if msg := eval[string](tb4, `document.querySelector('#council [data-role=error]').textContent`); !strings.Contains(msg, "negative") {
+			t.Errorf("error for a negative population: %q", msg)
+		}
+		tb3.checkClean(origin)
+		tb4.checkClean(origin)
+	})
+
+	t.Run("csv and export", func(t *testing.T) {
+		tb := newTab(t, bctx)
+		tb.do(chromedp.Navigate(origin + "calculator.html"))
+		tb.waitFor("live", allLive)
+		csv := "name,population,max\nHarlow,5000,\n=SUM(A1:A2),3000,\nTeal <i>x</i>,2000,1\n"
+		tb.do(chromedp.Click(chromedp.CSS(`#workbench .sc-csv summary`)),
+			chromedp.SetValue(chromedp.CSS(`#workbench [data-field="csv"]`), csv),
+			chromedp.Click(chromedp.CSS(`#workbench [data-action="use-csv"]`)))
+		tb.waitFor("three units", `document.querySelectorAll('#workbench tr[data-unit]').length === 3`)
+		got := tb.rows()
+		want := []row{{"workbench", "Harlow", "20"}, {"workbench", "=SUM(A1:A2)", "12"}, {"workbench", "Teal <i>x</i>", "1"}}
+		if got[2].Seats != "1" || got[0].Unit != "Harlow" || got[1].Unit != want[1].Unit || got[2].Unit != want[2].Unit {
+			t.Errorf("rows after the CSV: %v", got)
+		}
+		// Capture the export instead of saving it.
+		tb.do(chromedp.Evaluate[chromedp.Void](`window.__blobs = []; const o = URL.createObjectURL; URL.createObjectURL = (b) => { window.__blobs.push(b); return o.call(URL, b); }; HTMLAnchorElement.prototype.click = function () {};`))
+		tb.do(chromedp.Click(chromedp.CSS(`#workbench [data-action="export-csv"]`)), chromedp.Click(chromedp.CSS(`#workbench [data-action="export-json"]`)))
+		out := eval[string](tb, `Promise.all(window.__blobs.map(b => b.text())).then(t => JSON.stringify(t))`)
+		var texts []string
+		json.Unmarshal([]byte(out), &texts)
+		if len(texts) != 2 {
+			t.Fatalf("exports: %v", texts)
+		}
+		if !strings.Contains(texts[0], "'=SUM(A1:A2)") || strings.Contains(texts[0], "\n=SUM") {
+			t.Errorf("the CSV export does not guard a formula:\n%s", texts[0])
+		}
+		var doc map[string]any
+		if err := json.Unmarshal([]byte(texts[1]), &doc); err != nil || doc["allotment"] == nil || doc["scenario"] == nil {
+			t.Errorf("the JSON export: %v %.200s", err, texts[1])
+		}
+		// A bad table is reported by line and leaves the units alone.
+		tb.do(chromedp.SetValue(chromedp.CSS(`#workbench [data-field="csv"]`), "name,population\nA,12\nB,lots\n"),
+			chromedp.Click(chromedp.CSS(`#workbench [data-action="use-csv"]`)))
+		note := eval[string](tb, `document.querySelector('#workbench [data-role=notice]').textContent`)
+		if !strings.Contains(note, "line 3") {
+			t.Errorf("bad CSV notice: %q", note)
+		}
+		if n := eval[int](tb, `document.querySelectorAll('#workbench tr[data-unit]').length`); n != 3 {
+			t.Errorf("a bad table changed the units (%d rows)", n)
+		}
+		tb.screenshot("calculator-csv-desktop.png", 1280, 900, false)
+		tb.checkClean(origin)
+	})
+
+	t.Run("offline file", func(t *testing.T) {
+		tb := newTab(t, bctx)
+		file := "file://" + filepath.ToSlash(filepath.Join(dir, "offline.html"))
+		tb.do(chromedp.Navigate(file))
+		tb.waitFor("live", allLive)
+		sameRows(t, "offline", tb.rows(), goldenRows(t, "calculator"))
+		sel := chromedp.CSS(`#workbench [data-field="seats"]`)
+		tb.do(chromedp.Focus(sel), chromedp.Evaluate[chromedp.Void](`document.activeElement.select()`), chromedp.SendKeys(sel, "60"))
+		tb.waitFor("60 seats", `document.querySelector('#workbench table.sc-results').dataset.house === '60'`)
+		tb.screenshot("offline-phone.png", 390, 844, true)
+		tb.checkClean(file)
+	})
+}
+
+func b64url(s string) string { return base64.RawURLEncoding.EncodeToString([]byte(s)) }
