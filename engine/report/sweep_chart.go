@@ -30,7 +30,7 @@ const (
 // repeat with a dash pattern.
 var chartColors = []string{
 	"#1b6f8a", "#c2571a", "#5a4fa3", "#3f8f3a", "#b02e4c", "#8a6d1b",
-	"#2a4d8f", "#7a3f8f", "#2f7f72", "#a3441b", "#556b2f", "#6b4f3a",
+	"#2a4d8f", "#7a3f8f", "#d0608a", "#a3441b", "#556b2f", "#6b4f3a",
 }
 
 var chartDashes = []string{"", "6 3", "2 3", "8 3 2 3"}
