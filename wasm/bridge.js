@@ -196,7 +196,11 @@ class Calculator {
       r = { error: { message: String(e && e.message ? e.message : e) } };
     }
     if (!r || typeof r !== 'object') r = { error: { message: 'the engine gave no answer' } };
-    if (!r.state) r.state = 'error';
+    if (!r.state) {
+      // An error from the API layer itself: the request never reached the calculator.
+      const m = r.error && r.error.message ? r.error.message : 'the engine gave no answer';
+      r = { state: 'error', fatal: true, error: { message: m } };
+    }
     return r;
   }
 

@@ -9,23 +9,118 @@ import (
 	"seatsmith/site/render"
 )
 
-func TestLiveVessaria(t *testing.T) {
+func vessaria(t *testing.T) string {
+	t.Helper()
 	data, err := os.ReadFile("../../testdata/demo/vessaria.json")
 	if err != nil {
 		t.Fatal(err)
 	}
-	req := jsondoc.NewObject().Set("block_text", jsondoc.Str(string(data))).Set("id", jsondoc.Str("v")).Set("editor", jsondoc.Boolean(true)).Set("export", jsondoc.Boolean(true))
-	resp := Live(req)
+	return string(data)
+}
+
+func request(block string, kv ...any) *jsondoc.Value {
+	req := jsondoc.NewObject().Set("block_text", jsondoc.Str(block)).Set("id", jsondoc.Str("v"))
+	for i := 0; i+1 < len(kv); i += 2 {
+		req.Set(kv[i].(string), kv[i+1].(*jsondoc.Value))
+	}
+	return req
+}
+
+func outputHTML(t *testing.T, resp *jsondoc.Value) string {
+	t.Helper()
+	n, ok := render.FromDoc(resp.Get("output"))
+	if !ok {
+		t.Fatalf("no output tree in %s", jsondoc.Marshal(resp))
+	}
+	return render.HTML(n)
+}
+
+func TestLive(t *testing.T) {
+	resp := Live(request(vessaria(t), "editor", jsondoc.Boolean(true), "export", jsondoc.Boolean(true)))
 	if resp.Get("state").Text != "live" {
 		t.Fatalf("state %s: %s", resp.Get("state").Text, jsondoc.Marshal(resp.Get("error")))
 	}
-	n, ok := render.FromDoc(resp.Get("output"))
-	if !ok {
-		t.Fatal("output is not a tree")
+	h := outputHTML(t, resp)
+	// Huntington–Hill, 40 seats: Orlen 12 (the CLI gives the same).
+	for _, w := range []string{`data-unit="Orlen" data-seats="12"`, `data-unit="Marrowgate" data-seats="1"`, "Not an official apportionment"} {
+		if !strings.Contains(h, w) {
+			t.Errorf("output lacks %s", w)
+		}
 	}
-	h := render.HTML(n)
-	if !strings.Contains(h, `data-unit="Orlen" data-seats="12"`) {
-		t.Errorf("no Orlen row: %s", h[:400])
+	if _, ok := render.FromDoc(resp.Get("editor")); !ok {
+		t.Error("no editor tree")
 	}
-	os.WriteFile(os.Getenv("DUMP"), []byte(h), 0o644)
+	if !strings.Contains(resp.Get("csv").Text, "Orlen,2694457,13.142784,12,NO") {
+		t.Errorf("csv export: %s", resp.Get("csv").Text)
+	}
+	if p := resp.Get("scenario").Get("units").Items[0].Get("population"); p.Kind != jsondoc.String || p.Text != "2694457" {
+		t.Errorf("scenario populations are not strings: %s", jsondoc.Marshal(p))
+	}
+}
+
+func TestLiveErrors(t *testing.T) {
+	doc, _ := jsondoc.Parse([]byte(`{"seats": "40", "method": "webster", "units": [{"name": "A", "population": "1"}, {"name": "B", "population": "12x"}]}`))
+	resp := Live(request(vessaria(t), "scenario", doc))
+	if resp.Get("state").Text != "error" {
+		t.Fatalf("state %s", resp.Get("state").Text)
+	}
+	e := resp.Get("error")
+	if e.Get("field").Text != "units.1.population" || !strings.Contains(e.Get("message").Text, "Unit 2") {
+		t.Errorf("error %s", jsondoc.Marshal(e))
+	}
+	if h := outputHTML(t, resp); !strings.Contains(h, `role="alert"`) {
+		t.Errorf("no alert in %s", h)
+	}
+	// An engine error about a unit names the unit's field too.
+	doc, _ = jsondoc.Parse([]byte(`{"seats": "2", "method": "webster", "units": [{"name": "A", "population": "1", "min": "3"}]}`))
+	e = Live(request(vessaria(t), "scenario", doc)).Get("error")
+	if e.Get("field").Text != "min" {
+		t.Errorf("min error %s", jsondoc.Marshal(e))
+	}
+	// A block that cannot be read is fatal, and never panics.
+	for _, bad := range []*jsondoc.Value{nil, jsondoc.Str("x"), request("{"), request(`{"units": []}`), jsondoc.NewObject()} {
+		r := Live(bad)
+		if r.Get("state").Text != "error" || r.Get("fatal") == nil {
+			t.Errorf("bad request answered %s", jsondoc.Marshal(r))
+		}
+	}
+}
+
+func TestLiveLoad(t *testing.T) {
+	load := jsondoc.NewObject().Set("name", jsondoc.Str("t.csv")).Set("text", jsondoc.Str("name,population\nNorth,600\nSouth,400\n"))
+	resp := Live(request(vessaria(t), "load", load))
+	if resp.Get("state").Text != "live" || resp.Get("load_error") != nil {
+		t.Fatalf("%s", jsondoc.Marshal(resp))
+	}
+	sc := resp.Get("scenario")
+	if sc.Get("seats").Text != "40" || len(sc.Get("units").Items) != 2 {
+		t.Errorf("scenario after the table: %s", jsondoc.Marshal(sc))
+	}
+	if h := outputHTML(t, resp); !strings.Contains(h, `data-unit="North" data-seats="24"`) {
+		t.Errorf("North: %s", h)
+	}
+	bad := jsondoc.NewObject().Set("name", jsondoc.Str("t.csv")).Set("text", jsondoc.Str("name,population\nNorth,many\n"))
+	resp = Live(request(vessaria(t), "load", bad))
+	le := resp.Get("load_error")
+	if le == nil || le.Get("line").Text != "2" {
+		t.Fatalf("load error %s", jsondoc.Marshal(le))
+	}
+	if len(resp.Get("scenario").Get("units").Items) != 9 {
+		t.Error("a bad table replaced the units")
+	}
+}
+
+func TestParseBlockErrors(t *testing.T) {
+	cases := []struct{ js, want string }{
+		{`{"method": "webster", "units": [{"name": "A", "population": 1}]}`, "seats: missing"},
+		{`{"seats": 3, "method": "webster", "units": [{"name": "A", "population": 1}], "compare": ["best"]}`, "compare[0]"},
+		{`{"seats": 3, "method": "webster", "units": [{"name": "A", "population": 1}], "claims": [{"id": "x", "kind": "seats", "unit": "Z", "seats": 1}]}`, "not a unit"},
+	}
+	for _, c := range cases {
+		v, _ := jsondoc.Parse([]byte(c.js))
+		_, err := ParseBlock("page.html", "c", Compact, v)
+		if err == nil || !strings.Contains(err.Error(), c.want) || !strings.Contains(err.Error(), "page.html") {
+			t.Errorf("%s: got %v, want %q", c.js, err, c.want)
+		}
+	}
 }

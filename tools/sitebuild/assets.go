@@ -7,7 +7,6 @@ import (
 	"encoding/hex"
 	"fmt"
 	"os"
-	"os/exec"
 	"path/filepath"
 	"regexp"
 	"strings"
@@ -80,19 +79,4 @@ func moduleRoot(dir string) (string, error) {
 		}
 		d = up
 	}
-}
-
-// wasmExecJS returns Go's wasm_exec.js, the runtime support the engine
-// needs in the browser.
-func wasmExecJS() ([]byte, error) {
-	out, err := exec.Command("go", "env", "GOROOT").Output()
-	if err != nil {
-		return nil, fmt.Errorf("go env GOROOT: %v", err)
-	}
-	p := filepath.Join(strings.TrimSpace(string(out)), "lib", "wasm", "wasm_exec.js")
-	data, err := os.ReadFile(p)
-	if err != nil {
-		return nil, fmt.Errorf("cannot read Go's wasm_exec.js: %v", err)
-	}
-	return data, nil
 }

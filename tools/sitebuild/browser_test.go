@@ -23,6 +23,7 @@ import (
 
 	"github.com/chromedp/cdproto/network"
 	"github.com/chromedp/chromedp"
+	"github.com/chromedp/chromedp/kb"
 )
 
 var (
@@ -44,7 +45,7 @@ func builtSite(t *testing.T) string {
 		if p := os.Getenv("SEATSMITH_WASM"); p != "" {
 			eng, err = os.ReadFile(p)
 		} else {
-			eng, err = buildEngine(siteSrc, "")
+			eng, err = buildEngine("")
 		}
 		if err != nil {
 			builtErr = err
@@ -364,6 +365,39 @@ func TestBrowser(t *testing.T) {
 		}
 		if !strings.Contains(eval[string](tb, `location.hash`), "assembly=") {
 			t.Error("the edit is not in the fragment")
+		}
+		// The claims in the prose follow the edit: Orlen no longer gets 12.
+		if got := eval[string](tb, `document.querySelector('[data-claim-ref="orlen-hh"]').dataset.holds`); got != "false" {
+			t.Errorf("the inline claim shows holds=%s after the edit", got)
+		}
+		// The keyboard alone changes the method.
+		tb.do(chromedp.Focus(chromedp.CSS(`#assembly [data-field="method"]`)), chromedp.KeyEvent(kb.ArrowUp))
+		tb.waitFor("another method", `document.querySelector('#assembly table.sc-results').dataset.method !== 'huntington-hill'`)
+		tb.checkClean(origin)
+	})
+
+	t.Run("embedded without prerendering", func(t *testing.T) {
+		page := `<!doctype html><html lang="en"><head><meta charset="utf-8"><title>Embedded</title>
+<script type="module" src="embed/bridge.js"></script></head><body>
+<p>A page elsewhere.</p>
+<div class="seatsmith" id="mine" data-seatsmith="compact">
+<script type="application/json">{"seats": 15, "method": "webster", "units": [{"name": "North", "population": 5200}, {"name": "South", "population": 3900}],
+ "claims": [{"id": "north", "kind": "seats", "unit": "North", "seats": 9}]}</script>
+</div></body></html>`
+		if err := os.WriteFile(filepath.Join(dir, "embedded-test.html"), []byte(page), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		// The page has no icon of its own; the browser asks for this one.
+		os.WriteFile(filepath.Join(dir, "favicon.ico"), nil, 0o644)
+		tb := newTab(t, bctx)
+		tb.do(chromedp.Navigate(origin + "embedded-test.html"))
+		tb.waitFor("live", allLive)
+		sameRows(t, "embedded", tb.rows(), []row{{"mine", "North", "9"}, {"mine", "South", "6"}})
+		if eval[string](tb, `document.querySelector('#mine [data-claim="north"]').dataset.holds`) != "true" {
+			t.Error("the embedded claim does not hold")
+		}
+		if eval[string](tb, `getComputedStyle(document.querySelector('#mine')).getPropertyValue('--seatsmith-styled').trim()`) != "1" {
+			t.Error("the bridge did not load the calculator's styles")
 		}
 		tb.checkClean(origin)
 	})

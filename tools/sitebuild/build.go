@@ -111,7 +111,7 @@ func Build(opt Options) (*Stats, error) {
 	add(fingerprint("assets", "wasm_exec.js", execMin))
 	eng := opt.Engine
 	if eng == nil {
-		if eng, err = buildEngine(opt.Src, opt.Wasm); err != nil {
+		if eng, err = buildEngine(opt.Wasm); err != nil {
 			return nil, err
 		}
 	}

@@ -3,14 +3,15 @@ package main
 import (
 	"fmt"
 	"os"
-	"os/exec"
 	"path/filepath"
+
+	"seatsmith/wasm/wasmbuild"
 )
 
-// buildEngine compiles the WebAssembly engine (package ./wasm of the
-// module holding src) and returns its bytes. A prebuilt file is used
+// buildEngine compiles the WebAssembly engine (package seatsmith/wasm)
+// with the release flags and returns its bytes. A prebuilt file is used
 // instead when prebuilt is not empty.
-func buildEngine(src, prebuilt string) ([]byte, error) {
+func buildEngine(prebuilt string) ([]byte, error) {
 	if prebuilt != "" {
 		data, err := os.ReadFile(prebuilt)
 		if err != nil {
@@ -18,21 +19,28 @@ func buildEngine(src, prebuilt string) ([]byte, error) {
 		}
 		return data, nil
 	}
-	root, err := moduleRoot(src)
-	if err != nil {
-		return nil, err
-	}
 	tmp, err := os.MkdirTemp("", "sitebuild-engine-")
 	if err != nil {
 		return nil, err
 	}
 	defer os.RemoveAll(tmp)
-	out := filepath.Join(tmp, "seatsmith.wasm")
-	cmd := exec.Command("go", "build", "-trimpath", "-ldflags=-s -w", "-o", out, "./wasm")
-	cmd.Dir = root
-	cmd.Env = append(os.Environ(), "GOOS=js", "GOARCH=wasm")
-	if msg, err := cmd.CombinedOutput(); err != nil {
-		return nil, fmt.Errorf("building the WebAssembly engine: %v\n%s", err, msg)
+	wasm, _, err := wasmbuild.Build(filepath.Join(tmp, "engine"))
+	if err != nil {
+		return nil, fmt.Errorf("building the WebAssembly engine: %v", err)
 	}
-	return os.ReadFile(out)
+	return os.ReadFile(wasm)
+}
+
+// wasmExecJS returns Go's wasm_exec.js, the runtime support the engine
+// needs in the browser.
+func wasmExecJS() ([]byte, error) {
+	p, err := wasmbuild.ExecJS()
+	if err != nil {
+		return nil, err
+	}
+	data, err := os.ReadFile(p)
+	if err != nil {
+		return nil, fmt.Errorf("cannot read Go's wasm_exec.js: %v", err)
+	}
+	return data, nil
 }
