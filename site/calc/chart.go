@@ -22,7 +22,7 @@ func chart(r *engine.Result) *Node {
 	}
 	const (
 		width  = 540.0
-		labelW = 124.0
+		labelW = 140.0
 		left   = labelW + 8
 		right  = 30.0
 		top    = 30.0
@@ -96,8 +96,8 @@ func tickStep(max float64) float64 {
 
 func shortName(s string) string {
 	r := []rune(s)
-	if len(r) > 18 {
-		return string(r[:17]) + "…"
+	if len(r) > 17 {
+		return string(r[:16]) + "…"
 	}
 	return s
 }

@@ -180,7 +180,7 @@ func resultsTable(o *Outcome) *Node {
 	t := El("table", "class", "sc-results", "data-role", "results", "data-method", r.Method.String(), "data-house", strconv.Itoa(r.Seats))
 	t.Add(Wrap("caption", "Seats by "+r.Method.Name()+", "+plural(r.Seats, "seat"), "id", o.Block.ID+"-results-caption"))
 	head := El("tr")
-	cols := []string{"Unit", "Population", "Quota", "Seats", "Quota check"}
+	cols := []string{"Unit", "Seats", "Quota", "Quota check", "Population"}
 	if full {
 		if div {
 			cols = append(cols, "Last seat's priority", "Next seat's priority")
@@ -200,10 +200,10 @@ func resultsTable(o *Outcome) *Node {
 		row := El("tr", "data-unit", u.Name, "data-seats", strconv.Itoa(u.Seats), "data-quota", u.Quota.Text, "class", qc)
 		row.SetIf(u.Tied, "data-tied", "true")
 		row.Add(Wrap("th", u.Name, "scope", "row"))
-		row.Add(Wrap("td", Group(u.Population.String()), "class", "num"))
-		row.Add(Wrap("td", u.Quota.Text, "class", "num", "title", "exactly "+u.Quota.Num+"/"+u.Quota.Den))
 		row.Add(Wrap("td", strconv.Itoa(u.Seats), "class", "num sc-seats"))
+		row.Add(Wrap("td", u.Quota.Text, "class", "num", "title", "exactly "+u.Quota.Num+"/"+u.Quota.Den))
 		row.Add(Wrap("td", qn, "class", "sc-qcheck"))
+		row.Add(Wrap("td", Group(u.Population.String()), "class", "num"))
 		if full {
 			if div {
 				row.Add(Wrap("td", valueText(u.Last), "class", "num"), Wrap("td", valueText(u.Next), "class", "num"))
@@ -224,8 +224,8 @@ func resultsTable(o *Outcome) *Node {
 	}
 	t.Add(body)
 	foot := El("tr")
-	foot.Add(Wrap("th", "Total", "scope", "row"), Wrap("td", Group(r.Total), "class", "num"), Wrap("td", strconv.Itoa(r.Seats), "class", "num"),
-		Wrap("td", strconv.Itoa(r.Seats-r.Unassigned), "class", "num sc-seats"), El("td"))
+	foot.Add(Wrap("th", "Total", "scope", "row"), Wrap("td", strconv.Itoa(r.Seats-r.Unassigned), "class", "num sc-seats"),
+		Wrap("td", strconv.Itoa(r.Seats), "class", "num"), El("td"), Wrap("td", Group(r.Total), "class", "num"))
 	for k := 5; k < len(cols); k++ {
 		foot.Add(El("td"))
 	}
@@ -253,7 +253,7 @@ func explanation(o *Outcome) *Node {
 			p.Add(Wrap("strong", valueText(&d.Low), "data-role", "divisor-low"))
 			p.AddText(" and ")
 			p.Add(Wrap("strong", hi, "data-role", "divisor-high"))
-			p.AddText(" (ends excluded) and round at " + r.Method.Name() + "'s signposts: every unit gets exactly the seats above. For example D = ")
+			p.AddText(" (ends excluded) and round at the signposts of " + r.Method.Name() + ": every unit gets exactly the seats above. For example D = ")
 			p.Add(Wrap("strong", Group(d.Certificate), "data-role", "divisor-example"))
 			p.AddText(", checked exactly.")
 		}
