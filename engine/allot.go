@@ -65,9 +65,14 @@ func (pr *problem) allot(detail Detail) (*Result, error) {
 		pr.quota(i, total, u, detail != 0)
 	}
 	res.Unassigned = pr.h - sum
+	if o.lr != nil {
+		res.Ties = append(res.Ties, o.lr.early...)
+	}
 	if o.tie != nil {
-		res.Ties = []Tie{*o.tie}
-		for _, j := range o.tie.Units {
+		res.Ties = append(res.Ties, *o.tie)
+	}
+	for _, t := range res.Ties {
+		for _, j := range t.Units {
 			res.Units[j].Tied = true
 		}
 	}
@@ -263,8 +268,10 @@ func (pr *problem) explainRemainder(l *lrOutcome, res *Result) {
 	if r == nil {
 		return
 	}
-	q := ratValue(r.quota)
-	res.Quota = &q
+	if r.quota != nil {
+		q := ratValue(r.quota)
+		res.Quota = &q
+	}
 	rank := make([]int, len(r.units))
 	for k, j := range r.ranked {
 		rank[j] = k + 1

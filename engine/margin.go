@@ -9,8 +9,8 @@ import "math/big"
 // units fixed, unit i's (a+1)-th seat is won outright exactly when its
 // priority p'/s(a) exceeds the weakest seat another unit holds beyond its
 // minimum, so p' is the least whole number above that value times s(a). It
-// loses its a-th seat outright exactly when p''/s(a-1) falls below the best
-// seat another unit does not hold.
+// stops holding its a-th seat outright as soon as p''/s(a-1) falls to the
+// best seat another unit does not hold (at equality the two tie).
 //
 // Largest-remainder methods (and any method with a threshold) change every
 // quota when one population moves, so their margins come from an exact
@@ -155,25 +155,24 @@ func (pr *problem) loseClosed(i, a int, open topTwo) (uint64, bool) {
 	if t.n == 0 {
 		return pr.pops[i], true // only an empty unit loses its first seat
 	}
-	var keep *big.Int // the greatest population that loses the seat
+	// The greatest population at which the a-th seat is no longer held
+	// outright: p''/s(a-1) <= best, a tie at equality.
+	var keep *big.Int
 	if t.sq {
 		x := new(big.Int).Mul(bigU(best.p), bigU(best.p))
 		x.Mul(x, bigU(t.n))
-		x.Sub(x, big.NewInt(1))
 		x.Quo(x, bigU(sb.n))
 		keep = x.Sqrt(x)
 	} else {
 		num := new(big.Int).Mul(bigU(best.p), bigU(sb.d))
 		num.Mul(num, bigU(t.n))
-		num.Sub(num, big.NewInt(1))
 		den := new(big.Int).Mul(bigU(t.d), bigU(sb.n))
 		keep = num.Quo(num, den)
 	}
-	k := keep.Uint64()
-	if !keep.IsUint64() || k >= pr.pops[i] {
+	if !keep.IsUint64() || keep.Uint64() >= pr.pops[i] {
 		return 1, true
 	}
-	return pr.pops[i] - k, true
+	return pr.pops[i] - keep.Uint64(), true
 }
 
 // withPop returns a copy of the problem with unit i's population set to p,
@@ -210,68 +209,321 @@ func (pr *problem) outrightAt(i int, p uint64) int {
 	return o.seats[i]
 }
 
-// stretchEnd returns, for the Droop quota, the last change x' >= x (in the
-// direction dir) at which the quota stays what it is at change x; for other
-// methods x itself.
-func (pr *problem) stretchEnd(x uint64, dir int) uint64 {
-	if pr.m != Droop {
-		return x
+// The searches below find the least change x in [1, limit] (people added
+// for a gain, taken away for a loss) at which unit i holds more, or fewer,
+// seats outright. The range of x is cut into pieces on which the outcome is
+// monotone in x, and each piece is searched by bisection:
+//
+//   - A threshold changes who takes part at known points: unit j drops out
+//     once p_j/P falls below the threshold and unit i joins once its own
+//     share reaches it. These points cut x into segments with a fixed set
+//     of eligible units. A population of zero (the end of a loss) is a
+//     segment of its own, since under Adams, Dean and Huntington–Hill it
+//     changes which house sizes are feasible.
+//   - Within a segment a divisor method is population monotone, and so is
+//     Hamilton: a growing unit's quota rises and every other quota falls.
+//   - The Droop quota floor(P/(H+1))+1 steps up with the total, and a step
+//     can cost the growing unit a seat, so each pass that contains unit i
+//     also cuts the segment where its quota steps. With the quota of every
+//     pass fixed, the unit's seats rise with its population.
+//
+// Within a piece the changes with an apportionment form an interval, so the
+// search finds its end first.
+//
+// With bounds, a largest-remainder pass fixes units at their bounds and
+// apportions the rest again, and which units it fixes changes with the
+// population: the outcome is not monotone between those points, which the
+// pieces above do not locate. For these the first scanFirst changes are
+// visited one by one, so a margin of up to scanFirst people (or units of
+// the last decimal place) is exact; a larger one is found by the piecewise
+// search, which assumes the pass structure does not change inside a piece.
+
+// eligibilityBreaks returns the changes x in [1, limit] at which the set of
+// eligible units, or the populated state of unit i, differs from that at
+// x-1, in increasing order.
+func (pr *problem) eligibilityBreaks(i int, dir int, limit uint64) []uint64 {
+	p := pr.pops[i]
+	var out []uint64
+	add := func(x *big.Int) {
+		if x.Sign() > 0 && x.IsUint64() && x.Uint64() <= limit {
+			out = append(out, x.Uint64())
+		}
 	}
-	total := sum128(pr.pops).big()
-	w := new(big.Int).Mul(bigU(pow10(pr.places)), big.NewInt(int64(pr.h)+1))
-	t := new(big.Int).Set(total)
-	if dir > 0 {
-		t.Add(t, bigU(x))
-		k := new(big.Int).Quo(t, w)
-		end := k.Add(k, big.NewInt(1)).Mul(k, w)
-		end.Sub(end, big.NewInt(1))
-		end.Sub(end, total) // x at the stretch's end
-		return end.Uint64()
+	if dir < 0 && p <= limit {
+		add(bigU(p)) // the population reaches zero
 	}
-	t.Sub(t, bigU(x))
-	k := new(big.Int).Quo(t, w)
-	end := new(big.Int).Sub(total, k.Mul(k, w))
-	return end.Uint64()
+	if !pr.threshold.IsZero() {
+		var rest big.Int // the population of the other units
+		for j, v := range pr.pops {
+			if j != i {
+				rest.Add(&rest, bigU(v))
+			}
+		}
+		c := bigU(pr.threshold.Coef)
+		unit := bigU(pow10(int(pr.threshold.Places)))
+		pb := bigU(p)
+		for j, v := range pr.pops {
+			if j == i {
+				// i takes part once p'·10^k >= c·(rest + p'), that is
+				// p' >= c·rest / (10^k - c).
+				d := new(big.Int).Sub(unit, c)
+				if d.Sign() <= 0 {
+					continue
+				}
+				u := new(big.Int).Mul(c, &rest)
+				u.Add(u, new(big.Int).Sub(d, big.NewInt(1)))
+				u.Quo(u, d) // the least p' at which i takes part
+				if dir > 0 {
+					add(new(big.Int).Sub(u, pb))
+				} else {
+					add(new(big.Int).Add(new(big.Int).Sub(pb, u), big.NewInt(1)))
+				}
+				continue
+			}
+			// j takes part while p' <= floor(p_j·10^k / c) - rest.
+			vj := new(big.Int).Mul(bigU(v), unit)
+			vj.Quo(vj, c)
+			vj.Sub(vj, &rest)
+			if dir > 0 {
+				add(new(big.Int).Add(new(big.Int).Sub(vj, pb), big.NewInt(1)))
+			} else {
+				add(new(big.Int).Sub(pb, vj))
+			}
+		}
+	}
+	sortUint64s(out)
+	return out
 }
 
-// searchChange returns the least x in [1, limit] with ok(x), where ok holds
-// monotonically at stretch ends and within each stretch.
-func (pr *problem) searchChange(limit uint64, dir int, ok func(uint64) bool) (uint64, bool) {
+// pieceEnd returns the last change x' >= x, in the direction dir, at which
+// the Droop quota of every pass containing unit i stays what it is at x;
+// for the other methods it returns limit.
+func (pr *problem) pieceEnd(i int, x uint64, dir int, limit uint64) uint64 {
+	if pr.m != Droop {
+		return limit
+	}
+	p := pr.pops[i] + x
+	if dir < 0 {
+		p = pr.pops[i] - x
+	}
+	q := pr.withPop(i, p)
+	var passes []*lrRound
+	if q != nil {
+		if o, err := q.remainderSeats(); err == nil {
+			passes = o.passes
+		}
+	}
+	if passes == nil {
+		// No apportionment at x: use the first pass's quota over the
+		// eligible units.
+		if q == nil {
+			q = pr.withPopAnyway(i, p)
+		}
+		r := &lrRound{seats: pr.h, units: []int{i}}
+		r.total = q.eligibleTotal()
+		passes = []*lrRound{r}
+	}
+	end := limit
+	w0 := bigU(pow10(pr.places))
+	for _, r := range passes {
+		if !containsInt(r.units, i) || r.seats == 0 {
+			continue
+		}
+		w := new(big.Int).Mul(w0, big.NewInt(int64(r.seats)+1))
+		t := r.total.big()
+		k := new(big.Int).Quo(t, w)
+		var room *big.Int // further change with the same quota
+		if dir > 0 {
+			room = k.Add(k, big.NewInt(1)).Mul(k, w)
+			room.Sub(room, big.NewInt(1))
+			room.Sub(room, t)
+		} else {
+			room = new(big.Int).Sub(t, k.Mul(k, w))
+		}
+		e := new(big.Int).Add(room, bigU(x))
+		if e.IsUint64() && e.Uint64() < end {
+			end = e.Uint64()
+		}
+	}
+	return end
+}
+
+// withPopAnyway is withPop without the feasibility check.
+func (pr *problem) withPopAnyway(i int, p uint64) *problem {
+	q := *pr
+	q.pops = append([]uint64(nil), pr.pops...)
+	q.pops[i] = p
+	q.eligible = append([]bool(nil), pr.eligible...)
+	if !pr.threshold.IsZero() {
+		total := sum128(q.pops)
+		for j, v := range q.pops {
+			q.eligible[j] = !belowShare(v, total, pr.threshold)
+		}
+	}
+	return &q
+}
+
+func containsInt(s []int, v int) bool {
+	for _, u := range s {
+		if u == v {
+			return true
+		}
+	}
+	return false
+}
+
+func sortUint64s(s []uint64) {
+	for k := 1; k < len(s); k++ {
+		for j := k; j > 0 && s[j] < s[j-1]; j-- {
+			s[j], s[j-1] = s[j-1], s[j]
+		}
+	}
+}
+
+// searchChange returns the least x in [1, limit] at which seats(x) meets
+// want. seats returns -1 where no apportionment exists.
+func (pr *problem) searchChange(i int, dir int, limit uint64, seats func(uint64) int, want func(int) bool) (uint64, bool) {
 	if limit == 0 {
 		return 0, false
 	}
-	end := func(x uint64) uint64 { return min(pr.stretchEnd(x, dir), limit) }
-	atEnd := func(x uint64) bool { return ok(end(x)) }
-	// Exponential probe for a stretch whose end satisfies.
-	var lo, hi uint64 = 0, 1
-	for !atEnd(hi) {
-		if hi == limit {
+	from := uint64(1)
+	if pr.m.IsLargestRemainder() && pr.hasBounds() {
+		// With bounds, which units a largest-remainder pass fixes at a
+		// bound changes with the population, and with it every later
+		// pass: the outcome need not be monotone between those points.
+		// Visit the first changes one by one.
+		for ; from <= min(limit, scanFirst); from++ {
+			if s := seats(from); s >= 0 && want(s) {
+				return from, true
+			}
+		}
+		if from > limit {
 			return 0, false
 		}
-		lo = hi
-		hi = min(hi*2, limit)
 	}
-	// Least x in (lo, hi] whose stretch end satisfies: a stretch start.
+	breaks := pr.eligibilityBreaks(i, dir, limit)
+	starts := append([]uint64{1}, breaks...)
+	for k, s := range starts {
+		if k > 0 && s == starts[k-1] {
+			continue
+		}
+		e := limit
+		for _, b := range breaks {
+			if b > s {
+				e = b - 1
+				break
+			}
+		}
+		if e < from {
+			continue
+		}
+		pieces := 0
+		for x := max(s, from); x <= e; {
+			end := min(pr.pieceEnd(i, x, dir, e), e)
+			if pieces++; pieces > maxPieces {
+				// Very many quota steps: bisect over the ends of the
+				// pieces instead of visiting each (see below).
+				return pr.searchPieceEnds(i, x, e, dir, seats, want)
+			}
+			if got, ok := pr.searchPiece(x, end, dir, seats, want); ok {
+				return got, true
+			}
+			if end == e {
+				break
+			}
+			x = end + 1
+		}
+	}
+	return 0, false
+}
+
+// scanFirst is how many changes are visited one by one for a
+// largest-remainder method with bounds.
+const scanFirst = 4096
+
+// hasBounds reports whether any eligible unit has a minimum or a maximum.
+func (pr *problem) hasBounds() bool {
+	for j := range pr.pops {
+		if pr.eligible[j] && (pr.min[j] > 0 || pr.max[j] != noCap) {
+			return true
+		}
+	}
+	return false
+}
+
+// maxPieces bounds the Droop quota steps visited one by one in a segment.
+// A margin that needs more steps (a unit tens of thousands of quota steps
+// from its next seat, which for the Droop quota means a change of more
+// than maxPieces·(H+1) people) is found by bisection over the ends of the
+// pieces, which assumes that the outcome at those ends rises with the
+// change, as it does when the quota's steps are small against the
+// populations.
+const maxPieces = 4096
+
+// searchPieceEnds bisects over the piece ends in [x, e] for the first one
+// that meets want, then searches inside that piece.
+func (pr *problem) searchPieceEnds(i int, x, e uint64, dir int, seats func(uint64) int, want func(int) bool) (uint64, bool) {
+	ok := func(y uint64) bool { s := seats(y); return s >= 0 && want(s) }
+	end := func(y uint64) uint64 { return min(pr.pieceEnd(i, y, dir, e), e) }
+	if !ok(e) {
+		return 0, false
+	}
+	lo, hi := x, e // the piece holding lo fails at its end; e succeeds
+	if ok(end(lo)) {
+		return pr.searchPiece(lo, end(lo), dir, seats, want)
+	}
 	for hi-lo > 1 {
 		mid := lo + (hi-lo)/2
-		if atEnd(mid) {
+		if ok(end(mid)) {
 			hi = mid
 		} else {
 			lo = mid
 		}
 	}
-	start, stop := hi, end(hi)
-	// Least x in [start, stop] with ok(x).
-	lo, hi = start-1, stop
-	for hi-lo > 1 {
-		mid := lo + (hi-lo)/2
-		if ok(mid) {
-			hi = mid
+	// hi's piece succeeds at its end and lo's does not: hi starts it.
+	return pr.searchPiece(hi, end(hi), dir, seats, want)
+}
+
+// searchPiece searches [lo, hi], where the outcome is monotone and the
+// feasible changes form an interval.
+func (pr *problem) searchPiece(lo, hi uint64, dir int, seats func(uint64) int, want func(int) bool) (uint64, bool) {
+	feasible := func(x uint64) bool { return seats(x) >= 0 }
+	if !feasible(hi) {
+		// The feasible changes form a prefix: find its end. (A loss can
+		// run into infeasible house sizes; with bounds, a largest-
+		// remainder pass can fix more seats at the bounds than the house
+		// holds once one unit is very large.)
+		if !feasible(lo) {
+			return 0, false
+		}
+		a, b := lo, hi // feasible(a), !feasible(b)
+		for b-a > 1 {
+			m := a + (b-a)/2
+			if feasible(m) {
+				a = m
+			} else {
+				b = m
+			}
+		}
+		hi = a
+	}
+	ok := func(x uint64) bool { s := seats(x); return s >= 0 && want(s) }
+	if !ok(hi) {
+		return 0, false
+	}
+	if ok(lo) {
+		return lo, true
+	}
+	a, b := lo, hi // !ok(a), ok(b)
+	for b-a > 1 {
+		m := a + (b-a)/2
+		if ok(m) {
+			b = m
 		} else {
-			lo = mid
+			a = m
 		}
 	}
-	return hi, true
+	return b, true
 }
 
 func (pr *problem) gainSearch(i, a int) (uint64, bool) {
@@ -279,19 +531,49 @@ func (pr *problem) gainSearch(i, a int) (uint64, bool) {
 		return 0, false
 	}
 	p := pr.pops[i]
-	return pr.searchChange(MaxCoefficient-p, +1, func(x uint64) bool { return pr.outrightAt(i, p+x) > a })
+	return pr.searchChange(i, +1, min(MaxCoefficient-p, pr.gainLimit(i)),
+		func(x uint64) int { return pr.outrightAt(i, p+x) },
+		func(s int) bool { return s > a })
+}
+
+// gainLimit bounds the useful gain of unit i: past it every other unit has
+// dropped below the threshold (if there is one) and unit i takes every seat
+// the bounds leave it, so more people change nothing. With rest the other
+// units' population and s one person in scaled units, (2H+2)·(rest +
+// (H+2)·s) people is enough for both quotas: the Hare quota gives unit i
+// H-1 seats once p > (H-1)·rest and the last one once its remainder beats
+// every other quota, p > (2H-1)·rest; the Droop quota gives it H seats
+// once p >= H·(rest + (H+1)·s). Add rest/threshold for the threshold.
+func (pr *problem) gainLimit(i int) uint64 {
+	var rest big.Int
+	for j, v := range pr.pops {
+		if j != i {
+			rest.Add(&rest, bigU(v))
+		}
+	}
+	s := bigU(pow10(pr.places))
+	h := big.NewInt(int64(pr.h))
+	u := new(big.Int).Mul(new(big.Int).Add(h, big.NewInt(2)), s)
+	u.Add(u, &rest)
+	u.Mul(u, new(big.Int).Add(new(big.Int).Lsh(h, 1), big.NewInt(2)))
+	if !pr.threshold.IsZero() {
+		t := new(big.Int).Mul(&rest, bigU(pow10(int(pr.threshold.Places))))
+		t.Quo(t, bigU(pr.threshold.Coef))
+		u.Add(u, t)
+	}
+	u.Add(u, big.NewInt(1))
+	if !u.IsUint64() || u.Uint64() > MaxCoefficient {
+		return MaxCoefficient
+	}
+	return u.Uint64()
 }
 
 func (pr *problem) loseSearch(i, a int) (uint64, bool) {
-	if a <= pr.min[i] && pr.threshold.IsZero() {
-		return 0, false
-	}
-	if a == 0 {
+	if a == 0 || (a <= pr.min[i] && pr.threshold.IsZero()) {
 		return 0, false
 	}
 	p := pr.pops[i]
-	return pr.searchChange(p, -1, func(x uint64) bool {
-		s := pr.outrightAt(i, p-x)
-		return s >= 0 && s < a
-	})
+	return pr.searchChange(i, -1, p,
+		func(x uint64) int { return pr.outrightAt(i, p-x) },
+		func(s int) bool { return s < a })
 }

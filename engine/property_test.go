@@ -105,21 +105,22 @@ func TestMatchesReference(t *testing.T) {
 				}
 				checkResult(t, s, res)
 				if got := seatsOf(res); !slices.Equal(got, ref.seats) {
-					t.Fatalf("seats %v, reference %v (tie %v/%d)", got, ref.seats, ref.tied, ref.contested)
+					t.Fatalf("seats %v, reference %v (ties %v)", got, ref.seats, ref.ties)
 				}
-				var tiedUnits []int
-				contested := 0
-				if len(res.Ties) > 0 {
-					tiedUnits, contested = res.Ties[0].Units, res.Ties[0].Seats
+				if len(res.Ties) != len(ref.ties) {
+					t.Fatalf("ties %+v, reference %v", res.Ties, ref.ties)
 				}
-				if !slices.Equal(tiedUnits, ref.tied) {
-					t.Fatalf("tied units %v, reference %v", tiedUnits, ref.tied)
+				unassigned := 0
+				for k, tie := range res.Ties {
+					if !slices.Equal(tie.Units, ref.ties[k].units) || tie.Seats != ref.ties[k].seats {
+						t.Fatalf("tie %d: units %v seats %d, reference %v", k, tie.Units, tie.Seats, ref.ties[k])
+					}
+					if tie.Winners == nil {
+						unassigned += tie.Seats
+					}
 				}
-				if ref.contested >= 0 && contested != ref.contested {
-					t.Fatalf("contested seats %d, reference %d", contested, ref.contested)
-				}
-				if ref.contested >= 0 && res.Unassigned != ref.contested {
-					t.Fatalf("unassigned %d, reference contested %d", res.Unassigned, ref.contested)
+				if res.Unassigned != unassigned {
+					t.Fatalf("unassigned %d, want %d", res.Unassigned, unassigned)
 				}
 			})
 		})

@@ -33,6 +33,12 @@ type lrOutcome struct {
 	final  *lrRound
 	rounds int
 	tie    *Tie
+	// early lists the ties in passes before the last that decided which
+	// units were fixed at a bound; they were settled inside the pass by the
+	// tie rule, or in input order when the scenario has none.
+	early []Tie
+	// passes are every pass in order, the final one last.
+	passes []*lrRound
 }
 
 func (pr *problem) lrPass(units []int, seats int) (*lrRound, error) {
@@ -44,6 +50,14 @@ func (pr *problem) lrPass(units []int, seats int) (*lrRound, error) {
 		return nil, scenarioError("population", "the units left to apportion have no population")
 	}
 	sum := 0
+	if seats == 0 {
+		// Nothing left to share: every whole part is zero.
+		r.ranked = make([]int, len(units))
+		for j := range r.ranked {
+			r.ranked[j] = j
+		}
+		return r, nil
+	}
 	switch pr.m {
 	case Hamilton:
 		r.quota = new(big.Rat).SetFrac(r.total.big(), new(big.Int).Mul(big.NewInt(int64(seats)), bigU(pow10(pr.places))))
@@ -122,6 +136,63 @@ func (r *lrRound) cutTie() (awarded, left []int) {
 	return awarded, left
 }
 
+// cutGroups orders the units tied at the cut and returns the tie that is
+// left once the bounds have spoken. Among the tied units, those that need
+// the contested seat to reach their minimum come first (they end with it
+// either way: by remainder, or fixed at their minimum) and those already
+// at their maximum come last (they end without it either way); the tie
+// rule orders the rest, input order standing in when there is none. The
+// tie that remains is the group the cut falls inside: aw are its positions
+// (in r.units) that take a seat, lf those left out. forced reports that it
+// is one of the bound groups, so that how it is settled decides which units
+// are fixed at a bound.
+func (pr *problem) cutGroups(r *lrRound) (aw, lf []int, forced bool) {
+	a0, l0 := r.cutTie()
+	if len(a0) == 0 {
+		return nil, nil, false
+	}
+	k := len(a0)
+	var need, free, full []int
+	for _, j := range append(append([]int(nil), a0...), l0...) {
+		u, f := r.units[j], r.floors[j]
+		switch {
+		case f+1 == pr.min[u]:
+			need = append(need, j)
+		case f == pr.max[u]:
+			full = append(full, j)
+		default:
+			free = append(free, j)
+		}
+	}
+	sortInts(need)
+	sortInts(free)
+	sortInts(full)
+	if pr.tie.Kind == TieByLot && len(free) > 0 {
+		// Put the units the rule draws first, so that the bounds are
+		// checked against the rule's outcome.
+		seats := min(max(k-len(need), 0), len(free))
+		cands := make([]int, len(free))
+		for x, j := range free {
+			cands[x] = r.units[j]
+		}
+		win := map[int]bool{}
+		for _, u := range pr.tie.settle(cands, seats) {
+			win[u] = true
+		}
+		sort.SliceStable(free, func(x, y int) bool { return win[r.units[free[x]]] && !win[r.units[free[y]]] })
+	}
+	run := r.ranked[r.extra-k : r.extra-k+len(a0)+len(l0)]
+	copy(run, append(append(append([]int(nil), need...), free...), full...))
+	start := 0
+	for g, grp := range [][]int{need, free, full} {
+		if start < k && k < start+len(grp) {
+			return grp[:k-start], grp[k-start:], g != 1
+		}
+		start += len(grp)
+	}
+	return nil, nil, false
+}
+
 // remainderSeats runs the largest-remainder procedure with bounds.
 func (pr *problem) remainderSeats() (*lrOutcome, error) {
 	n := pr.n()
@@ -133,7 +204,6 @@ func (pr *problem) remainderSeats() (*lrOutcome, error) {
 		}
 	}
 	left := pr.h
-	var earlyTie *Tie
 	for {
 		out.rounds++
 		if len(active) == 0 {
@@ -149,6 +219,8 @@ func (pr *problem) remainderSeats() (*lrOutcome, error) {
 		if err != nil {
 			return nil, err
 		}
+		out.passes = append(out.passes, r)
+		aw, lf, forced := pr.cutGroups(r)
 		got := make([]int, len(active))
 		for j := range active {
 			got[j] = r.floors[j]
@@ -158,24 +230,20 @@ func (pr *problem) remainderSeats() (*lrOutcome, error) {
 		}
 		var rest []int
 		fixedAny := false
-		fixedPos := map[int]bool{}
 		for j, u := range active {
 			switch {
 			case got[j] < pr.min[u]:
 				out.full[u], out.pinned[u] = pr.min[u], -1
 				left -= pr.min[u]
 				fixedAny = true
-				fixedPos[j] = true
 			case got[j] > pr.max[u]:
 				out.full[u], out.pinned[u] = pr.max[u], 1
 				left -= pr.max[u]
 				fixedAny = true
-				fixedPos[j] = true
 			default:
 				rest = append(rest, u)
 			}
 		}
-		aw, lf := r.cutTie()
 		if !fixedAny {
 			for j, u := range active {
 				out.full[u] = got[j]
@@ -195,20 +263,12 @@ func (pr *problem) remainderSeats() (*lrOutcome, error) {
 			}
 			break
 		}
-		// A tie in a pass whose outcome fixed a tied unit at a bound also
-		// decided the result: report it.
-		if earlyTie == nil && len(aw) > 0 {
-			for _, j := range append(append([]int(nil), aw...), lf...) {
-				if fixedPos[j] {
-					earlyTie = pr.lrTieRecord(r, aw, lf)
-					break
-				}
-			}
+		// A tie among units whose bound it decides (a pass before the
+		// last) was settled inside the pass: report it.
+		if len(aw) > 0 && forced {
+			out.early = append(out.early, *pr.lrTieRecord(r, aw, lf))
 		}
 		active = rest
-	}
-	if out.tie == nil && earlyTie != nil {
-		out.tie = earlyTie
 	}
 	if out.seats == nil {
 		out.seats = out.full
@@ -217,9 +277,14 @@ func (pr *problem) remainderSeats() (*lrOutcome, error) {
 }
 
 // lrTieRecord reports a tie from a pass before the last; its seats were
-// settled by input order inside that pass.
+// settled inside that pass by the tie rule, or in input order when the
+// scenario has none.
 func (pr *problem) lrTieRecord(r *lrRound, aw, lf []int) *Tie {
-	t := &Tie{Seats: len(aw), Value: r.remValue(pr, aw[0]), Rule: "order (in a pass that fixed a unit at a bound)"}
+	rule := pr.tie.String()
+	if pr.tie.Kind == TieReport {
+		rule = "order (in a pass that fixed units at their bounds)"
+	}
+	t := &Tie{Seats: len(aw), Value: r.remValue(pr, aw[0]), Rule: rule}
 	for _, j := range append(append([]int(nil), aw...), lf...) {
 		t.Units = append(t.Units, r.units[j])
 	}
