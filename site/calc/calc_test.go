@@ -124,3 +124,22 @@ func TestParseBlockErrors(t *testing.T) {
 		}
 	}
 }
+
+// TestTieShown checks that a tie is reported, not hidden: two equal units
+// and an odd house under Webster (common practice: equal priorities at the
+// cut are a tie).
+func TestTieShown(t *testing.T) {
+	block := `{"seats": 3, "method": "webster", "units": [{"name": "East", "population": 500}, {"name": "West", "population": 500}]}`
+	resp := Live(request(block))
+	h := outputHTML(t, resp)
+	for _, w := range []string{"A tie decides seats", `data-tied="true"`, "left unassigned", "1 seat is left open by a tie"} {
+		if !strings.Contains(h, w) {
+			t.Errorf("output lacks %q", w)
+		}
+	}
+	doc, _ := jsondoc.Parse([]byte(`{"seats": "3", "method": "webster", "tie": "lot:7", "units": [{"name": "East", "population": "500"}, {"name": "West", "population": "500"}]}`))
+	h = outputHTML(t, Live(request(block, "scenario", doc)))
+	if !strings.Contains(h, "lots drawn with seed 7") || strings.Contains(h, "left open") {
+		t.Errorf("settled tie: %s", h)
+	}
+}
