@@ -549,6 +549,25 @@ func TestBrowser(t *testing.T) {
 		tb.checkClean(origin)
 	})
 
+	t.Run("engine missing", func(t *testing.T) {
+		page := `<!doctype html><html lang="en"><head><meta charset="utf-8"><title>No engine</title>
+<meta name="seatsmith-engine" content="missing.wasm">
+<script type="module" src="embed/bridge.js"></script></head><body>
+<div class="seatsmith" id="lost" data-seatsmith="compact">
+<script type="application/json">{"seats": 3, "method": "webster", "units": [{"name": "A", "population": 1}]}</script>
+</div><p id="after">The rest of the page.</p></body></html>`
+		if err := os.WriteFile(filepath.Join(dir, "no-engine-test.html"), []byte(page), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		os.WriteFile(filepath.Join(dir, "favicon.ico"), nil, 0o644)
+		tb := newTab(t, bctx)
+		tb.do(chromedp.Navigate(origin + "no-engine-test.html"))
+		tb.waitFor("the error state", `document.querySelector('#lost').dataset.state === 'error'`)
+		if msg := eval[string](tb, `document.querySelector('#lost [role=alert]').textContent`); !strings.Contains(msg, "could not start") {
+			t.Errorf("message %q", msg)
+		}
+	})
+
 	t.Run("offline file", func(t *testing.T) {
 		tb := newTab(t, bctx)
 		file := "file://" + filepath.ToSlash(filepath.Join(dir, "offline.html"))

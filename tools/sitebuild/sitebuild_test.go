@@ -2,6 +2,8 @@ package main
 
 import (
 	"bytes"
+	"net/http"
+	"net/http/httptest"
 	"os"
 	"path/filepath"
 	"regexp"
@@ -238,6 +240,34 @@ func TestBuildOutput(t *testing.T) {
 	}
 	if !strings.Contains(o, "'sha256-") {
 		t.Error("the offline file's policy has no script hashes")
+	}
+
+	// The preview server applies the headers file and serves WebAssembly
+	// with its own type, and keeps the headers file to itself.
+	handler, err := siteHandler(out)
+	if err != nil {
+		t.Fatal(err)
+	}
+	srv := httptest.NewServer(handler)
+	defer srv.Close()
+	get := func(p string) *http.Response {
+		t.Helper()
+		resp, err := http.Get(srv.URL + p)
+		if err != nil {
+			t.Fatal(err)
+		}
+		resp.Body.Close()
+		return resp
+	}
+	if r := get("/calculator.html"); r.StatusCode != 200 || !strings.Contains(r.Header.Get("Content-Security-Policy"), "frame-ancestors 'none'") || r.Header.Get("X-Content-Type-Options") != "nosniff" {
+		t.Errorf("page headers: %d %v", r.StatusCode, r.Header)
+	}
+	wasm := regexp.MustCompile(`assets/seatsmith\.[0-9a-f]+\.wasm`).FindString(h)
+	if r := get("/" + wasm); r.Header.Get("Content-Type") != "application/wasm" || !strings.Contains(r.Header.Get("Cache-Control"), "immutable") {
+		t.Errorf("engine headers for %s: %v", wasm, r.Header)
+	}
+	if r := get("/" + headersFile); r.StatusCode != 404 {
+		t.Errorf("the headers file is served (%d)", r.StatusCode)
 	}
 }
 
