@@ -57,8 +57,8 @@ type WarmAllotter struct {
 	sel  []warmSeat // contention scratch
 	// Floating-point scratch: populations over the estimated divisor and
 	// seat values, and the presolved divisor.
-	xf, gf, tf []float64
-	fdiv       float64
+	xf, gf, tf, tn []float64
+	fdiv           float64
 }
 
 // warmShared is the read-only part shared by clones.
@@ -174,6 +174,7 @@ func (sh *warmShared) allotter() *WarmAllotter {
 		xf: make([]float64, n), gf: make([]float64, n)}
 	w.sel = make([]warmSeat, 0, sh.contest+1)
 	w.tf = make([]float64, 0, sh.contest+1)
+	w.tn = make([]float64, 0, sh.contest+1)
 	return w
 }
 
@@ -208,11 +209,13 @@ func (w *WarmAllotter) Allot(pops []uint64, r *WarmResult) error {
 		return scenarioError("units", strconv.Itoa(len(pops))+" populations for "+strconv.Itoa(n)+" units")
 	}
 	var total u128
+	same := true // the same units have people as in the scenario
 	for i, p := range pops {
 		if p > MaxCoefficient {
 			return unitError(i, base.names[i], "population", "out of range")
 		}
 		total, _ = total.add64(p)
+		same = same && (p == 0) == (base.pops[i] == 0)
 	}
 	if total.hi == 0 && total.lo == 0 {
 		return scenarioError("population", "every unit has a population of zero")
@@ -225,8 +228,12 @@ func (w *WarmAllotter) Allot(pops []uint64, r *WarmResult) error {
 		}
 		pr.eligible = w.elig
 	}
-	if err := pr.checkFeasible(); err != nil {
-		return err
+	// Feasibility depends on the populations only through which units have
+	// people and which pass the threshold; the scenario itself passed.
+	if !same || !base.threshold.IsZero() {
+		if err := pr.checkFeasible(); err != nil {
+			return err
+		}
 	}
 	r.reset(n)
 	if !pr.m.IsDivisor() {
@@ -674,33 +681,92 @@ type warmSeat struct {
 // contention fills r.Last and r.Next: the seats held with the least
 // priorities and the next seats with the greatest, in the sequential
 // procedure's order (equal values in input order).
+//
+// Every unit's own seats are ordered the same way, so the contest-many
+// first seats on either side lie among the units whose first seat on that
+// side is among the contest-many first; those are found in one pass and
+// merged.
+//
+// The pass runs in floating point: it finds, on each side, the
+// contest-th best first seat's approximate value t. A unit whose
+// approximate value is worse than t by more than the relative slack is
+// provably worse, exactly, than at least contest-many others, so it is set
+// aside without an exact comparison; every other unit is ranked by exact
+// comparisons only.
 func (w *WarmAllotter) contention(a []int, r *WarmResult) {
-	r.Last = w.bestSeats(a, true, r.Last)
-	r.Next = w.bestSeats(a, false, r.Next)
+	pr := &w.pr
+	m := pr.m
+	k := w.sh.contest
+	gh, gn := w.xf, w.gf // approximate held and next values, -1 for none
+	th, tn := w.tf[:0], w.tn[:0]
+	for i, p := range pr.pops {
+		gh[i], gn[i] = -1, -1
+		if !pr.eligible[i] || p == 0 {
+			continue
+		}
+		pf := float64(p)
+		if a[i] > pr.min[i] {
+			v := pf / warmSignpostFloat(m, a[i]-1)
+			gh[i] = v
+			if len(th) < k || v < th[k-1] {
+				th = insertFloat(th, v, k, true)
+			}
+		}
+		if a[i] < pr.max[i] {
+			v := pf / warmSignpostFloat(m, a[i])
+			gn[i] = v
+			if len(tn) < k || v > tn[k-1] {
+				tn = insertFloat(tn, v, k, false)
+			}
+		}
+	}
+	w.tf, w.tn = th, tn
+	r.Last = w.bestSeats(a, true, gh, th, r.Last)
+	r.Next = w.bestSeats(a, false, gn, tn, r.Next)
+}
+
+// insertFloat inserts v into top, kept sorted (ascending when least is
+// set, descending otherwise) and at most k long.
+func insertFloat(top []float64, v float64, k int, least bool) []float64 {
+	j := len(top)
+	if j < k {
+		top = append(top, v)
+	} else {
+		j--
+	}
+	for j > 0 && ((least && v < top[j-1]) || (!least && v > top[j-1])) {
+		top[j] = top[j-1]
+		j--
+	}
+	top[j] = v
+	return top
 }
 
 // warmSlack bounds the relative error of the floating-point seat values
-// that bestSeats uses to set units aside: each value p/s(k) is computed with
-// at most about eight rounding errors of 2^-53, far inside 2^-30.
+// that contention uses to set units aside: each value p/s(k) is computed
+// with at most about eight rounding errors of 2^-53, far inside 2^-30.
 const warmSlack = 1.0 / (1 << 30)
 
 // bestSeats selects the contest-many seats that come first in the order:
 // for held, the seats held beyond the minimums from the least priority up
 // (ties: larger index first); otherwise the seats beyond the current ones
-// from the greatest priority down (ties: smaller index first). Every unit's
-// own seats are ordered the same way, so the answer lies among the units
-// whose first seat in the order is among the contest-many first; those are
-// found in one pass and merged.
-//
-// A first pass in floating point finds the contest-th best first seat's
-// approximate value t. A unit whose approximate value is worse than t by
-// more than the relative slack is provably worse, exactly, than at least
-// contest-many others, so it is set aside without an exact comparison;
-// every other unit is ranked by exact comparisons only.
-func (w *WarmAllotter) bestSeats(a []int, held bool, out []int) []int {
+// from the greatest priority down (ties: smaller index first). g holds the
+// units' approximate first values on that side (-1 for none) and top the
+// best of them, as contention found them.
+func (w *WarmAllotter) bestSeats(a []int, held bool, g, top []float64, out []int) []int {
+	if len(top) == 0 {
+		return out
+	}
 	pr := &w.pr
 	m := pr.m
 	k := w.sh.contest
+	cut := top[len(top)-1]
+	if held {
+		cut *= 1 + warmSlack
+	} else {
+		cut *= 1 - warmSlack
+	}
+	sel := w.sel[:0]
 	before := func(x, y warmSeat) bool {
 		c := m.cmpPrio(prio{pr.pops[x.u], x.k}, prio{pr.pops[y.u], y.k})
 		if held {
@@ -714,51 +780,6 @@ func (w *WarmAllotter) bestSeats(a []int, held bool, out []int) []int {
 		}
 		return x.u < y.u
 	}
-	// First pass: approximate values, and the contest-th best of them.
-	g := w.gf
-	top := w.tf[:0]
-	for i, p := range pr.pops {
-		g[i] = -1
-		if !pr.eligible[i] || p == 0 {
-			continue
-		}
-		var v float64
-		switch {
-		case held && a[i] > pr.min[i]:
-			v = float64(p) / warmSignpostFloat(m, a[i]-1)
-		case !held && a[i] < pr.max[i]:
-			v = float64(p) / warmSignpostFloat(m, a[i])
-		default:
-			continue
-		}
-		g[i] = v
-		better := func(x, y float64) bool { return (held && x < y) || (!held && x > y) }
-		if len(top) == k && !better(v, top[k-1]) {
-			continue
-		}
-		j := len(top)
-		if j < k {
-			top = append(top, v)
-		} else {
-			j--
-		}
-		for j > 0 && better(v, top[j-1]) {
-			top[j] = top[j-1]
-			j--
-		}
-		top[j] = v
-	}
-	w.tf = top
-	if len(top) == 0 {
-		return out
-	}
-	cut := top[len(top)-1]
-	if held {
-		cut *= 1 + warmSlack
-	} else {
-		cut *= 1 - warmSlack
-	}
-	sel := w.sel[:0]
 	insert := func(s warmSeat, limit int) {
 		if len(sel) == limit && !before(s, sel[len(sel)-1]) {
 			return
