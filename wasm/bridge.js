@@ -185,6 +185,7 @@ class Calculator {
     this.blockText = data ? data.textContent : '';
     this.scenario = null;
     this.timer = 0;
+    this.marginTimer = 0;
   }
 
   call(extra) {
@@ -318,6 +319,7 @@ class Calculator {
     if (!f || f === 'csv') return;
     if (!this.setField(f, el.value)) return;
     clearTimeout(this.timer);
+    clearTimeout(this.marginTimer);
     if (committed || el.tagName === 'SELECT') this.refresh(false);
     else this.timer = setTimeout(() => this.refresh(false), 150);
   }
@@ -359,8 +361,12 @@ class Calculator {
     return false;
   }
 
+  // refresh recomputes after an edit. Margins that need a search (largest
+  // remainders, thresholds) are left out so that typing stays quick, and
+  // asked for once the reader pauses.
   refresh(withEditor, extra) {
-    const r = this.call(Object.assign({ editor: withEditor }, extra || {}));
+    clearTimeout(this.marginTimer);
+    const r = this.call(Object.assign({ editor: withEditor, margins: false }, extra || {}));
     if (r.fatal) {
       this.fail(r.error.message);
       return r;
@@ -373,6 +379,7 @@ class Calculator {
       if (again) again.focus();
     }
     this.saveFragment();
+    if (r.margins_pending) this.marginTimer = setTimeout(() => this.refresh(false, { margins: true }), 600);
     return r;
   }
 

@@ -23,6 +23,8 @@ import (
 //	            scenario document (replaces the scenario) to load first
 //	editor      true to lay out the editor as well as the results
 //	export      true to add the CSV and JSON exports
+//	margins     false to leave out the margins where they are costly (see
+//	            RunQuick); the answer then has margins_pending true
 //
 // The answer is an object:
 //
@@ -78,7 +80,13 @@ func Live(req *jsondoc.Value) (resp *jsondoc.Value) {
 		}
 	}
 	doc = stringNumbers(doc)
-	o := Run(b, doc)
+	var o *Outcome
+	if x := req.Get("margins"); x != nil && x.Kind == jsondoc.Bool && !x.Bool {
+		o = RunQuick(b, doc)
+	} else {
+		o = Run(b, doc)
+	}
+	resp.Set("margins_pending", jsondoc.Boolean(o.MarginsPending))
 	resp.Set("state", jsondoc.Str(o.State()))
 	if o.Problem != nil {
 		resp.Set("error", jsondoc.NewObject().Set("message", jsondoc.Str(o.Problem.Msg)).Set("field", jsondoc.Str(o.Problem.Field)))
@@ -95,7 +103,7 @@ func Live(req *jsondoc.Value) (resp *jsondoc.Value) {
 		cl.Append(jsondoc.NewObject().Set("id", jsondoc.Str(v.Claim.ID)).Set("holds", jsondoc.Boolean(v.Holds)).Set("found", jsondoc.Str(v.Found)))
 	}
 	resp.Set("claims", cl)
-	if x := req.Get("export"); x != nil && x.Kind == jsondoc.Bool && x.Bool && o.Problem == nil {
+	if x := req.Get("export"); x != nil && x.Kind == jsondoc.Bool && x.Bool && o.Problem == nil && !o.MarginsPending {
 		csv, js := Export(o)
 		resp.Set("csv", jsondoc.Str(csv)).Set("json", jsondoc.Str(js))
 	}

@@ -35,11 +35,27 @@ type Outcome struct {
 	// Problem is set, and the results are nil, when the scenario cannot be
 	// apportioned.
 	Problem *Problem
+	// MarginsPending is set when the margins were left out to answer
+	// quickly (see [RunQuick]); the result has no Gain and Lose.
+	MarginsPending bool
 }
 
 // Run apportions doc (the block's own scenario when doc is nil) with every
 // explanation, compares the block's methods and checks its claims.
-func Run(b *Block, doc *jsondoc.Value) *Outcome {
+func Run(b *Block, doc *jsondoc.Value) *Outcome { return run(b, doc, true) }
+
+// RunQuick is Run without the margins when they are costly: for
+// largest-remainder methods and with a threshold, where every margin comes
+// from a search of exact apportionments. The browser shows such a result
+// at once while the reader types and asks for the margins when they pause.
+func RunQuick(b *Block, doc *jsondoc.Value) *Outcome { return run(b, doc, false) }
+
+// costlyMargins reports whether s's margins need a search.
+func costlyMargins(s *engine.Scenario) bool {
+	return !s.Method.IsDivisor() || !s.Threshold.IsZero()
+}
+
+func run(b *Block, doc *jsondoc.Value, margins bool) *Outcome {
 	if doc == nil {
 		doc = b.Doc
 	}
@@ -56,7 +72,12 @@ func Run(b *Block, doc *jsondoc.Value) *Outcome {
 			return o
 		}
 	}
-	res, err := engine.Allot(&src.Scenario, engine.Full)
+	detail := engine.Full
+	if !margins && costlyMargins(&src.Scenario) {
+		detail = engine.WithOrder
+		o.MarginsPending = true
+	}
+	res, err := engine.Allot(&src.Scenario, detail)
 	if err != nil {
 		o.Problem = problemOf(err)
 		return o

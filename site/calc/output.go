@@ -136,7 +136,10 @@ func valueText(v *engine.Value) string {
 	return Group(v.Text)
 }
 
-func marginText(d *engine.Decimal) string {
+func marginText(d *engine.Decimal, pending bool) string {
+	if pending {
+		return "…"
+	}
 	if d == nil {
 		return "–"
 	}
@@ -218,7 +221,7 @@ func resultsTable(o *Outcome) *Node {
 				row.Add(Wrap("td", valueText(u.Remainder), "class", "num"), Wrap("td", rank, "class", "num"))
 			}
 		}
-		row.Add(Wrap("td", marginText(u.Gain), "class", "num"), Wrap("td", marginText(u.Lose), "class", "num"))
+		row.Add(Wrap("td", marginText(u.Gain, o.MarginsPending), "class", "num"), Wrap("td", marginText(u.Lose, o.MarginsPending), "class", "num"))
 		row.Add(Wrap("td", notes(u), "class", "sc-notes"))
 		body.Add(row)
 	}
@@ -232,6 +235,9 @@ func resultsTable(o *Outcome) *Node {
 	t.Add(El("tfoot").Add(foot))
 	wrap.Add(t)
 	legend := El("p", "class", "sc-hint")
+	if o.MarginsPending {
+		legend.Add(Wrap("strong", "Margins are computed when you pause typing. ", "data-role", "margins-pending"))
+	}
 	legend.AddText("Quota: the unit's exact share of the seats, population × seats ÷ total. Gain margin: the fewest extra people who would win the unit one more seat outright, all others fixed; lose margin: the fewest people it could lose before it drops a seat. A dash means no change of its population alone does it.")
 	return El("div", "class", "sc-results-wrap").Add(wrap, legend)
 }

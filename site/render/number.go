@@ -19,11 +19,11 @@ func Group(s string) string {
 		}
 	}
 	var b strings.Builder
-	lead := len(whole) % 3
-	if lead > 0 {
-		b.WriteString(whole[:lead])
+	first := len(whole) % 3
+	if first > 0 {
+		b.WriteString(whole[:first])
 	}
-	for i := lead; i < len(whole); i += 3 {
+	for i := first; i < len(whole); i += 3 {
 		if b.Len() > 0 {
 			b.WriteByte(',')
 		}

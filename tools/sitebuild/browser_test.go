@@ -96,6 +96,10 @@ func browser(t *testing.T) context.Context {
 		chromedp.Flag("disable-dev-shm-usage", true),
 		chromedp.Flag("disable-extensions", true),
 		chromedp.Flag("disable-default-apps", true),
+		// Tabs opened by the tests must keep their timers running.
+		chromedp.Flag("disable-background-timer-throttling", true),
+		chromedp.Flag("disable-backgrounding-occluded-windows", true),
+		chromedp.Flag("disable-renderer-backgrounding", true),
 		chromedp.Flag("no-default-browser-check", true),
 		chromedp.UserDataDir(ud),
 		chromedp.WindowSize(1280, 900),
@@ -399,6 +403,17 @@ func TestBrowser(t *testing.T) {
 		if eval[string](tb, `getComputedStyle(document.querySelector('#mine')).getPropertyValue('--seatsmith-styled').trim()`) != "1" {
 			t.Error("the bridge did not load the calculator's styles")
 		}
+		tb.checkClean(origin)
+	})
+
+	t.Run("margins after a pause", func(t *testing.T) {
+		tb := newTab(t, bctx)
+		tb.do(chromedp.Navigate(origin + "devices.html"))
+		tb.waitFor("live", allLive)
+		sel := chromedp.CSS(`#carts [data-field="units.0.population"]`)
+		tb.do(chromedp.Focus(sel), chromedp.Evaluate[chromedp.Void](`document.activeElement.select()`), chromedp.SendKeys(sel, "470"))
+		tb.waitFor("the new total", `document.querySelector("#carts [data-role=summary]").textContent.includes("3,925")`)
+		tb.waitFor("the margins", `!document.querySelector('#carts [data-role=margins-pending]') && ![...document.querySelectorAll('#carts table.sc-results td')].some(td => td.textContent === '…')`)
 		tb.checkClean(origin)
 	})
 
