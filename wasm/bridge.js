@@ -217,7 +217,10 @@ class Calculator {
       }
     }
     this.scenario = linked;
-    const r = this.call({ editor: true });
+    // Margins that need a search come at once for a small scenario (as the
+    // page prerendered them) and on request for a large one.
+    let r = this.call({ editor: true, margins: false });
+    if (r.margins_pending && r.margins_auto) r = this.call({ editor: true });
     if (r.fatal) {
       this.fail(r.error.message);
       return;
@@ -379,7 +382,7 @@ class Calculator {
       if (again) again.focus();
     }
     this.saveFragment();
-    if (r.margins_pending) this.marginTimer = setTimeout(() => this.refresh(false, { margins: true }), 600);
+    if (r.margins_pending && r.margins_auto) this.marginTimer = setTimeout(() => this.refresh(false, { margins: true }), 600);
     return r;
   }
 
@@ -423,6 +426,12 @@ class Calculator {
         } else {
           this.notice('A scenario needs at least one unit.', true);
         }
+        break;
+      }
+      case 'margins': {
+        this.refresh(false, { margins: true });
+        const t = this.root.querySelector('.sc-results-wrap .sc-scroll');
+        if (t) t.focus();
         break;
       }
       case 'reset': {

@@ -24,7 +24,9 @@ import (
 //	editor      true to lay out the editor as well as the results
 //	export      true to add the CSV and JSON exports
 //	margins     false to leave out the margins where they are costly (see
-//	            RunQuick); the answer then has margins_pending true
+//	            RunQuick); the answer then has margins_pending true, and
+//	            margins_auto true when they are quick enough to fill in
+//	            without being asked
 //
 // The answer is an object:
 //
@@ -87,6 +89,7 @@ func Live(req *jsondoc.Value) (resp *jsondoc.Value) {
 		o = Run(b, doc)
 	}
 	resp.Set("margins_pending", jsondoc.Boolean(o.MarginsPending))
+	resp.Set("margins_auto", jsondoc.Boolean(o.MarginsAuto()))
 	resp.Set("state", jsondoc.Str(o.State()))
 	if o.Problem != nil {
 		resp.Set("error", jsondoc.NewObject().Set("message", jsondoc.Str(o.Problem.Msg)).Set("field", jsondoc.Str(o.Problem.Field)))

@@ -40,6 +40,16 @@ type Outcome struct {
 	MarginsPending bool
 }
 
+// autoMarginUnits is the most units for which the browser fills in costly
+// margins by itself once the reader pauses; with more, the reader asks.
+const autoMarginUnits = 12
+
+// MarginsAuto reports whether pending margins are quick enough to fill in
+// without being asked.
+func (o *Outcome) MarginsAuto() bool {
+	return o.MarginsPending && len(o.Scenario.Units) <= autoMarginUnits
+}
+
 // Run apportions doc (the block's own scenario when doc is nil) with every
 // explanation, compares the block's methods and checks its claims.
 func Run(b *Block, doc *jsondoc.Value) *Outcome { return run(b, doc, true) }

@@ -235,11 +235,17 @@ func resultsTable(o *Outcome) *Node {
 	t.Add(El("tfoot").Add(foot))
 	wrap.Add(t)
 	legend := El("p", "class", "sc-hint")
-	if o.MarginsPending {
+	if o.MarginsAuto() {
 		legend.Add(Wrap("strong", "Margins are computed when you pause typing. ", "data-role", "margins-pending"))
 	}
+	var ask *Node
+	if o.MarginsPending && !o.MarginsAuto() {
+		ask = El("p", "class", "sc-actions", "data-role", "margins-pending")
+		ask.AddText("With " + plural(len(r.Units), "unit") + ", this method's margins take a search of many exact apportionments. ")
+		ask.Add(Wrap("button", "Compute the margins", "type", "button", "data-action", "margins"))
+	}
 	legend.AddText("Quota: the unit's exact share of the seats, population × seats ÷ total. Gain margin: the fewest extra people who would win the unit one more seat outright, all others fixed; lose margin: the fewest people it could lose before it drops a seat. A dash means no change of its population alone does it.")
-	return El("div", "class", "sc-results-wrap").Add(wrap, legend)
+	return El("div", "class", "sc-results-wrap").Add(wrap, ask, legend)
 }
 
 func explanation(o *Outcome) *Node {

@@ -16,6 +16,7 @@ import (
 	"os/exec"
 	"path/filepath"
 	"regexp"
+	"strconv"
 	"strings"
 	"sync"
 	"testing"
@@ -561,6 +562,27 @@ func TestBrowser(t *testing.T) {
 			t.Errorf("a bad table changed the units (%d rows)", n)
 		}
 		tb.screenshot("calculator-csv-desktop.png", 1280, 900, false)
+		tb.checkClean(origin)
+	})
+
+	t.Run("many units ask for margins", func(t *testing.T) {
+		tb := newTab(t, bctx)
+		tb.do(chromedp.Navigate(origin + "calculator.html"))
+		tb.waitFor("live", allLive)
+		tb.do(chromedp.SetValue(chromedp.CSS(`#workbench [data-field="method"]`), "hamilton"),
+			chromedp.Evaluate[chromedp.Void](`document.querySelector('#workbench [data-field="method"]').dispatchEvent(new Event('change', {bubbles: true}))`))
+		var csv strings.Builder
+		csv.WriteString("name,population\n")
+		for i := 1; i <= 20; i++ {
+			csv.WriteString("District " + strconv.Itoa(i) + "," + strconv.Itoa(10000+i*1733) + "\n")
+		}
+		tb.do(chromedp.Click(chromedp.CSS(`#workbench .sc-csv summary`)),
+			chromedp.SetValue(chromedp.CSS(`#workbench [data-field="csv"]`), csv.String()),
+			chromedp.Click(chromedp.CSS(`#workbench [data-action="use-csv"]`)))
+		tb.waitFor("twenty units", `document.querySelectorAll('#workbench tr[data-unit]').length === 20`)
+		tb.waitFor("the margins button", `!!document.querySelector('#workbench [data-action="margins"]')`)
+		tb.do(chromedp.Click(chromedp.CSS(`#workbench [data-action="margins"]`)))
+		tb.waitFor("the margins", `!document.querySelector('#workbench [data-role=margins-pending]') && ![...document.querySelectorAll('#workbench table.sc-results td')].some(td => td.textContent === '…')`)
 		tb.checkClean(origin)
 	})
 
