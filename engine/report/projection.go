@@ -6,6 +6,7 @@ import (
 	"sort"
 	"strconv"
 	"strings"
+	"unicode/utf8"
 
 	"seatsmith/engine"
 	"seatsmith/engine/jsondoc"
@@ -319,25 +320,28 @@ func WriteProjectionText(w io.Writer, s *projection.Summary) error {
 			var parts []string
 			for k, x := range cs {
 				if k == 6 {
-					parts = append(parts, "others "+strconv.Itoa(len(cs)-k))
+					parts = append(parts, "and "+strconv.Itoa(len(cs)-k)+" more")
 					break
 				}
 				parts = append(parts, x.name+" "+pct(x.sh, n))
 			}
 			if len(parts) > 0 {
-				b.WriteString(label + ": " + strings.Join(parts, ", ") + "\n")
+				b.WriteString(wrapItems("  "+strings.TrimSpace(label)+": ", parts, 76))
 			}
 		}
 		b.WriteString("\nContending for the cut (share of draws):\n")
-		contenders("  holds the last seat (seat "+strconv.Itoa(seat)+")", func(u *projection.UnitSummary) projection.Share { return u.Last })
-		contenders("  would take the next seat ("+strconv.Itoa(seat+1)+")", func(u *projection.UnitSummary) projection.Share { return u.Next })
-		if s.Contest > 1 {
-			k := strconv.Itoa(s.Contest)
-			contenders("  holds one of the last "+k+" seats", func(u *projection.UnitSummary) projection.Share { return u.InLast })
-			contenders("  would take one of the next "+k, func(u *projection.UnitSummary) projection.Share { return u.InNext })
-		}
+		last, next := "  holds the last seat (seat "+strconv.Itoa(seat)+")", "  would take the next seat ("+strconv.Itoa(seat+1)+")"
+		k := strconv.Itoa(s.Contest)
+		lastK, nextK := "  holds one of the last "+k+" seats", "  would take one of the next "+k
 		if s.Method.IsLargestRemainder() {
-			b.WriteString("  " + strings.ReplaceAll(Wrap("(A largest-remainder method: the last seats are those won by the smallest winning remainders, the next those the largest losing remainders would win.)", 74), "\n", "\n  ") + "\n")
+			last, next = "  won the last seat by remainder", "  has the largest remainder without a seat"
+			lastK, nextK = "  has one of the "+k+" smallest winning remainders", "  has one of the "+k+" largest losing remainders"
+		}
+		contenders(last, func(u *projection.UnitSummary) projection.Share { return u.Last })
+		contenders(next, func(u *projection.UnitSummary) projection.Share { return u.Next })
+		if s.Contest > 1 {
+			contenders(lastK, func(u *projection.UnitSummary) projection.Share { return u.InLast })
+			contenders(nextK, func(u *projection.UnitSummary) projection.Share { return u.InNext })
 		}
 	}
 	for _, r := range []struct {
@@ -351,4 +355,28 @@ func WriteProjectionText(w io.Writer, s *projection.Summary) error {
 	b.WriteString("\n" + Wrap("A projection is an estimate from a growth model and an assumed error, not a forecast of record.", 76) + "\n")
 	b.WriteString("\n" + Wrap(Caution, 76) + "\n")
 	return writeString(w, b.String())
+}
+
+// wrapItems writes head and the items separated by commas, breaking lines
+// between items (never inside one) before width, with continuation lines
+// indented by four spaces.
+func wrapItems(head string, items []string, width int) string {
+	var b strings.Builder
+	line := head
+	for k, it := range items {
+		if k < len(items)-1 {
+			it += ","
+		}
+		switch {
+		case k == 0:
+			line += it
+		case utf8.RuneCountInString(line)+1+utf8.RuneCountInString(it) > width:
+			b.WriteString(line + "\n")
+			line = "    " + it
+		default:
+			line += " " + it
+		}
+	}
+	b.WriteString(line + "\n")
+	return b.String()
 }
