@@ -616,6 +616,11 @@ func TestBrowser(t *testing.T) {
 		tb.waitFor("60 seats", `document.querySelector('#workbench table.sc-results').dataset.house === '60'`)
 		tb.screenshot("offline-phone.png", 390, 844, true)
 		tb.checkClean(file)
+		// The same file served from the site works as well.
+		tb2 := newTab(t, bctx)
+		tb2.do(chromedp.Navigate(origin + "offline.html"))
+		tb2.waitFor("live", allLive)
+		tb2.checkClean(origin)
 	})
 }
 

@@ -167,12 +167,16 @@ func Build(opt Options) (*Stats, error) {
 	if off == nil {
 		return nil, fmt.Errorf("%s: no page %s.html to make the offline file from", filepath.Join(opt.Src, "pages"), offlinePage)
 	}
-	offline, err := renderOffline(s, off, string(layout), assets, m, cssMin, execMin, bridgeMin, eng)
+	offline, offlineCSP, err := renderOffline(s, off, string(layout), assets, m, cssMin, execMin, bridgeMin, eng)
 	if err != nil {
 		return nil, err
 	}
 	files["offline.html"] = offline
-	files[headersFile] = []byte(headersText(assets))
+	var names []string
+	for _, p := range s.Pages {
+		names = append(names, p.Name)
+	}
+	files[headersFile] = []byte(headersText(names, offlineCSP))
 	if err := writeFiles(opt.Out, files); err != nil {
 		return nil, err
 	}
@@ -184,19 +188,28 @@ func Build(opt Options) (*Stats, error) {
 }
 
 // headersText is the headers file: one path pattern a line, then its
-// headers indented below it.
-func headersText(assets map[string]asset) string {
-	return "# HTTP headers for this site (sitebuild serve applies them; a host that reads\n" +
+// headers indented below it. Each page gets its policy by its own path, so
+// that the offline file (whose policy allows its inline parts by hash) is
+// not also held to the site's policy.
+func headersText(pages []string, offlineCSP string) string {
+	var b strings.Builder
+	b.WriteString("# HTTP headers for this site (sitebuild serve applies them; a host that reads\n" +
 		"# a path-pattern headers file can use it as it is).\n" +
 		"/*\n" +
-		"  Content-Security-Policy: " + CSP + "; frame-ancestors 'none'\n" +
 		"  X-Content-Type-Options: nosniff\n" +
 		"  Referrer-Policy: no-referrer\n" +
-		"  Cross-Origin-Opener-Policy: same-origin\n" +
-		"/assets/*\n" +
-		"  Cache-Control: public, max-age=31536000, immutable\n" +
-		"/data/*\n" +
-		"  Cache-Control: public, max-age=31536000, immutable\n"
+		"  Cross-Origin-Opener-Policy: same-origin\n")
+	page := func(path, csp string) {
+		b.WriteString(path + "\n  Content-Security-Policy: " + csp + "; frame-ancestors 'none'\n")
+	}
+	page("/", CSP)
+	for _, p := range pages {
+		page("/"+p+".html", CSP)
+	}
+	page("/offline.html", offlineCSP)
+	b.WriteString("/assets/*\n  Cache-Control: public, max-age=31536000, immutable\n" +
+		"/data/*\n  Cache-Control: public, max-age=31536000, immutable\n")
+	return b.String()
 }
 
 // pageData is what the layout and page templates see.
@@ -319,36 +332,36 @@ func cspHash(content []byte) string {
 // and a policy that allows exactly those inline scripts and styles.
 func renderOffline(s *site, p *page, layout string, assets map[string]asset, m interface {
 	Bytes(string, []byte) ([]byte, error)
-}, css, execJS, bridge, eng []byte) ([]byte, error) {
+}, css, execJS, bridge, eng []byte) ([]byte, string, error) {
 	for _, part := range [][]byte{execJS, bridge} {
 		if bytes.Contains(bytes.ToLower(part), []byte("</script")) {
-			return nil, fmt.Errorf("a script to inline contains </script")
+			return nil, "", fmt.Errorf("a script to inline contains </script")
 		}
 	}
 	if bytes.Contains(bytes.ToLower(css), []byte("</style")) {
-		return nil, fmt.Errorf("the stylesheet contains </style")
+		return nil, "", fmt.Errorf("the stylesheet contains </style")
 	}
 	csp := "default-src 'none'; script-src " + cspHash(execJS) + " " + cspHash(bridge) + " 'wasm-unsafe-eval'; style-src " + cspHash(css) +
 		"; img-src data:; base-uri 'none'; form-action 'none'"
 	out, err := renderPage(s, p, layout, assets, &inlineParts{csp: csp})
 	if err != nil {
-		return nil, err
+		return nil, "", err
 	}
 	min, err := m.Bytes("text/html", out)
 	if err != nil {
-		return nil, fmt.Errorf("offline.html: cannot minify: %v", err)
+		return nil, "", fmt.Errorf("offline.html: cannot minify: %v", err)
 	}
 	head := "<style>" + string(css) + "</style><script>" + string(execJS) + "</script><script type=\"module\">" + string(bridge) + "</script></head>"
 	body := "<script type=\"application/octet-stream\" data-seatsmith-engine data-encoding=\"gzip\">" +
 		base64.StdEncoding.EncodeToString(gzipBytes(eng)) + "</script></body>"
 	h := string(min)
 	if !strings.Contains(h, "</head>") || !strings.Contains(h, "</body>") {
-		return nil, fmt.Errorf("offline.html: the layout has no </head> or </body>")
+		return nil, "", fmt.Errorf("offline.html: the layout has no </head> or </body>")
 	}
 	h = strings.Replace(h, "</head>", head, 1)
 	i := strings.LastIndex(h, "</body>")
 	h = h[:i] + body + h[i+len("</body>"):]
-	return []byte(h), nil
+	return []byte(h), csp, nil
 }
 
 // writeFiles writes files into a fresh folder beside out and then puts it

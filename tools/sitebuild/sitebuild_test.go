@@ -227,7 +227,7 @@ func TestBuildOutput(t *testing.T) {
 		}
 	}
 	hdr, err := os.ReadFile(filepath.Join(out, headersFile))
-	if err != nil || !strings.Contains(string(hdr), "Content-Security-Policy: "+CSP) {
+	if err != nil || !strings.Contains(string(hdr), "/calculator.html\n  Content-Security-Policy: "+CSP) {
 		t.Errorf("headers file: %v\n%s", err, hdr)
 	}
 	off, err := os.ReadFile(filepath.Join(out, "offline.html"))
@@ -265,6 +265,9 @@ func TestBuildOutput(t *testing.T) {
 	wasm := regexp.MustCompile(`assets/seatsmith\.[0-9a-f]+\.wasm`).FindString(h)
 	if r := get("/" + wasm); r.Header.Get("Content-Type") != "application/wasm" || !strings.Contains(r.Header.Get("Cache-Control"), "immutable") {
 		t.Errorf("engine headers for %s: %v", wasm, r.Header)
+	}
+	if r := get("/offline.html"); strings.Contains(r.Header.Get("Content-Security-Policy"), "'self'") || !strings.Contains(r.Header.Get("Content-Security-Policy"), "'sha256-") {
+		t.Errorf("the offline file is served with policy %q", r.Header.Get("Content-Security-Policy"))
 	}
 	if r := get("/" + headersFile); r.StatusCode != 404 {
 		t.Errorf("the headers file is served (%d)", r.StatusCode)
