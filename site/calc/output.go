@@ -184,7 +184,10 @@ func resultsTable(o *Outcome) *Node {
 	t.Add(Wrap("caption", "Seats by "+r.Method.Name()+", "+plural(r.Seats, "seat"), "id", o.Block.ID+"-results-caption"))
 	head := El("tr")
 	cols := []string{"Unit", "Seats", "Quota", "Quota check", "Population"}
-	if full {
+	// Remainders are the heart of a largest-remainder result, so every
+	// calculator shows them; divisor priorities only the full one.
+	extra := full || !div
+	if extra {
 		if div {
 			cols = append(cols, "Last seat's priority", "Next seat's priority")
 		} else {
@@ -207,7 +210,7 @@ func resultsTable(o *Outcome) *Node {
 		row.Add(Wrap("td", u.Quota.Text, "class", "num", "title", "exactly "+u.Quota.Num+"/"+u.Quota.Den))
 		row.Add(Wrap("td", qn, "class", "sc-qcheck"))
 		row.Add(Wrap("td", Group(u.Population.String()), "class", "num"))
-		if full {
+		if extra {
 			if div {
 				row.Add(Wrap("td", valueText(u.Last), "class", "num"), Wrap("td", valueText(u.Next), "class", "num"))
 			} else {
