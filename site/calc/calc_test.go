@@ -143,3 +143,26 @@ func TestTieShown(t *testing.T) {
 		t.Errorf("settled tie: %s", h)
 	}
 }
+
+// TestQuickMargins checks which results leave their margins for later and
+// which may fill them in by themselves.
+func TestQuickMargins(t *testing.T) {
+	cases := []struct {
+		block          string
+		pending, auto bool
+	}{
+		{`{"seats": 40, "method": "huntington-hill", "units": [{"name": "A", "population": 2694457}, {"name": "B", "population": 2079562}]}`, false, false},
+		{`{"seats": 40, "method": "hamilton", "units": [{"name": "A", "population": 2694457}, {"name": "B", "population": 2079562}]}`, true, false},
+		{`{"seats": 31, "method": "hamilton", "units": [{"name": "A", "population": 461}, {"name": "B", "population": 1214}]}`, true, true},
+		{`{"seats": 30, "method": "jefferson", "threshold": "5%", "units": [{"name": "A", "population": 380000}, {"name": "B", "population": 49000}]}`, true, true},
+	}
+	for _, c := range cases {
+		resp := Live(request(c.block, "margins", jsondoc.Boolean(false)))
+		if p, a := resp.Get("margins_pending").Bool, resp.Get("margins_auto").Bool; p != c.pending || a != c.auto {
+			t.Errorf("%s: pending %v auto %v, want %v %v", c.block, p, a, c.pending, c.auto)
+		}
+		if full := Live(request(c.block)); full.Get("margins_pending").Bool {
+			t.Errorf("%s: margins pending without being left out", c.block)
+		}
+	}
+}

@@ -40,14 +40,23 @@ type Outcome struct {
 	MarginsPending bool
 }
 
-// autoMarginUnits is the most units for which the browser fills in costly
-// margins by itself once the reader pauses; with more, the reader asks.
-const autoMarginUnits = 12
+// Costly margins are filled in without being asked only for small
+// scenarios: at most autoMarginUnits units and a total of at most
+// autoMarginTotal. The search behind them grows with both (for nine
+// provinces of millions it takes seconds in a browser).
+const (
+	autoMarginUnits = 12
+	autoMarginTotal = 1_000_000
+)
 
 // MarginsAuto reports whether pending margins are quick enough to fill in
 // without being asked.
 func (o *Outcome) MarginsAuto() bool {
-	return o.MarginsPending && len(o.Scenario.Units) <= autoMarginUnits
+	if !o.MarginsPending || o.Result == nil || len(o.Scenario.Units) > autoMarginUnits {
+		return false
+	}
+	total, err := engine.ParseDecimal(o.Result.Total)
+	return err == nil && total.Cmp(engine.Whole(autoMarginTotal)) <= 0
 }
 
 // Run apportions doc (the block's own scenario when doc is nil) with every

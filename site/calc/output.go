@@ -244,7 +244,7 @@ func resultsTable(o *Outcome) *Node {
 	var ask *Node
 	if o.MarginsPending && !o.MarginsAuto() {
 		ask = El("p", "class", "sc-actions", "data-role", "margins-pending")
-		ask.AddText("With " + plural(len(r.Units), "unit") + ", this method's margins take a search of many exact apportionments. ")
+		ask.AddText("This method's margins take a search of many exact apportionments, which can take a while for these numbers. ")
 		ask.Add(Wrap("button", "Compute the margins", "type", "button", "data-action", "margins"))
 	}
 	legend.AddText("Quota: the unit's exact share of the seats, population × seats ÷ total. Gain margin: the fewest extra people who would win the unit one more seat outright, all others fixed; lose margin: the fewest people it could lose before it drops a seat. A dash means no change of its population alone does it.")
