@@ -148,7 +148,7 @@ func TestTieShown(t *testing.T) {
 // which may fill them in by themselves.
 func TestQuickMargins(t *testing.T) {
 	cases := []struct {
-		block          string
+		block         string
 		pending, auto bool
 	}{
 		{`{"seats": 40, "method": "huntington-hill", "units": [{"name": "A", "population": 2694457}, {"name": "B", "population": 2079562}]}`, false, false},
