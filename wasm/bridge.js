@@ -123,7 +123,14 @@ function fragmentParts() {
   if (!h) return parts;
   for (const p of h.split('&')) {
     const i = p.indexOf('=');
-    if (i > 0) parts.set(decodeURIComponent(p.slice(0, i)), p.slice(i + 1));
+    if (i <= 0) continue;
+    let key;
+    try {
+      key = decodeURIComponent(p.slice(0, i));
+    } catch (e) {
+      continue; // not one of ours
+    }
+    parts.set(key, p.slice(i + 1));
   }
   return parts;
 }
