@@ -344,7 +344,7 @@ class Calculator {
     const m = /^units\.(\d+)\.(name|population|min|max)$/.exec(f);
     if (m) {
       const u = Array.isArray(s.units) ? s.units[Number(m[1])] : null;
-      if (!u) return false;
+      if (!u || typeof u !== 'object' || Array.isArray(u)) return false;
       if (m[2] === 'name') u.name = v;
       else if (m[2] === 'population') u.population = v;
       else put(u, m[2]);
