@@ -72,6 +72,29 @@ type warmShared struct {
 	vk     int
 	vs     signpost
 	vsf    float64
+	// Floating-point signposts s(k) and their reciprocals for the first
+	// seat counts, to spare the divisions and square roots (estimates and
+	// the contention filter only).
+	sfT, rsT []float64
+}
+
+// warmTable is the most seat counts whose signposts are tabulated.
+const warmTable = 1 << 14
+
+// sf is s(k) in floating point.
+func (sh *warmShared) sf(k int) float64 {
+	if k < len(sh.sfT) {
+		return sh.sfT[k]
+	}
+	return warmSignpostFloat(sh.base.m, k)
+}
+
+// rs is 1/s(k) in floating point (+Inf when s(k) is zero).
+func (sh *warmShared) rs(k int) float64 {
+	if k < len(sh.rsT) {
+		return sh.rsT[k]
+	}
+	return 1 / warmSignpostFloat(sh.base.m, k)
 }
 
 // A WarmResult is one apportionment made by a [WarmAllotter]. Its slices are
@@ -166,6 +189,12 @@ func (sh *warmShared) setDivisor(seats []int) {
 	sh.vk = int(max(k, 1))
 	sh.vs = pr.m.signpost(sh.vk)
 	sh.vsf = warmSignpostFloat(pr.m, sh.vk)
+	n := min(pr.h+2, warmTable)
+	sh.sfT, sh.rsT = make([]float64, n), make([]float64, n)
+	for k := range n {
+		sh.sfT[k] = warmSignpostFloat(pr.m, k)
+		sh.rsT[k] = 1 / sh.sfT[k]
+	}
 }
 
 func (sh *warmShared) allotter() *WarmAllotter {
@@ -395,8 +424,7 @@ const presolveMax = 24
 // one, as a multiple of df (0 when unchanged). These are estimates only:
 // the exact rounding that follows decides every seat.
 func (w *WarmAllotter) presolve(a []int, df float64) {
-	pr := &w.pr
-	m := pr.m
+	pr, sh := &w.pr, w.sh
 	x, g := w.xf, w.gf
 	w.fdiv = 0
 	sum := 0
@@ -413,7 +441,7 @@ func (w *WarmAllotter) presolve(a []int, df float64) {
 			continue
 		}
 		x[i] = float64(p) / df
-		a[i] = max(min(warmEstimate(m, x[i], hi), hi), lo)
+		a[i] = max(min(sh.estimate(x[i], hi), hi), lo)
 		sum += a[i]
 	}
 	d := pr.h - sum
@@ -431,12 +459,12 @@ func (w *WarmAllotter) presolve(a []int, df float64) {
 			if a[i] >= pr.max[i] || a[i] >= pr.h {
 				return -1
 			}
-			return x[i] / warmSignpostFloat(m, a[i])
+			return x[i] * sh.rs(a[i])
 		}
 		if a[i] <= pr.min[i] {
 			return -1
 		}
-		return x[i] / warmSignpostFloat(m, a[i]-1)
+		return x[i] * sh.rs(a[i]-1)
 	}
 	for i := range x {
 		g[i] = val(i)
@@ -480,14 +508,14 @@ func (w *WarmAllotter) presolve(a []int, df float64) {
 	}
 }
 
-// warmEstimate rounds x at the method's signposts in floating point: the
+// estimate rounds x at the method's signposts in floating point: the
 // number of signposts s(0), s(1), ... below x, capped at hi.
-func warmEstimate(m Method, x float64, hi int) int {
+func (sh *warmShared) estimate(x float64, hi int) int {
 	if !(x < float64(hi)) {
 		return hi
 	}
 	f := int(x)
-	if x > warmSignpostFloat(m, f) {
+	if x > sh.sf(f) {
 		f++
 	}
 	return f
@@ -694,9 +722,8 @@ type warmSeat struct {
 // aside without an exact comparison; every other unit is ranked by exact
 // comparisons only.
 func (w *WarmAllotter) contention(a []int, r *WarmResult) {
-	pr := &w.pr
-	m := pr.m
-	k := w.sh.contest
+	pr, sh := &w.pr, w.sh
+	k := sh.contest
 	gh, gn := w.xf, w.gf // approximate held and next values, -1 for none
 	th, tn := w.tf[:0], w.tn[:0]
 	for i, p := range pr.pops {
@@ -706,14 +733,14 @@ func (w *WarmAllotter) contention(a []int, r *WarmResult) {
 		}
 		pf := float64(p)
 		if a[i] > pr.min[i] {
-			v := pf / warmSignpostFloat(m, a[i]-1)
+			v := pf * sh.rs(a[i]-1)
 			gh[i] = v
 			if len(th) < k || v < th[k-1] {
 				th = insertFloat(th, v, k, true)
 			}
 		}
 		if a[i] < pr.max[i] {
-			v := pf / warmSignpostFloat(m, a[i])
+			v := pf * sh.rs(a[i])
 			gn[i] = v
 			if len(tn) < k || v > tn[k-1] {
 				tn = insertFloat(tn, v, k, false)
@@ -743,7 +770,7 @@ func insertFloat(top []float64, v float64, k int, least bool) []float64 {
 }
 
 // warmSlack bounds the relative error of the floating-point seat values
-// that contention uses to set units aside: each value p/s(k) is computed
+// that contention uses to set units aside: each value p·(1/s(k)) is computed
 // with at most about eight rounding errors of 2^-53, far inside 2^-30.
 const warmSlack = 1.0 / (1 << 30)
 
