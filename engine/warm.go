@@ -83,7 +83,7 @@ const warmTable = 1 << 14
 
 // sf is s(k) in floating point.
 func (sh *warmShared) sf(k int) float64 {
-	if k < len(sh.sfT) {
+	if uint(k) < uint(len(sh.sfT)) {
 		return sh.sfT[k]
 	}
 	return warmSignpostFloat(sh.base.m, k)
@@ -91,7 +91,7 @@ func (sh *warmShared) sf(k int) float64 {
 
 // rs is 1/s(k) in floating point (+Inf when s(k) is zero).
 func (sh *warmShared) rs(k int) float64 {
-	if k < len(sh.rsT) {
+	if uint(k) < uint(len(sh.rsT)) {
 		return sh.rsT[k]
 	}
 	return 1 / warmSignpostFloat(sh.base.m, k)
@@ -515,7 +515,11 @@ func (sh *warmShared) estimate(x float64, hi int) int {
 		return hi
 	}
 	f := int(x)
-	if x > sh.sf(f) {
+	if uint(f) < uint(len(sh.sfT)) {
+		if x > sh.sfT[f] {
+			f++
+		}
+	} else if x > sh.sf(f) {
 		f++
 	}
 	return f
@@ -724,23 +728,35 @@ type warmSeat struct {
 func (w *WarmAllotter) contention(a []int, r *WarmResult) {
 	pr, sh := &w.pr, w.sh
 	k := sh.contest
-	gh, gn := w.xf, w.gf // approximate held and next values, -1 for none
+	pops, elig, mins, maxs, rsT := pr.pops, pr.eligible, pr.min, pr.max, sh.rsT
+	gh, gn := w.xf[:len(pops)], w.gf[:len(pops)] // approximate held and next values, -1 for none
 	th, tn := w.tf[:0], w.tn[:0]
-	for i, p := range pr.pops {
+	a = a[:len(pops)]
+	for i, p := range pops {
 		gh[i], gn[i] = -1, -1
-		if !pr.eligible[i] || p == 0 {
+		if !elig[i] || p == 0 {
 			continue
 		}
 		pf := float64(p)
-		if a[i] > pr.min[i] {
-			v := pf * sh.rs(a[i]-1)
+		if ai := a[i]; ai > mins[i] {
+			var v float64
+			if uint(ai-1) < uint(len(rsT)) {
+				v = pf * rsT[ai-1]
+			} else {
+				v = pf * sh.rs(ai-1)
+			}
 			gh[i] = v
 			if len(th) < k || v < th[k-1] {
 				th = insertFloat(th, v, k, true)
 			}
 		}
-		if a[i] < pr.max[i] {
-			v := pf * sh.rs(a[i])
+		if ai := a[i]; ai < maxs[i] {
+			var v float64
+			if uint(ai) < uint(len(rsT)) {
+				v = pf * rsT[ai]
+			} else {
+				v = pf * sh.rs(ai)
+			}
 			gn[i] = v
 			if len(tn) < k || v > tn[k-1] {
 				tn = insertFloat(tn, v, k, false)
