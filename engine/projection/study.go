@@ -208,12 +208,16 @@ func (st *Study) Run(ctx context.Context, from, to int) error {
 	progress := make(chan int, workers)
 	var wg sync.WaitGroup
 	for k := range tallies {
-		tallies[k] = newTally(len(st.units))
 		wg.Add(1)
-		go func(t *tally) {
+		go func() {
 			defer wg.Done()
+			// Each worker allocates its own tally, away from the others'
+			// (counters of different workers on one cache line would slow
+			// every draw).
+			t := newTally(len(st.units))
 			st.work(ctx, t, &next, from, to, progress)
-		}(tallies[k])
+			tallies[k] = t
+		}()
 	}
 	go func() {
 		wg.Wait()
