@@ -50,9 +50,9 @@ type Options struct {
 	// last seats handed out and the first seats beyond (0 to
 	// engine.MaxWarmContest).
 	Contest int
-	// Progress, when set, is called from the goroutine running the draws
-	// after every few hundred draws with the draws done and the draws
-	// asked for.
+	// Progress, when set, is called on the goroutine that called Run (or
+	// RunAll) after every few hundred draws, with the number of the draws
+	// done so far and the number Run is to reach.
 	Progress func(done, total int)
 }
 
