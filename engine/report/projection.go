@@ -85,8 +85,8 @@ func Projection(s *projection.Summary) *jsondoc.Value {
 	} else {
 		v.Set("max_standard_error", nil)
 	}
-	v.Set("baseline", resultBrief(s.Baseline, false))
-	v.Set("central", resultBrief(s.Central, true))
+	v.Set("baseline", resultSummary(s.Baseline, false))
+	v.Set("central", resultSummary(s.Central, true))
 	units := jsondoc.NewArray()
 	for i := range s.Units {
 		units.Append(projectedUnitDoc(&s.Units[i], s.Target != nil, s.Draws > 0))
@@ -96,7 +96,7 @@ func Projection(s *projection.Summary) *jsondoc.Value {
 
 func count(n int64) *jsondoc.Value { return jsondoc.Num(strconv.FormatInt(n, 10)) }
 
-func resultBrief(r *engine.Result, divisor bool) *jsondoc.Value {
+func resultSummary(r *engine.Result, divisor bool) *jsondoc.Value {
 	v := jsondoc.NewObject().Set("total", jsondoc.Str(r.Total)).Set("unassigned", jsondoc.Int(r.Unassigned)).Set("ties", Ties(r))
 	if divisor {
 		if d := r.Divisor; d != nil {
