@@ -58,8 +58,10 @@ func signpostValue(m engine.Method, a int) float64 {
 //
 // With q_A = p_A(1 + σZ_A) and q_B = p_B(1 + σZ_B) for independent standard
 // normals Z_A and Z_B, L is a linear combination of independent normals and
-// so is itself normal (a standard fact of probability; see any textbook,
-// e.g. the reproductive property of the normal distribution), with mean
+// so is itself normal (the reproductive property of the normal
+// distribution: common practice, stated in probability texts such as
+// Feller, An Introduction to Probability Theory and Its Applications,
+// vol. II; cited from memory), with mean
 // μ = p_A·s(b-1) - p_B·s(a) and variance σ²·((p_A·s(b-1))² + (p_B·s(a))²).
 // Hence P(gain) = P(L > 0) = Φ(μ/sd). Symmetrically A drops to a-1 seats
 // exactly when B's (b+1)-th priority beats A's a-th:

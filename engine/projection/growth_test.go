@@ -28,8 +28,8 @@ func series(t *testing.T, pts ...any) *Series {
 }
 
 // TestProjectLinear checks the least-squares line against hand
-// computation (the ordinary least-squares slope and intercept, common
-// practice in any statistics text). Counts 100, 120, 150 at 2000, 2010,
+// computation (the ordinary least-squares slope and intercept: common
+// practice, in any statistics text). Counts 100, 120, 150 at 2000, 2010,
 // 2020: mean time 2010, mean count 370/3, slope Sxy/Sxx = 500/200 = 2.5
 // people a year, so 2030 gives 370/3 + 50 = 173.33..., rounded to 173.
 // Through the last two counts the line gives 150 + 3·10 = 180.

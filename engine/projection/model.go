@@ -83,8 +83,10 @@ func (p perturb) draw(z, limit float64) uint64 {
 }
 
 // splitmix64 is the SplitMix64 finaliser (Steele, Lea and Flood, "Fast
-// splittable pseudorandom number generators", OOPSLA 2014): a bijection of
-// 64-bit words that spreads nearby inputs far apart.
+// splittable pseudorandom number generators", OOPSLA 2014; constants cited
+// from memory): a bijection of 64-bit words that spreads nearby inputs far
+// apart. Any such bijection would do here: the draws need only distinct,
+// well-mixed seeds.
 func splitmix64(x uint64) uint64 {
 	x += 0x9e3779b97f4a7c15
 	x = (x ^ (x >> 30)) * 0xbf58476d1ce4e5b9

@@ -3,6 +3,8 @@ package projection
 import (
 	"context"
 	"errors"
+	"math"
+	"math/rand/v2"
 	"os"
 	"reflect"
 	"strings"
@@ -269,5 +271,32 @@ func TestFailedDraws(t *testing.T) {
 	s := st.Summary()
 	if s.Failed == 0 || s.Apportioned+s.Failed != 2000 {
 		t.Fatalf("failed %d, apportioned %d", s.Failed, s.Apportioned)
+	}
+}
+
+// TestDrawStreams checks that draws get distinct streams and that the
+// normal variates of many draws have mean 0 and variance 1 (within five
+// standard errors).
+func TestDrawStreams(t *testing.T) {
+	var src rand.PCG
+	rng := rand.New(&src)
+	seen := map[uint64]int{}
+	const n = 20_000
+	var sum, sq float64
+	for i := 0; i < n; i++ {
+		seedDraw(&src, 1, i)
+		z := rng.NormFloat64()
+		sum += z
+		sq += z * z
+		seedDraw(&src, 1, i)
+		u := src.Uint64()
+		if j, dup := seen[u]; dup {
+			t.Fatalf("draws %d and %d start alike", j, i)
+		}
+		seen[u] = i
+	}
+	mean, variance := sum/n, sq/n-(sum/n)*(sum/n)
+	if math.Abs(mean) > 5/math.Sqrt(n) || math.Abs(variance-1) > 5*math.Sqrt(2.0/n) {
+		t.Errorf("first variates: mean %v, variance %v", mean, variance)
 	}
 }
