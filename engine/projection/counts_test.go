@@ -1,6 +1,7 @@
 package projection
 
 import (
+	"context"
 	"errors"
 	"strings"
 	"testing"
@@ -123,4 +124,41 @@ func TestParseRSE(t *testing.T) {
 			t.Errorf("%q accepted", bad)
 		}
 	}
+}
+
+// FuzzReadCounts feeds arbitrary input to the reader and, when it is read,
+// to a short study: bad input must give an error, never a panic.
+func FuzzReadCounts(f *testing.F) {
+	f.Add("name,date,population,rse\nA,2010,100,2%\nA,2020,120,\nB,2010,50,\nB,2020,40,\n")
+	f.Add("name,population\nA,5\nB,0\n")
+	f.Add(`{"seats": 3, "units": [{"name": "A", "counts": [{"date": "2010", "population": 1}, {"date": "2020", "population": 9}]}, {"name": "B", "population": 4}]}`)
+	f.Add("name,date,population,min,max\nA,2020-02-29,1,3,1\n")
+	f.Fuzz(func(t *testing.T, text string) {
+		c, err := ReadCounts("fuzz", strings.NewReader(text))
+		if err != nil {
+			var e *input.Error
+			if !errors.As(err, &e) {
+				t.Fatalf("error %v is not an *input.Error", err)
+			}
+			return
+		}
+		if c.Scenario.Seats == 0 {
+			c.Scenario.Seats = 5
+		}
+		if !c.Scenario.Method.Valid() {
+			c.Scenario.Method = engine.HuntingtonHill
+		}
+		for _, target := range []*Date{nil, {2030, 1, 1}} {
+			for _, g := range []Growth{Linear, Geometric} {
+				st, err := New(c, Options{Target: target, Growth: g, RSE: 0.3, Draws: 20, Workers: 1, Contest: 2})
+				if err != nil {
+					continue
+				}
+				if err := st.RunAll(context.Background()); err != nil {
+					t.Fatal(err)
+				}
+				st.Summary()
+			}
+		}
+	})
 }
