@@ -86,7 +86,7 @@
 //	 units: [{name, counts, latest_date: "YYYY-MM-DD"|null, latest, projected,
 //	          clamped, rate_per_year: number|null, rse, baseline_seats,
 //	          central_seats, mean_seats: number|null, sd_seats: number|null,
-//	          seats: [{seats, draws, share}],
+//	          distribution: [{seats, draws, share}],
 //	          gain, lose, last_seat, next_seat, in_last, in_next, tied:
 //	            {draws, share}}]}
 //

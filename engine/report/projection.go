@@ -50,8 +50,8 @@ import (
 //	  for linear growth, the growth factor minus one for geometric, null
 //	  without a target), rse (number), baseline_seats, central_seats
 //	  (numbers), mean_seats, sd_seats (numbers, null without draws),
-//	  seats: [{seats, draws, share}] for every seat count drawn, fewest
-//	  first, and the shares gain, lose, last_seat, next_seat, in_last,
+//	  distribution: [{seats, draws, share}] for every seat count drawn,
+//	  fewest first, and the shares gain, lose, last_seat, next_seat, in_last,
 //	  in_next, tied, each {draws, share}
 //
 // Shares are numbers from 0 to 1 (draws divided by apportioned); draws are
@@ -145,7 +145,7 @@ func projectedUnitDoc(u *projection.UnitSummary, projected, drawn bool) *jsondoc
 	for _, d := range u.Dist {
 		dist.Append(jsondoc.NewObject().Set("seats", jsondoc.Int(d.Seats)).Set("draws", count(d.Draws)).Set("share", jsondoc.Float(d.P)))
 	}
-	v.Set("seats", dist)
+	v.Set("distribution", dist)
 	for _, f := range []struct {
 		key string
 		s   projection.Share

@@ -80,7 +80,7 @@ func TestProjectJSON(t *testing.T) {
 	var lastTotal int64
 	for _, u := range units {
 		var draws int64
-		for _, s := range u.Get("seats").Items {
+		for _, s := range u.Get("distribution").Items {
 			draws += num(s.Get("draws"))
 		}
 		if draws != apportioned {
