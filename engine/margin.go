@@ -308,7 +308,10 @@ func (pr *problem) pieceEnd(i int, x uint64, dir int, limit uint64) uint64 {
 	}
 	q := pr.withPop(i, p)
 	var passes []*lrRound
-	if q != nil {
+	if q != nil && !pr.hasBounds() {
+		// One pass over the eligible units.
+		passes = []*lrRound{{seats: pr.h, units: []int{i}, total: q.eligibleTotal()}}
+	} else if q != nil {
 		if o, err := q.remainderSeats(); err == nil {
 			passes = o.passes
 		}
@@ -458,7 +461,7 @@ func (pr *problem) hasBounds() bool {
 // pieces, which assumes that the outcome at those ends rises with the
 // change, as it does when the quota's steps are small against the
 // populations.
-const maxPieces = 4096
+const maxPieces = 256
 
 // searchPieceEnds bisects over the piece ends in [x, e] for the first one
 // that meets want, then searches inside that piece.
@@ -486,7 +489,15 @@ func (pr *problem) searchPieceEnds(i int, x, e uint64, dir int, seats func(uint6
 
 // searchPiece searches [lo, hi], where the outcome is monotone and the
 // feasible changes form an interval.
-func (pr *problem) searchPiece(lo, hi uint64, dir int, seats func(uint64) int, want func(int) bool) (uint64, bool) {
+func (pr *problem) searchPiece(lo, hi uint64, dir int, seats0 func(uint64) int, want func(int) bool) (uint64, bool) {
+	var lastX uint64
+	lastS, have := 0, false
+	seats := func(x uint64) int { // remembers the last probe
+		if !have || x != lastX {
+			lastX, lastS, have = x, seats0(x), true
+		}
+		return lastS
+	}
 	feasible := func(x uint64) bool { return seats(x) >= 0 }
 	if !feasible(hi) {
 		// The feasible changes form a prefix: find its end. (A loss can
