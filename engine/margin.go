@@ -136,6 +136,9 @@ func (pr *problem) marginUp(i int, need *big.Int) (uint64, bool) {
 	if p <= pr.pops[i] {
 		return 1, true
 	}
+	if pr.pops[i] == 0 && pr.withPop(i, p) == nil {
+		return 0, false // with people it would need a seat the house lacks
+	}
 	return p - pr.pops[i], true
 }
 
@@ -153,7 +156,12 @@ func (pr *problem) loseClosed(i, a int, open topTwo) (uint64, bool) {
 	}
 	t := pr.m.signpost(a - 1)
 	if t.n == 0 {
-		return pr.pops[i], true // only an empty unit loses its first seat
+		// Only an empty unit loses its first seat, if the rest can still
+		// be apportioned without it.
+		if pr.withPop(i, 0) == nil {
+			return 0, false
+		}
+		return pr.pops[i], true
 	}
 	// The greatest population at which the a-th seat is no longer held
 	// outright: p''/s(a-1) <= best, a tie at equality.
@@ -171,6 +179,9 @@ func (pr *problem) loseClosed(i, a int, open topTwo) (uint64, bool) {
 	}
 	if !keep.IsUint64() || keep.Uint64() >= pr.pops[i] {
 		return 1, true
+	}
+	if keep.Sign() == 0 && pr.withPop(i, 0) == nil {
+		return 0, false // emptied, the unit leaves seats no one can take
 	}
 	return pr.pops[i] - keep.Uint64(), true
 }
@@ -426,9 +437,13 @@ func (pr *problem) searchChange(i int, dir int, limit uint64, seats func(uint64)
 			if pieces++; pieces > maxPieces {
 				// Very many quota steps: bisect over the ends of the
 				// pieces instead of visiting each (see below).
-				return pr.searchPieceEnds(i, x, e, dir, seats, want)
+				if got, ok := pr.searchPieceEnds(i, x, e, dir, seats, want); ok {
+					return got, true
+				}
+				break // nothing in this segment: try the next
+
 			}
-			if got, ok := pr.searchPiece(x, end, dir, seats, want); ok {
+			if got, ok := pr.searchSegments(i, x, end, dir, seats, want); ok {
 				return got, true
 			}
 			if end == e {
@@ -473,7 +488,7 @@ func (pr *problem) searchPieceEnds(i int, x, e uint64, dir int, seats func(uint6
 	}
 	lo, hi := x, e // the piece holding lo fails at its end; e succeeds
 	if ok(end(lo)) {
-		return pr.searchPiece(lo, end(lo), dir, seats, want)
+		return pr.searchSegments(i, lo, end(lo), dir, seats, want)
 	}
 	for hi-lo > 1 {
 		mid := lo + (hi-lo)/2
@@ -484,7 +499,7 @@ func (pr *problem) searchPieceEnds(i int, x, e uint64, dir int, seats func(uint6
 		}
 	}
 	// hi's piece succeeds at its end and lo's does not: hi starts it.
-	return pr.searchPiece(hi, end(hi), dir, seats, want)
+	return pr.searchSegments(i, hi, end(hi), dir, seats, want)
 }
 
 // searchPiece searches [lo, hi], where the outcome is monotone and the
@@ -587,4 +602,78 @@ func (pr *problem) loseSearch(i, a int) (uint64, bool) {
 	return pr.searchChange(i, -1, p,
 		func(x uint64) int { return pr.outrightAt(i, p-x) },
 		func(s int) bool { return s < a })
+}
+
+// searchSegments searches [lo, hi] for the least change that meets want.
+// With bounds, a largest-remainder result depends on which units the
+// passes fix at a bound, and that changes with the population: as unit i
+// grows every other quota falls, so another unit can only come to be held
+// up by its minimum, or cease to be held down by its maximum, and unit i
+// only the reverse. Each unit's pinned state thus changes at most once in
+// one direction, and the changes with the same pinned states as lo form a
+// prefix of [lo, hi]. Inside such a segment the last pass is Hamilton (or
+// Droop) over a fixed set of units with a fixed number of seats, where the
+// outcome is monotone. So the range is cut at the ends of those segments,
+// each found by bisection, and each segment is searched in turn.
+func (pr *problem) searchSegments(i int, lo, hi uint64, dir int, seats func(uint64) int, want func(int) bool) (uint64, bool) {
+	if !pr.m.IsLargestRemainder() || !pr.hasBounds() {
+		return pr.searchPiece(lo, hi, dir, seats, want)
+	}
+	pop := func(x uint64) uint64 {
+		if dir > 0 {
+			return pr.pops[i] + x
+		}
+		return pr.pops[i] - x
+	}
+	for lo <= hi {
+		sig := pr.pinnedAt(i, pop(lo))
+		same := func(x uint64) bool { return equalInts(pr.pinnedAt(i, pop(x)), sig) }
+		end := hi
+		if !same(hi) {
+			a, b := lo, hi // same(a), !same(b)
+			for b-a > 1 {
+				m := a + (b-a)/2
+				if same(m) {
+					a = m
+				} else {
+					b = m
+				}
+			}
+			end = a
+		}
+		if got, ok := pr.searchPiece(lo, end, dir, seats, want); ok {
+			return got, true
+		}
+		if end == hi {
+			break
+		}
+		lo = end + 1
+	}
+	return 0, false
+}
+
+// pinnedAt returns which units the largest-remainder passes fix at a bound
+// when unit i has population p (nil when nothing can be apportioned).
+func (pr *problem) pinnedAt(i int, p uint64) []int {
+	q := pr.withPop(i, p)
+	if q == nil {
+		return nil
+	}
+	o, err := q.remainderSeats()
+	if err != nil {
+		return nil
+	}
+	return o.pinned
+}
+
+func equalInts(a, b []int) bool {
+	if (a == nil) != (b == nil) || len(a) != len(b) {
+		return false
+	}
+	for k := range a {
+		if a[k] != b[k] {
+			return false
+		}
+	}
+	return true
 }

@@ -60,9 +60,10 @@ type UnitResult struct {
 	RemainderSeat bool
 
 	// Gain is the fewest extra people who would win the unit one more seat
-	// outright, all other units fixed; Lose the fewest people whose loss
-	// would cost it a seat outright. Nil where it cannot happen. Filled when
-	// asked for with [WithMargins].
+	// outright (not merely a tie for it), all other units fixed; Lose the
+	// fewest people whose loss would leave it no longer holding all its
+	// seats outright (a tie for its last seat already counts). Nil where it
+	// cannot happen. Filled when asked for with [WithMargins].
 	Gain, Lose *Decimal
 }
 

@@ -105,6 +105,6 @@ func ExampleAllotTable() {
 	// unit            population     quota  seats  quota ok  last priority  next priority  gain margin  lose margin  notes
 	// --------------  ----------  --------  -----  --------  -------------  -------------  -----------  -----------  -----
 	// Harbour School         640  3.733333      4  yes                 160            128          111           94
-	// Ridge School           410  2.391667      2  yes                 205        136.667           41          155
+	// Ridge School           410  2.391667      2  yes                 205        136.667           41          154
 	// Fen School             150     0.875      1  yes                 150             75          171           14
 }
