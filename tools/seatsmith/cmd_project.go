@@ -57,7 +57,7 @@ standard normal Z, and rounded to whole people. A unit's own rse overrides
 counts. The same -seed gives the same numbers for any -workers.
 
 Examples:
-  seatsmith project -seats 40 -method huntington-hill -min 1 -target 2030-04-01 -rse 2% engine/projection/testdata/vessaria-counts.csv
+  seatsmith project -seats 40 -method huntington-hill -min 1 -target 2030-04-01 -rse 2% testdata/demo/vessaria-counts.csv
   seatsmith project -rse 1.5% -draws 100000 -seed 7 testdata/demo/vessaria.json
   seatsmith project -target 2031 -growth geometric -fit last2 -error lognormal -rse 3% -format json -o outlook.json counts.json
 
@@ -189,53 +189,14 @@ func readCounts(e *env, fs *flag.FlagSet) (*projection.Counts, error) {
 // applyScenarioFlags lets the scenario options override the file's own
 // settings, as scenarioFlags.load does for scenario files.
 func applyScenarioFlags(fs *flag.FlagSet, f *scenarioFlags, c *projection.Counts) error {
-	set := map[string]bool{}
-	fs.Visit(func(fl *flag.Flag) { set[fl.Name] = true })
-	sc := &c.Scenario
-	bad := func(name, msg string) error { return usageError("-" + name + ": " + msg) }
-	if set["seats"] {
-		if f.seats < 1 || f.seats > engine.MaxSeats {
-			return bad("seats", "must be between 1 and "+strconv.Itoa(engine.MaxSeats))
-		}
-		sc.Seats = f.seats
+	over, err := f.overrides(fs)
+	if err != nil {
+		return err
 	}
-	if set["method"] {
-		m, err := engine.ParseMethod(f.method)
-		if err != nil {
-			return bad("method", errMsg(err))
-		}
-		sc.Method = m
+	if err := f.apply(over, &c.Scenario); err != nil {
+		return err
 	}
-	if set["min"] {
-		if f.min < 0 {
-			return bad("min", "cannot be negative")
-		}
-		sc.Min = f.min
-	}
-	if set["max"] {
-		if f.max < 0 {
-			return bad("max", "cannot be negative")
-		}
-		sc.Max = f.max
-	}
-	if set["threshold"] {
-		th, err := input.ParseShare(f.threshold)
-		if err != nil {
-			return bad("threshold", err.Error())
-		}
-		sc.Threshold = th
-	}
-	if set["tiebreak"] {
-		t, err := engine.ParseTieRule(f.tiebreak)
-		if err != nil {
-			return bad("tiebreak", errMsg(err))
-		}
-		sc.Tie = t
-	}
-	if sc.Seats == 0 {
-		return usageError("no house size: give -seats N (or \"seats\" in a JSON file)")
-	}
-	if !sc.Method.Valid() {
+	if !c.Scenario.Method.Valid() {
 		return usageError("no method: give -method (or \"method\" in a JSON file)")
 	}
 	return nil

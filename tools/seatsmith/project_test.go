@@ -12,7 +12,7 @@ import (
 )
 
 // demoCounts are the invented dated counts of Vessaria's provinces.
-const demoCounts = "engine/projection/testdata/vessaria-counts.csv"
+const demoCounts = "testdata/demo/vessaria-counts.csv"
 
 func projectArgs(extra ...string) []string {
 	return append([]string{"project", "-seats", "40", "-method", "huntington-hill", "-min", "1"}, extra...)

@@ -33,17 +33,13 @@ func (f *scenarioFlags) bind(fs *flag.FlagSet, withMethod bool) {
 	fs.StringVar(&f.tiebreak, "tiebreak", "", "how to settle a tie: none (report it), order (input order), lot:SEED")
 }
 
-// load reads the scenario named by the single file argument and applies
-// the options. It returns a located error for bad input.
-func (f *scenarioFlags) load(e *env, fs *flag.FlagSet) (*input.Source, error) {
+// overrides checks the options given on the command line and returns them
+// as a scenario holding just those values. Call it before reading the
+// file, so that a mistake on the command line is reported as such.
+func (f *scenarioFlags) overrides(fs *flag.FlagSet) (*engine.Scenario, error) {
 	f.set = map[string]bool{}
 	fs.Visit(func(fl *flag.Flag) { f.set[fl.Name] = true })
-	if fs.NArg() != 1 {
-		return nil, usageError("expected one FILE argument (or - for standard input), got " + strconv.Itoa(fs.NArg()))
-	}
-	// Check the options before reading the file, so that a mistake on the
-	// command line is reported as such.
-	var over engine.Scenario
+	over := &engine.Scenario{}
 	flagErr := func(flagName, msg string) error {
 		return usageError("-" + flagName + ": " + msg)
 	}
@@ -86,24 +82,13 @@ func (f *scenarioFlags) load(e *env, fs *flag.FlagSet) (*input.Source, error) {
 		}
 		over.Tie = t
 	}
-	name := fs.Arg(0)
-	var r io.Reader
-	if name == "-" {
-		r = e.stdin
-		name = "stdin"
-	} else {
-		file, err := os.Open(name)
-		if err != nil {
-			return nil, &input.Error{File: name, Msg: "cannot read: " + strings.TrimPrefix(err.Error(), "open "+name+": ")}
-		}
-		defer file.Close()
-		r = file
-	}
-	src, err := input.Read(name, r)
-	if err != nil {
-		return nil, err
-	}
-	sc := &src.Scenario
+	return over, nil
+}
+
+// apply copies the options given on the command line (as returned by
+// overrides) over the scenario read from a file, and checks that a house
+// size is set.
+func (f *scenarioFlags) apply(over, sc *engine.Scenario) error {
 	if f.set["seats"] {
 		sc.Seats = over.Seats
 	}
@@ -123,9 +108,46 @@ func (f *scenarioFlags) load(e *env, fs *flag.FlagSet) (*input.Source, error) {
 		sc.Tie = over.Tie
 	}
 	if sc.Seats == 0 {
-		return nil, usageError("no house size: give -seats N (or \"seats\" in a JSON scenario)")
+		return usageError("no house size: give -seats N (or \"seats\" in a JSON scenario)")
+	}
+	return nil
+}
+
+// load reads the scenario named by the single file argument and applies
+// the options. It returns a located error for bad input.
+func (f *scenarioFlags) load(e *env, fs *flag.FlagSet) (*input.Source, error) {
+	if fs.NArg() != 1 {
+		return nil, usageError("expected one FILE argument (or - for standard input), got " + strconv.Itoa(fs.NArg()))
+	}
+	over, err := f.overrides(fs)
+	if err != nil {
+		return nil, err
+	}
+	r, name, closeFile, err := openArg(e, fs.Arg(0))
+	if err != nil {
+		return nil, err
+	}
+	defer closeFile()
+	src, err := input.Read(name, r)
+	if err != nil {
+		return nil, err
+	}
+	if err := f.apply(over, &src.Scenario); err != nil {
+		return nil, err
 	}
 	return src, nil
+}
+
+// openArg opens a file argument, or standard input for "-".
+func openArg(e *env, arg string) (r io.Reader, name string, closeFile func(), err error) {
+	if arg == "-" {
+		return e.stdin, "stdin", func() {}, nil
+	}
+	file, err := os.Open(arg)
+	if err != nil {
+		return nil, arg, nil, &input.Error{File: arg, Msg: "cannot read: " + strings.TrimPrefix(err.Error(), "open "+arg+": ")}
+	}
+	return file, arg, func() { file.Close() }, nil
 }
 
 // usageErr is a command-line mistake (exit status 2).
