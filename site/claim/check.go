@@ -5,6 +5,7 @@ import (
 	"strings"
 
 	"seatsmith/engine"
+	"seatsmith/engine/analysis"
 	"seatsmith/site/render"
 )
 
@@ -17,11 +18,57 @@ type Verdict struct {
 	Found string
 }
 
+// A Context is what a block knows beyond its scenario, which some kinds of
+// claim need: the range of house sizes a sweep block covers, the later
+// populations of a growth block, the unit an admit block adds.
+type Context struct {
+	// From and To are the house sizes swept (zero: the block sweeps
+	// none); no-alabama and no-quota-violation claims that give no range
+	// of their own cover this one.
+	From, To int
+	// Later holds the later population of every unit, in the scenario's
+	// order, for population-paradox and no-population-paradox claims; nil
+	// when the block has none.
+	Later []engine.Decimal
+	// Admit is the unit that new-states and no-new-states claims admit,
+	// with Added seats added for it (negative: its fair share); nil when
+	// the block admits none.
+	Admit *engine.Unit
+	Added int
+}
+
+// Missing says what a claim needs that the context lacks ("" when nothing):
+// a range of house sizes, later populations or a unit to admit.
+func (c *Claim) Missing(ctx Context) string {
+	switch c.Kind {
+	case NoAlabama, NoQuotaViolation:
+		if c.From == 0 && ctx.From == 0 {
+			return "a " + c.Kind.String() + " claim needs a range of house sizes: give from and to, or put it in a sweep block"
+		}
+	case PopulationParadox, NoPopulationParadox:
+		if ctx.Later == nil {
+			return "a " + c.Kind.String() + " claim needs later populations: put it in a growth block"
+		}
+	case NewStates, NoNewStates:
+		if ctx.Admit == nil {
+			return "a " + c.Kind.String() + " claim needs a unit to admit: put it in an admit block"
+		}
+	}
+	return ""
+}
+
 // Check evaluates every claim against the scenario s. A claim about a
 // method or house size other than the scenario's apportions s again with
 // that method or house size; the populations and bounds stay as they are.
 func Check(s engine.Scenario, claims []Claim) []Verdict {
-	ch := &checker{base: s, cache: map[key]entry{}}
+	return CheckIn(s, claims, Context{})
+}
+
+// CheckIn is [Check] for the claims of a block with the context ctx: the
+// range of a sweep, the later populations of a growth block, the unit an
+// admit block adds. A claim whose context is missing does not hold.
+func CheckIn(s engine.Scenario, claims []Claim, ctx Context) []Verdict {
+	ch := &checker{base: s, ctx: ctx, cache: map[key]entry{}, sweeps: map[sweepKey]sweepEntry{}}
 	out := make([]Verdict, len(claims))
 	for i := range claims {
 		out[i] = ch.check(&claims[i])
@@ -41,9 +88,41 @@ type entry struct {
 	err error
 }
 
+type sweepKey struct {
+	m        engine.Method
+	from, to int
+}
+
+type sweepEntry struct {
+	sw  *engine.SweepResult
+	err error
+}
+
 type checker struct {
-	base  engine.Scenario
-	cache map[key]entry
+	base   engine.Scenario
+	ctx    Context
+	cache  map[key]entry
+	sweeps map[sweepKey]sweepEntry
+}
+
+func (ch *checker) sweep(m engine.Method, from, to int) (*engine.SweepResult, error) {
+	k := sweepKey{m, from, to}
+	if e, ok := ch.sweeps[k]; ok {
+		return e.sw, e.err
+	}
+	s := ch.base
+	s.Method = m
+	sw, err := engine.Sweep(&s, from, to)
+	ch.sweeps[k] = sweepEntry{sw, err}
+	return sw, err
+}
+
+// span returns the house sizes a ranged claim covers.
+func (ch *checker) span(c *Claim) (from, to int) {
+	if c.From > 0 {
+		return c.From, c.To
+	}
+	return ch.ctx.From, ch.ctx.To
 }
 
 func (ch *checker) result(m engine.Method, h int, margins bool) (*engine.Result, error) {
@@ -107,6 +186,45 @@ func (c *Claim) Statement(m engine.Method, h int) string {
 		return c.Unit + " falls below the threshold"
 	case Included:
 		return c.Unit + " clears the threshold"
+	case NoAlabama, NoQuotaViolation:
+		what := "no unit"
+		if c.Unit != "" {
+			what = c.Unit
+		}
+		span := ""
+		if c.From > 0 {
+			span = " from " + strconv.Itoa(c.From) + " to " + strconv.Itoa(c.To)
+		} else {
+			span = " in the range swept"
+		}
+		if c.Kind == NoAlabama {
+			return "Under " + m.Name() + ", " + what + " loses a seat as the house grows" + span
+		}
+		if c.Unit == "" {
+			return "Under " + m.Name() + ", every unit gets its lower or upper quota at every house size" + span
+		}
+		return "Under " + m.Name() + ", " + c.Unit + " gets its lower or upper quota at every house size" + span
+	case PopulationParadox:
+		who := "a unit that grew more slowly"
+		if c.Gainer != "" {
+			who = c.Gainer
+		}
+		return c.Unit + " grows at least as fast as " + who + " yet loses a seat to it" + under
+	case NoPopulationParadox:
+		if c.Unit != "" {
+			return c.Unit + " loses no seat to a unit that grew more slowly" + under
+		}
+		return "No unit loses a seat to a unit that grew more slowly" + under
+	case NewStates:
+		if c.Unit != "" {
+			return "Admitting the new unit with its added seats changes " + c.Unit + "'s seats" + under
+		}
+		return "Admitting the new unit with its added seats changes other units' seats" + under
+	case NoNewStates:
+		if c.Unit != "" {
+			return "Admitting the new unit with its added seats leaves " + c.Unit + "'s seats as they were" + under
+		}
+		return "Admitting the new unit with its added seats leaves every other unit's seats as they were" + under
 	}
 	return c.ID
 }
@@ -125,6 +243,20 @@ func (ch *checker) check(c *Claim) Verdict {
 		return nil
 	}
 	missing := Verdict{Found: "there is no unit named " + strconv.Quote(c.Unit)}
+	if c.Unit != "" && !ch.hasUnit(c.Unit) {
+		return missing
+	}
+	if need := c.Missing(ch.ctx); need != "" {
+		return Verdict{Found: need}
+	}
+	switch c.Kind {
+	case NoAlabama, NoQuotaViolation:
+		return ch.checkRange(c, m)
+	case PopulationParadox, NoPopulationParadox:
+		return ch.checkGrowth(c, m, h)
+	case NewStates, NoNewStates:
+		return ch.checkAdmit(c, m, h)
+	}
 	switch c.Kind {
 	case Differ, Agree:
 		var got [2]int
@@ -206,9 +338,155 @@ func (ch *checker) check(c *Claim) Verdict {
 	return Verdict{Found: "unknown kind of claim"}
 }
 
+func (ch *checker) hasUnit(name string) bool {
+	for _, u := range ch.base.Units {
+		if strings.TrimSpace(u.Name) == name {
+			return true
+		}
+	}
+	return false
+}
+
+// checkRange checks a no-alabama or no-quota-violation claim over its
+// range of house sizes.
+func (ch *checker) checkRange(c *Claim, m engine.Method) Verdict {
+	from, to := ch.span(c)
+	span := " from " + strconv.Itoa(from) + " to " + strconv.Itoa(to)
+	sw, err := ch.sweep(m, from, to)
+	if err != nil {
+		return Verdict{Found: "the numbers cannot be swept by " + m.Name() + span + ": " + errText(err)}
+	}
+	var texts []string
+	if c.Kind == NoAlabama {
+		for _, f := range analysis.FindAlabama(sw) {
+			if c.Unit == "" || f.Name == c.Unit {
+				texts = append(texts, f.Text())
+			}
+		}
+	} else {
+		s := ch.base
+		s.Method = m
+		for _, v := range analysis.FindQuotaViolations(sw, &s) {
+			if c.Unit == "" || v.Name == c.Unit {
+				texts = append(texts, v.Text())
+			}
+		}
+	}
+	refused := 0
+	for k := range sw.Sizes {
+		if sw.Sizes[k].Err != nil {
+			refused++
+		}
+	}
+	if len(texts) == 0 {
+		found := "no unit loses a seat as the house grows"
+		if c.Kind == NoQuotaViolation {
+			found = "every unit gets its lower or upper quota at every size"
+		}
+		if c.Unit != "" {
+			found = c.Unit + " never loses a seat as the house grows"
+			if c.Kind == NoQuotaViolation {
+				found = c.Unit + " gets its lower or upper quota at every size"
+			}
+		}
+		found += " under " + m.Name() + span
+		if refused > 0 {
+			found += " (" + plural(refused, "size") + " cannot be apportioned)"
+		}
+		return Verdict{Holds: true, Found: found}
+	}
+	what := "Alabama paradox"
+	if c.Kind == NoQuotaViolation {
+		what = "quota violation"
+	}
+	found := plural(len(texts), what) + span + "; the first: " + strings.TrimSuffix(texts[0], ".")
+	return Verdict{Found: found}
+}
+
+// later returns the base scenario with the context's later populations.
+func (ch *checker) later() engine.Scenario {
+	t := ch.base
+	t.Units = append([]engine.Unit(nil), ch.base.Units...)
+	for i := range t.Units {
+		if i < len(ch.ctx.Later) {
+			t.Units[i].Population = ch.ctx.Later[i]
+		}
+	}
+	return t
+}
+
+// checkGrowth checks a population-paradox or no-population-paradox claim
+// against the context's later populations.
+func (ch *checker) checkGrowth(c *Claim, m engine.Method, h int) Verdict {
+	s := ch.base
+	s.Method, s.Seats = m, h
+	t := ch.later()
+	t.Method, t.Seats = m, h
+	pr, err := analysis.FindPopulation(&s, &t)
+	if err != nil {
+		return Verdict{Found: "the two population sets cannot both be apportioned by " + m.Name() + " at " + plural(h, "seat") + ": " + errText(err)}
+	}
+	var hits []analysis.Population
+	for _, f := range pr.Findings {
+		if (c.Unit == "" || f.Loser.Name == c.Unit) && (c.Gainer == "" || f.Gainer.Name == c.Gainer) {
+			hits = append(hits, f)
+		}
+	}
+	if c.Kind == PopulationParadox {
+		if len(hits) > 0 {
+			return Verdict{Holds: true, Found: strings.TrimSuffix(hits[0].Text(), ".")}
+		}
+		found := c.Unit + " gets " + plural(seatsOf(pr.Before, c.Unit), "seat") + " with the first populations and " +
+			strconv.Itoa(seatsOf(pr.After, c.Unit)) + " with the later ones under " + m.Name() + " at " + plural(h, "seat")
+		if c.Gainer != "" {
+			found += ", and " + c.Gainer + " gets " + strconv.Itoa(seatsOf(pr.Before, c.Gainer)) + " and " + strconv.Itoa(seatsOf(pr.After, c.Gainer))
+		}
+		return Verdict{Found: found + ": no population paradox"}
+	}
+	if len(hits) > 0 {
+		return Verdict{Found: plural(len(hits), "population paradox") + "; the first: " + strings.TrimSuffix(hits[0].Text(), ".")}
+	}
+	who := "no unit loses a seat"
+	if c.Unit != "" {
+		who = c.Unit + " loses no seat"
+	}
+	return Verdict{Holds: true, Found: who + " to a unit that grew more slowly under " + m.Name() + " at " + plural(h, "seat") + ": there is no population paradox"}
+}
+
+// checkAdmit checks a new-states or no-new-states claim against the unit
+// the context admits.
+func (ch *checker) checkAdmit(c *Claim, m engine.Method, h int) Verdict {
+	s := ch.base
+	s.Method, s.Seats = m, h
+	r, err := analysis.FindNewStates(&s, *ch.ctx.Admit, ch.ctx.Added)
+	if err != nil {
+		return Verdict{Found: "the unit cannot be admitted under " + m.Name() + " at " + plural(h, "seat") + ": " + errText(err)}
+	}
+	changed := false
+	for _, x := range r.Changes {
+		if c.Unit == "" || x.Name == c.Unit {
+			changed = true
+		}
+	}
+	return Verdict{Holds: changed == (c.Kind == NewStates), Found: strings.TrimSuffix(r.Text(), ".")}
+}
+
+func seatsOf(r *engine.Result, name string) int {
+	for i := range r.Units {
+		if r.Units[i].Name == name {
+			return r.Units[i].Seats
+		}
+	}
+	return 0
+}
+
 func plural(n int, word string) string {
 	s := strconv.Itoa(n) + " " + word
-	if n != 1 {
+	switch {
+	case n == 1:
+	case strings.HasSuffix(word, "x"):
+		s += "es"
+	default:
 		s += "s"
 	}
 	return s

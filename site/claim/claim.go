@@ -24,17 +24,29 @@ const (
 	Alabama
 	Excluded
 	Included
+	NoAlabama
+	NoQuotaViolation
+	PopulationParadox
+	NoPopulationParadox
+	NewStates
+	NoNewStates
 )
+
+// lastKind is the last of the kinds.
+const lastKind = NoNewStates
 
 var kindIDs = [...]string{
 	Seats: "seats", Differ: "differ", Agree: "agree", BreaksQuota: "breaks-quota",
 	MeetsQuota: "meets-quota", GainBelow: "gain-below", LoseBelow: "lose-below",
 	Alabama: "alabama", Excluded: "excluded", Included: "included",
+	NoAlabama: "no-alabama", NoQuotaViolation: "no-quota-violation",
+	PopulationParadox: "population-paradox", NoPopulationParadox: "no-population-paradox",
+	NewStates: "new-states", NoNewStates: "no-new-states",
 }
 
 // String returns the kind's id, as written in a claim.
 func (k Kind) String() string {
-	if k >= Seats && k <= Included {
+	if k >= Seats && k <= lastKind {
 		return kindIDs[k]
 	}
 	return "unknown"
@@ -43,7 +55,7 @@ func (k Kind) String() string {
 // Kinds returns the ids of every kind.
 func Kinds() []string {
 	var ids []string
-	for k := Seats; k <= Included; k++ {
+	for k := Seats; k <= lastKind; k++ {
 		ids = append(ids, kindIDs[k])
 	}
 	return ids
@@ -54,13 +66,21 @@ type Claim struct {
 	ID   string
 	Text string // the author's sentence, or empty
 	Kind Kind
+	// Unit is the unit the claim is about; empty for a claim about every
+	// unit (see [Kind.UnitOptional]).
 	Unit string
+	// Gainer is, for a population-paradox claim, the unit that gains the
+	// seat the claim's unit loses (empty: any unit).
+	Gainer string
 	// Method is the method the claim is about (zero: the scenario's own);
 	// Methods the two methods of a differ or agree claim.
 	Method  engine.Method
 	Methods [2]engine.Method
 	// House is the house size the claim is about (zero: the scenario's).
 	House int
+	// From and To are the house sizes a no-alabama or no-quota-violation
+	// claim covers (zero: the range of the sweep block it belongs to).
+	From, To int
 	// Seats is the seat count of a seats claim.
 	Seats int
 	// Below is the bound of a margin claim.
@@ -69,13 +89,27 @@ type Claim struct {
 	Line int
 }
 
-var members = []string{"id", "text", "kind", "unit", "method", "methods", "house", "seats", "below"}
+var members = []string{"id", "text", "kind", "unit", "gainer", "method", "methods", "house", "from", "to", "seats", "below"}
 
 // needs lists the members each kind requires beyond id, kind and unit.
 var needs = map[Kind][]string{
 	Seats: {"seats"}, Differ: {"methods"}, Agree: {"methods"},
 	GainBelow: {"below"}, LoseBelow: {"below"},
 }
+
+// UnitOptional reports whether a claim of kind k may leave out its unit,
+// and is then about every unit: no-alabama, no-quota-violation,
+// no-population-paradox, new-states and no-new-states.
+func (k Kind) UnitOptional() bool {
+	switch k {
+	case NoAlabama, NoQuotaViolation, NoPopulationParadox, NewStates, NoNewStates:
+		return true
+	}
+	return false
+}
+
+// ranged reports whether a claim of kind k covers a range of house sizes.
+func (k Kind) ranged() bool { return k == NoAlabama || k == NoQuotaViolation }
 
 // Parse reads a claims array. Errors are *input.Error values with the line
 // and field at fault (the file is left for the caller to fill in).
@@ -147,7 +181,7 @@ func parseOne(x *jsondoc.Value) (Claim, *input.Error) {
 	if err != nil {
 		return c, err
 	}
-	for kk := Seats; kk <= Included; kk++ {
+	for kk := Seats; kk <= lastKind; kk++ {
 		if kindIDs[kk] == k {
 			c.Kind = kk
 		}
@@ -155,7 +189,7 @@ func parseOne(x *jsondoc.Value) (Claim, *input.Error) {
 	if c.Kind == 0 {
 		return c, &input.Error{Line: x.Get("kind").Line, Field: "kind", Msg: "unknown kind " + strconv.Quote(k) + "; known: " + strings.Join(Kinds(), ", ")}
 	}
-	if c.Unit, err = str("unit", true); err != nil {
+	if c.Unit, err = str("unit", !c.Kind.UnitOptional()); err != nil {
 		return c, err
 	}
 	for _, need := range needs[c.Kind] {
@@ -186,17 +220,39 @@ func parseOne(x *jsondoc.Value) (Claim, *input.Error) {
 				}
 				c.Methods[j] = m
 			}
-		case "house", "seats":
+		case "gainer":
+			if c.Kind != PopulationParadox {
+				return c, &input.Error{Line: f.Value.Line, Field: "gainer", Msg: "only a population-paradox claim names a gainer"}
+			}
+			if c.Gainer, err = str("gainer", false); err != nil {
+				return c, err
+			}
+		case "house", "seats", "from", "to":
 			n, e := whole(f.Value, f.Key)
 			if e != nil {
 				return c, e
 			}
-			if f.Key == "house" {
+			switch f.Key {
+			case "house", "from", "to":
 				if n < 1 || n > engine.MaxSeats {
-					return c, &input.Error{Line: f.Value.Line, Field: "house", Msg: "must be a house size of at least 1"}
+					return c, &input.Error{Line: f.Value.Line, Field: f.Key, Msg: "must be a house size of at least 1"}
 				}
-				c.House = n
-			} else {
+				if f.Key == "house" {
+					if c.Kind.ranged() {
+						return c, &input.Error{Line: f.Value.Line, Field: "house", Msg: "a " + k + " claim covers house sizes from and to, not one house"}
+					}
+					c.House = n
+					break
+				}
+				if !c.Kind.ranged() {
+					return c, &input.Error{Line: f.Value.Line, Field: f.Key, Msg: "only no-alabama and no-quota-violation claims cover a range from and to"}
+				}
+				if f.Key == "from" {
+					c.From = n
+				} else {
+					c.To = n
+				}
+			default:
 				if c.Kind != Seats {
 					return c, &input.Error{Line: f.Value.Line, Field: "seats", Msg: "only a seats claim has seats"}
 				}
@@ -215,6 +271,12 @@ func parseOne(x *jsondoc.Value) (Claim, *input.Error) {
 			}
 			c.Below = d
 		}
+	}
+	if (c.From == 0) != (c.To == 0) {
+		return c, &input.Error{Field: "from", Msg: "give both from and to, or neither (the sweep block's range)"}
+	}
+	if c.From > c.To {
+		return c, &input.Error{Line: x.Get("from").Line, Field: "from", Msg: "must not be above to"}
 	}
 	return c, nil
 }

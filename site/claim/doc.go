@@ -17,7 +17,9 @@
 //
 // id (required) names the claim; text is the sentence shown to readers
 // (when absent, the claim is shown in a standard wording). method and house
-// default to the scenario's own. The kinds are:
+// default to the scenario's own; from and to (the house sizes a ranged
+// claim covers) default to the range of the sweep block the claim belongs
+// to. The kinds are:
 //
 //	seats          unit gets exactly seats seats
 //	differ         methods [A, B] give unit different seats
@@ -30,4 +32,23 @@
 //	               Alabama paradox)
 //	excluded       unit falls below the threshold
 //	included       unit clears the threshold
+//	no-alabama     no unit (or unit, when given) gets fewer seats at any
+//	               house size from..to than at the size before
+//	no-quota-violation
+//	               every unit (or unit) gets its lower or upper quota at
+//	               every house size from..to
+//	population-paradox
+//	               with the later populations of a growth block, unit grew
+//	               at least as fast as another (gainer, when given) yet
+//	               loses a seat while the other gains one
+//	no-population-paradox
+//	               no unit (or unit) loses a seat that way
+//	new-states     admitting the unit of an admit block with its added
+//	               seats changes the seats of some old unit (or of unit)
+//	no-new-states  it changes none of them (or not unit's)
+//
+// Claims of the last four kinds need what their block adds to the scenario
+// (a [Context]); a seats claim with a house covers one size of a sweep.
+// Growth rates, quotas and seats are compared exactly: a claim's verdict
+// never rests on a rounded number.
 package claim
