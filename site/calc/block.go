@@ -20,26 +20,46 @@ const (
 	// Full is the staffer's calculator: every option, file loading and
 	// the seat order.
 	Full
+	// Sweep shows every chosen method's seats across a range of house
+	// sizes as a step chart, with the Alabama paradoxes and quota
+	// violations found there.
+	Sweep
+	// Growth apportions the house with two population sets, a first and a
+	// later one, and lists the population paradoxes between them.
+	Growth
+	// Admit apportions the house, admits a new unit with its fair share of
+	// added seats and shows whose seats change (the new-states paradox).
+	Admit
 )
 
-// ParseMode reads "full" or "compact" (the empty string is compact).
+var modeIDs = [...]string{Compact: "compact", Full: "full", Sweep: "sweep", Growth: "growth", Admit: "admit"}
+
+// ParseMode reads "compact", "full", "sweep", "growth" or "admit" (the
+// empty string is compact).
 func ParseMode(s string) (Mode, bool) {
-	switch strings.TrimSpace(s) {
-	case "", "compact":
+	t := strings.TrimSpace(s)
+	if t == "" {
 		return Compact, true
-	case "full":
-		return Full, true
+	}
+	for m, id := range modeIDs {
+		if id == t {
+			return Mode(m), true
+		}
 	}
 	return Compact, false
 }
 
-// String returns "full" or "compact".
+// String returns the mode's id, as data-seatsmith takes it.
 func (m Mode) String() string {
-	if m == Full {
-		return "full"
+	if int(m) < len(modeIDs) {
+		return modeIDs[m]
 	}
 	return "compact"
 }
+
+// IsStudy reports whether m is one of the modes that study a scenario
+// beyond one apportionment: sweep, growth and admit.
+func (m Mode) IsStudy() bool { return m == Sweep || m == Growth || m == Admit }
 
 // A Block is one calculator: its scenario as the page gives it, its claims
 // and the methods its comparison shows.
@@ -47,10 +67,14 @@ type Block struct {
 	File string // the page that holds it, for messages
 	ID   string // the calculator's id, unique on its page
 	Mode Mode
-	// Doc is the scenario document, without the claims and compare members.
-	Doc     *jsondoc.Value
-	Source  *input.Source
-	Claims  []claim.Claim
+	// Doc is the scenario document, without the claims and compare
+	// members; a study block's document keeps the members its mode adds
+	// (from, to, methods; later populations; admit).
+	Doc    *jsondoc.Value
+	Source *input.Source
+	Claims []claim.Claim
+	// Compare lists the methods the comparison shows; for growth and
+	// admit blocks, the methods whose findings are summarised.
 	Compare []engine.Method
 }
 
@@ -71,18 +95,28 @@ func ParseBlock(file, id string, mode Mode, v *jsondoc.Value) (*Block, error) {
 		}
 	}
 	b.Doc = doc
-	src, err := input.FromDoc(file, doc)
+	sdoc, st, ierr := readStudy(file, doc, mode)
+	if ierr != nil {
+		return nil, ierr
+	}
+	src, err := input.FromDoc(file, sdoc)
 	if err != nil {
 		return nil, err
 	}
 	b.Source = src
-	for _, need := range []string{"seats", "method"} {
-		if !src.Given[need] {
-			return nil, &input.Error{File: file, Line: line(v), Field: need, Msg: "missing: a calculator block must give seats and method"}
+	st.finish(&src.Scenario)
+	if mode != Sweep {
+		for _, need := range []string{"seats", "method"} {
+			if !src.Given[need] {
+				return nil, &input.Error{File: file, Line: line(v), Field: need, Msg: "missing: a " + blockWord(mode) + " must give seats and method"}
+			}
+		}
+		if _, err := engine.Allot(&src.Scenario, 0); err != nil {
+			return nil, src.Locate(err)
 		}
 	}
-	if _, err := engine.Allot(&src.Scenario, 0); err != nil {
-		return nil, src.Locate(err)
+	if mode == Sweep && !v.Get("compare").IsNull() {
+		return nil, &input.Error{File: file, Line: line(v.Get("compare")), Field: "compare", Msg: "a sweep block names the methods it sweeps in methods"}
 	}
 	cs, err := claim.Parse(v.Get("claims"))
 	if err != nil {
@@ -95,10 +129,26 @@ func ParseBlock(file, id string, mode Mode, v *jsondoc.Value) (*Block, error) {
 	for _, u := range src.Scenario.Units {
 		names[strings.TrimSpace(u.Name)] = true
 	}
+	ctx := st.context()
 	for i, c := range cs {
-		if !names[c.Unit] {
-			return nil, &input.Error{File: file, Line: c.Line, Field: "claims[" + strconv.Itoa(i) + "].unit",
-				Msg: "claim " + strconv.Quote(c.ID) + " names " + strconv.Quote(c.Unit) + ", which is not a unit of this scenario"}
+		at := func(field, msg string) error {
+			return &input.Error{File: file, Line: c.Line, Field: "claims[" + strconv.Itoa(i) + "]" + field, Msg: "claim " + strconv.Quote(c.ID) + " " + msg}
+		}
+		for _, n := range []struct{ field, name string }{{".unit", c.Unit}, {".gainer", c.Gainer}} {
+			if n.name != "" && !names[n.name] {
+				return nil, at(n.field, "names "+strconv.Quote(n.name)+", which is not a unit of this scenario")
+			}
+		}
+		if need := c.Missing(ctx); need != "" {
+			return nil, at(".kind", "cannot be checked here: "+need)
+		}
+		if mode == Sweep {
+			if !src.Given["method"] && !c.Method.Valid() && c.Kind != claim.Differ && c.Kind != claim.Agree {
+				return nil, at(".method", "needs a method: this sweep block's scenario names none")
+			}
+			if !src.Given["seats"] && c.House == 0 && c.From == 0 && c.Kind != claim.NoAlabama && c.Kind != claim.NoQuotaViolation {
+				return nil, at(".house", "needs a house size: this sweep block's scenario gives no seats")
+			}
 		}
 	}
 	if x := v.Get("compare"); !x.IsNull() {
@@ -120,6 +170,19 @@ func ParseBlock(file, id string, mode Mode, v *jsondoc.Value) (*Block, error) {
 		b.Compare = engine.Methods()
 	}
 	return b, nil
+}
+
+// blockWord names the kind of block a mode is, for messages.
+func blockWord(m Mode) string {
+	switch m {
+	case Sweep:
+		return "sweep block"
+	case Growth:
+		return "growth block"
+	case Admit:
+		return "admit block"
+	}
+	return "calculator block"
 }
 
 func line(v *jsondoc.Value) int {

@@ -14,4 +14,27 @@
 //
 //	claims    an array of claims (see package seatsmith/site/claim)
 //	compare   the method ids the comparison shows (default: every method)
+//
+// # Study blocks
+//
+// Three more modes look at a scenario beyond one apportionment. Each adds
+// members to the scenario document, which the reader can edit like the
+// rest:
+//
+//	sweep   from, to (required) and methods (default: every method): every
+//	        method's seats at every house size from..to (at most
+//	        MaxSweepSizes of them), drawn as a step chart, with the Alabama
+//	        paradoxes and quota violations found listed in words; seats
+//	        and method are optional (claims name their own)
+//	growth  a later population for each unit ("later" beside
+//	        "population"; a unit without one keeps its population): the
+//	        house apportioned with both counts and every population
+//	        paradox between them
+//	admit   admit: {name, population, added}: the house apportioned, then
+//	        again with that unit and added seats (default: its fair
+//	        share), and whose seats change (the new-states paradox)
+//
+// For growth and admit blocks, compare lists the methods whose findings
+// are summarised. Their claims may use the kinds that need what the block
+// adds (see claim.Context).
 package calc

@@ -36,12 +36,56 @@ func Editor(b *Block, doc *jsondoc.Value, live bool) *Node {
 	if !live {
 		fs.Add(Wrap("p", "These results were computed when the page was built. The calculator becomes editable once its engine has loaded (it needs JavaScript).", "class", "sc-static-note", "data-role", "static-note"))
 	}
+	switch b.Mode {
+	case Sweep:
+		sweepControls(fs, b, doc, id)
+	case Growth:
+		growthControls(fs, b, doc, id)
+	case Admit:
+		admitControls(fs, b, doc, id)
+	default:
+		calculatorControls(fs, b, doc, id)
+	}
+	fs.Add(El("p", "class", "sc-note", "data-role", "notice", "role", "status"))
+	form.Add(fs)
+	return form
+}
+
+func calculatorControls(fs *Node, b *Block, doc *jsondoc.Value, id func(string) string) {
 	grid := El("div", "class", "sc-grid")
 	grid.Add(numberField(id("seats"), "House size (seats)", "seats", docText(doc, "seats"), "1"))
 	grid.Add(methodField(id("method"), docText(doc, "method")))
 	grid.Add(numberField(id("min"), "Minimum seats per unit", "min", docText(doc, "min"), "0"))
 	fs.Add(grid)
+	fs.Add(advancedFields(b, doc, id))
+	fs.Add(unitsTable(b, doc))
+	fs.Add(unitActions())
 
+	csv := El("details", "class", "sc-csv")
+	csv.Add(Wrap("summary", "Paste or load a table"))
+	csv.Add(Wrap("p", "A CSV table with a header row: name and population, optionally min and max. It replaces the units above.", "class", "sc-hint", "id", id("csv-hint")))
+	cf := El("div", "class", "sc-field")
+	cf.Add(Wrap("label", "CSV table", "for", id("csv")))
+	cf.Add(El("textarea", "id", id("csv"), "data-field", "csv", "rows", "5", "spellcheck", "false", "aria-describedby", id("csv-hint"),
+		"placeholder", "name,population\nNorth,1200\nSouth,800"))
+	csv.Add(cf)
+	ca := El("div", "class", "sc-actions")
+	ca.Add(Wrap("button", "Use this table", "type", "button", "data-action", "use-csv"))
+	ca.Add(El("label", "class", "sc-file").AddText("Load a file (CSV or JSON scenario) ").
+		Add(El("input", "type", "file", "accept", ".csv,.json,text/csv,application/json", "data-action", "load-file")))
+	csv.Add(ca)
+	fs.Add(csv)
+
+	ex := El("div", "class", "sc-actions sc-export")
+	ex.Add(Wrap("button", "Download results (CSV)", "type", "button", "data-action", "export-csv"))
+	ex.Add(Wrap("button", "Download scenario and results (JSON)", "type", "button", "data-action", "export-json"))
+	ex.Add(linkButton())
+	fs.Add(ex)
+}
+
+// advancedFields are the options most scenarios leave alone: a cap, a
+// threshold and the tie rule, folded away unless the scenario uses them.
+func advancedFields(b *Block, doc *jsondoc.Value, id func(string) string) *Node {
 	more := El("details", "class", "sc-more").SetIf(b.Mode == Full || hasAdvanced(doc), "open", "")
 	more.Add(Wrap("summary", "Caps, threshold and ties"))
 	mg := El("div", "class", "sc-grid")
@@ -65,37 +109,150 @@ func Editor(b *Block, doc *jsondoc.Value, live bool) *Node {
 	sf.Add(El("input", "id", id("tie-seed"), "type", "text", "inputmode", "numeric", "data-field", "tie-seed", "value", seed, "autocomplete", "off"))
 	mg.Add(sf)
 	more.Add(mg)
-	fs.Add(more)
+	return more
+}
 
-	fs.Add(unitsTable(b, doc))
+func unitActions() *Node {
 	acts := El("div", "class", "sc-actions")
 	acts.Add(Wrap("button", "Add a unit", "type", "button", "data-action", "add-unit"))
 	acts.Add(Wrap("button", "Back to the page's numbers", "type", "button", "data-action", "reset"))
-	fs.Add(acts)
+	return acts
+}
 
-	csv := El("details", "class", "sc-csv")
-	csv.Add(Wrap("summary", "Paste or load a table"))
-	csv.Add(Wrap("p", "A CSV table with a header row: name and population, optionally min and max. It replaces the units above.", "class", "sc-hint", "id", id("csv-hint")))
-	cf := El("div", "class", "sc-field")
-	cf.Add(Wrap("label", "CSV table", "for", id("csv")))
-	cf.Add(El("textarea", "id", id("csv"), "data-field", "csv", "rows", "5", "spellcheck", "false", "aria-describedby", id("csv-hint"),
-		"placeholder", "name,population\nNorth,1200\nSouth,800"))
-	csv.Add(cf)
-	ca := El("div", "class", "sc-actions")
-	ca.Add(Wrap("button", "Use this table", "type", "button", "data-action", "use-csv"))
-	ca.Add(El("label", "class", "sc-file").AddText("Load a file (CSV or JSON scenario) ").
-		Add(El("input", "type", "file", "accept", ".csv,.json,text/csv,application/json", "data-action", "load-file")))
-	csv.Add(ca)
-	fs.Add(csv)
+func linkButton() *Node {
+	return Wrap("button", "Copy a link to these numbers", "type", "button", "data-action", "copy-link")
+}
 
+// sweepControls are a sweep block's: the range of house sizes, the methods
+// and the units.
+func sweepControls(fs *Node, b *Block, doc *jsondoc.Value, id func(string) string) {
+	grid := El("div", "class", "sc-grid")
+	grid.Add(numberField(id("from"), "From (house size)", "from", docText(doc, "from"), "1"))
+	grid.Add(numberField(id("to"), "To (house size)", "to", docText(doc, "to"), "1"))
+	grid.Add(numberField(id("min"), "Minimum seats per unit", "min", docText(doc, "min"), "0"))
+	fs.Add(grid)
+	fs.Add(Wrap("p", "A range covers at most "+strconv.Itoa(MaxSweepSizes)+" house sizes.", "class", "sc-hint"))
+	chosen := map[string]bool{}
+	if ms := doc.Get("methods"); ms != nil && ms.Kind == jsondoc.Array {
+		for _, x := range ms.Items {
+			if m, err := engine.ParseMethod(x.Text); err == nil && x.Kind == jsondoc.String {
+				chosen[m.String()] = true
+			}
+		}
+	} else {
+		for _, m := range engine.Methods() {
+			chosen[m.String()] = true
+		}
+	}
+	mf := El("fieldset", "class", "sc-methods", "data-role", "methods")
+	mf.Add(Wrap("legend", "Methods to sweep"))
+	for _, group := range []struct {
+		name    string
+		divisor bool
+	}{{"Largest remainder", false}, {"Divisor methods", true}} {
+		gid := id("mg-" + strconv.FormatBool(group.divisor))
+		checks := El("div", "class", "sc-checks", "role", "group", "aria-labelledby", gid)
+		checks.Add(Wrap("span", group.name, "class", "sc-check-kind", "id", gid))
+		for _, m := range engine.Methods() {
+			if m.IsDivisor() != group.divisor {
+				continue
+			}
+			box := El("input", "type", "checkbox", "id", id("m-"+m.String()), "data-field", "methods", "value", m.String()).SetIf(chosen[m.String()], "checked", "")
+			checks.Add(El("label", "class", "sc-check", "for", id("m-"+m.String())).Add(box, Text(m.Name())))
+		}
+		mf.Add(checks)
+	}
+	fs.Add(mf)
+	fs.Add(advancedFields(b, doc, id))
+	units := El("details", "class", "sc-units-more")
+	n := 0
+	if us := doc.Get("units"); us != nil && us.Kind == jsondoc.Array {
+		n = len(us.Items)
+	}
+	units.Add(Wrap("summary", "The units and their populations ("+strconv.Itoa(n)+")"))
+	units.Add(unitsTable(b, doc), unitActions())
+	fs.Add(units)
 	ex := El("div", "class", "sc-actions sc-export")
-	ex.Add(Wrap("button", "Download results (CSV)", "type", "button", "data-action", "export-csv"))
-	ex.Add(Wrap("button", "Download scenario and results (JSON)", "type", "button", "data-action", "export-json"))
-	ex.Add(Wrap("button", "Copy a link to these numbers", "type", "button", "data-action", "copy-link"))
+	ex.Add(Wrap("button", "Download the sweep (CSV)", "type", "button", "data-action", "export-csv"))
+	ex.Add(Wrap("button", "Download the sweep and findings (JSON)", "type", "button", "data-action", "export-json"))
+	ex.Add(linkButton())
 	fs.Add(ex)
-	fs.Add(El("p", "class", "sc-note", "data-role", "notice", "role", "status"))
-	form.Add(fs)
-	return form
+}
+
+// growthControls are a growth block's: house size, method and each unit's
+// first and later population.
+func growthControls(fs *Node, b *Block, doc *jsondoc.Value, id func(string) string) {
+	grid := El("div", "class", "sc-grid")
+	grid.Add(numberField(id("seats"), "House size (seats)", "seats", docText(doc, "seats"), "1"))
+	grid.Add(methodField(id("method"), docText(doc, "method")))
+	grid.Add(numberField(id("min"), "Minimum seats per unit", "min", docText(doc, "min"), "0"))
+	fs.Add(grid)
+	fs.Add(advancedFields(b, doc, id))
+	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Units (scrolls sideways)")
+	t := El("table", "class", "sc-units sc-units-growth")
+	t.Add(Wrap("caption", "Units and their two counts. A blank later population keeps the first."))
+	t.Add(El("thead").Add(El("tr").Add(
+		Wrap("th", "#", "scope", "col"),
+		Wrap("th", "Name", "scope", "col"),
+		Wrap("th", "First population", "scope", "col"),
+		Wrap("th", "Later population", "scope", "col"),
+		El("th", "scope", "col").Add(Wrap("span", "Remove", "class", "sc-vh")),
+	)))
+	body := El("tbody")
+	if us := doc.Get("units"); us != nil && us.Kind == jsondoc.Array {
+		for k, u := range us.Items {
+			n := strconv.Itoa(k + 1)
+			key := "units." + strconv.Itoa(k) + "."
+			cell := func(field, label, mode, cls string) *Node {
+				return El("td").Add(El("input", "type", "text", "class", cls, "data-field", key+field, "value", docText(u, field),
+					"aria-label", label+" of unit "+n, "inputmode", mode, "autocomplete", "off", "spellcheck", "false"))
+			}
+			row := El("tr", "data-row", strconv.Itoa(k))
+			row.Add(Wrap("td", n, "class", "num sc-idx"))
+			row.Add(cell("name", "Name", "text", "sc-in-name"))
+			row.Add(cell("population", "First population", "decimal", "sc-in-pop num"))
+			row.Add(cell("later", "Later population", "decimal", "sc-in-pop num"))
+			row.Add(El("td").Add(Wrap("button", "×", "type", "button", "class", "sc-remove", "data-action", "remove-unit",
+				"data-index", strconv.Itoa(k), "aria-label", "Remove unit "+n)))
+			body.Add(row)
+		}
+	}
+	t.Add(body)
+	wrap.Add(t)
+	fs.Add(wrap)
+	fs.Add(unitActions())
+	fs.Add(El("div", "class", "sc-actions sc-export").Add(linkButton()))
+}
+
+// admitControls are an admit block's: house size, method, the unit
+// admitted and the units already there.
+func admitControls(fs *Node, b *Block, doc *jsondoc.Value, id func(string) string) {
+	grid := El("div", "class", "sc-grid")
+	grid.Add(numberField(id("seats"), "House size before (seats)", "seats", docText(doc, "seats"), "1"))
+	grid.Add(methodField(id("method"), docText(doc, "method")))
+	grid.Add(numberField(id("min"), "Minimum seats per unit", "min", docText(doc, "min"), "0"))
+	fs.Add(grid)
+	a := doc.Get("admit")
+	af := El("fieldset", "class", "sc-admit-unit", "data-role", "admit-unit")
+	af.Add(Wrap("legend", "The unit admitted"))
+	ag := El("div", "class", "sc-grid")
+	nf := El("div", "class", "sc-field")
+	nf.Add(Wrap("label", "Its name", "for", id("admit-name")))
+	nf.Add(El("input", "id", id("admit-name"), "type", "text", "data-field", "admit.name", "value", docText(a, "name"), "autocomplete", "off", "spellcheck", "false"))
+	ag.Add(nf)
+	pf := El("div", "class", "sc-field")
+	pf.Add(Wrap("label", "Its population", "for", id("admit-population")))
+	pf.Add(El("input", "id", id("admit-population"), "type", "text", "data-field", "admit.population", "value", docText(a, "population"),
+		"inputmode", "decimal", "autocomplete", "off", "spellcheck", "false"))
+	ag.Add(pf)
+	added := numberField(id("admit-added"), "Seats added for it (blank: its fair share)", "admit.added", docText(a, "added"), "0")
+	ag.Add(added)
+	af.Add(ag)
+	fs.Add(af)
+	fs.Add(advancedFields(b, doc, id))
+	fs.Add(unitsTable(b, doc))
+	fs.Add(unitActions())
+	fs.Add(El("div", "class", "sc-actions sc-export").Add(linkButton()))
 }
 
 func title(b *Block, doc *jsondoc.Value) string {

@@ -16,7 +16,7 @@ import (
 //
 //	block_text  the calculator block's JSON text, as on the page (required)
 //	id          the calculator's id (required)
-//	mode        "full" or "compact"
+//	mode        "full", "compact", "sweep", "growth" or "admit" (see Mode)
 //	scenario    the scenario being edited, a scenario document; the
 //	            block's own when absent or null
 //	load        {name, text}: a CSV table (replaces the units) or a JSON
@@ -221,7 +221,15 @@ func stringNumbers(v *jsondoc.Value) *jsondoc.Value {
 // Export returns the CSV table of o's result (the seatsmith command's
 // allot -format csv table, cells guarded against spreadsheet formulas) and
 // a JSON document holding the scenario, the allotment and the comparison.
+//
+// For a sweep block the CSV table holds every method's seats at every
+// house size (the seatsmith command's sweep -format csv table) and the JSON
+// document the scenario, the sweep and the paradoxes found. Growth and
+// admit blocks have no exports.
 func Export(o *Outcome) (csv, js string) {
+	if o.Sweep != nil {
+		return exportSweep(o)
+	}
 	if o.Result == nil {
 		return "", ""
 	}
@@ -240,4 +248,27 @@ func Export(o *Outcome) (csv, js string) {
 	}
 	v.Set("claims", cl)
 	return b.String(), string(jsondoc.MarshalIndent(v, "  "))
+}
+
+func exportSweep(o *Outcome) (csv, js string) {
+	set := o.Sweep.Set
+	var b bytes.Buffer
+	if err := report.SweepCSVTable(set).WriteCSV(&b); err != nil {
+		b.Reset()
+	}
+	v := jsondoc.NewObject().Set("version", jsondoc.Int(1)).Set("kind", jsondoc.Str("sweep-export"))
+	v.Set("caution", jsondoc.Str(report.Caution))
+	v.Set("scenario", input.Encode(o.Title, &o.Scenario))
+	v.Set("sweep", set.Doc(o.Title))
+	v.Set("paradoxes", report.ParadoxDoc(o.Title, set, &o.Scenario))
+	v.Set("claims", verdictsDoc(o))
+	return b.String(), string(jsondoc.MarshalIndent(v, "  "))
+}
+
+func verdictsDoc(o *Outcome) *jsondoc.Value {
+	cl := jsondoc.NewArray()
+	for _, vd := range o.Verdicts {
+		cl.Append(jsondoc.NewObject().Set("id", jsondoc.Str(vd.Claim.ID)).Set("holds", jsondoc.Boolean(vd.Holds)).Set("found", jsondoc.Str(vd.Found)))
+	}
+	return cl
 }

@@ -38,6 +38,12 @@ type Outcome struct {
 	// MarginsPending is set when the margins were left out to answer
 	// quickly (see [RunQuick]); the result has no Gain and Lose.
 	MarginsPending bool
+
+	// The findings of a study block, by its mode; Result and Comparison
+	// are nil for these blocks.
+	Sweep  *SweepOutcome
+	Growth *GrowthOutcome
+	Admit  *AdmitOutcome
 }
 
 // Costly margins are filled in without being asked only for small
@@ -79,17 +85,34 @@ func run(b *Block, doc *jsondoc.Value, margins bool) *Outcome {
 		doc = b.Doc
 	}
 	o := &Outcome{Block: b, Doc: doc}
-	src, err := input.FromDoc(b.File, doc)
+	sdoc, st, ierr := readStudy(b.File, doc, b.Mode)
+	if ierr != nil {
+		o.Problem = problemOf(ierr)
+		return o
+	}
+	src, err := input.FromDoc(b.File, sdoc)
 	if err != nil {
 		o.Problem = problemOf(err)
 		return o
 	}
 	o.Title, o.Scenario = src.Title, src.Scenario
+	st.finish(&o.Scenario)
 	for _, need := range []string{"seats", "method"} {
-		if !src.Given[need] {
+		if !src.Given[need] && b.Mode != Sweep {
 			o.Problem = &Problem{Field: need, Msg: fieldLabel(need) + ": missing"}
 			return o
 		}
+	}
+	switch b.Mode {
+	case Sweep:
+		runSweep(o, st)
+		return o
+	case Growth:
+		runGrowth(o, st)
+		return o
+	case Admit:
+		runAdmit(o, st)
+		return o
 	}
 	detail := engine.Full
 	if !margins && costlyMargins(&src.Scenario) {
@@ -127,6 +150,9 @@ func problemOf(err error) *Problem {
 
 // editorField turns "units[2].population" into "units.2.population".
 func editorField(f string) string {
+	if strings.HasPrefix(f, "methods[") {
+		return "methods" // one group of checkboxes
+	}
 	if !strings.HasPrefix(f, "units[") {
 		return f
 	}
@@ -138,6 +164,9 @@ var fieldLabels = map[string]string{
 	"seats": "House size", "method": "Method", "min": "Minimum seats", "max": "Maximum seats",
 	"threshold": "Threshold", "tie": "Tie rule", "units": "Units", "population": "population",
 	"name": "name", "title": "Title", "version": "Version",
+	"from": "From (house size)", "to": "To (house size)", "methods": "Methods", "later": "later population",
+	"admit": "New unit", "admit.name": "New unit's name", "admit.population": "New unit's population",
+	"admit.added": "Seats added for the new unit",
 }
 
 func fieldLabel(f string) string {

@@ -35,6 +35,19 @@ func Output(o *Outcome) *Node {
 		out.Add(caution())
 		return out
 	}
+	switch {
+	case o.Sweep != nil:
+		sweepOutput(o, out)
+	case o.Growth != nil:
+		growthOutput(o, out)
+	case o.Admit != nil:
+		admitOutput(o, out)
+	}
+	if o.Block.Mode.IsStudy() {
+		out.Add(claimsView(o))
+		out.Add(caution())
+		return out
+	}
 	r := o.Result
 	out.Add(summary(o))
 	out.Add(tiesView(r))
@@ -55,7 +68,7 @@ func plural(n int, w string) string {
 	if n == 1 {
 		return "1 " + w
 	}
-	if strings.HasSuffix(w, "s") {
+	if strings.HasSuffix(w, "s") || strings.HasSuffix(w, "x") {
 		return strconv.Itoa(n) + " " + w + "es"
 	}
 	return strconv.Itoa(n) + " " + w + "s"
