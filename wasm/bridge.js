@@ -17,6 +17,11 @@
 // and attributes; the bridge builds DOM nodes from it and never parses
 // HTML, so names and other text from the user always show as text.
 //
+// data-seatsmith names the kind of block: "compact" or "full" for a
+// calculator, "sweep" (seats across a range of house sizes), "growth" (two
+// population counts) or "admit" (a new unit joins). The engine renders
+// every kind; the bridge only keeps the edited scenario and its fields.
+//
 // Each calculator root carries data-state: "static" (rendered ahead of
 // time), "live" (the engine has run here) or "error" (with the message
 // shown). The edited scenario is kept in the URL fragment as
@@ -29,6 +34,10 @@ const TAGS = new Set(('a abbr button caption code col colgroup dd details div dl
   'small span strong summary table tbody td textarea tfoot th thead tr ul br hr mark b i sup sub ' +
   'svg g rect line text title desc path circle tspan').split(' '));
 const URL_ATTRS = new Set(['href', 'src', 'action', 'formaction', 'xlink:href', 'srcdoc', 'style']);
+// The kinds of block: calculators (compact, full) and studies of a scenario
+// across house sizes (sweep), between two population counts (growth) and
+// with a unit added (admit).
+const MODES = new Set(['compact', 'full', 'sweep', 'growth', 'admit']);
 
 const here = import.meta.url;
 
@@ -187,7 +196,8 @@ class Calculator {
     this.api = api;
     if (!root.id) root.id = 'calculator-' + ++counter;
     this.id = root.id;
-    this.mode = root.getAttribute('data-seatsmith') === 'full' ? 'full' : 'compact';
+    const mode = root.getAttribute('data-seatsmith');
+    this.mode = MODES.has(mode) ? mode : 'compact';
     const data = root.querySelector('script[type="application/json"]');
     this.blockText = data ? data.textContent : '';
     this.scenario = null;
@@ -341,13 +351,19 @@ class Calculator {
       if (v.trim() === '') delete obj[key];
       else obj[key] = v;
     };
-    const m = /^units\.(\d+)\.(name|population|min|max)$/.exec(f);
+    const m = /^units\.(\d+)\.(name|population|min|max|later)$/.exec(f);
     if (m) {
       const u = Array.isArray(s.units) ? s.units[Number(m[1])] : null;
       if (!u || typeof u !== 'object' || Array.isArray(u)) return false;
       if (m[2] === 'name') u.name = v;
       else if (m[2] === 'population') u.population = v;
-      else put(u, m[2]);
+      else put(u, m[2]); // a blank later population keeps the first one
+      return true;
+    }
+    const a = /^admit\.(name|population|added)$/.exec(f);
+    if (a) {
+      if (!s.admit || typeof s.admit !== 'object' || Array.isArray(s.admit)) s.admit = {};
+      put(s.admit, a[1]);
       return true;
     }
     switch (f) {
@@ -356,7 +372,12 @@ class Calculator {
       case 'max':
       case 'threshold':
       case 'method':
+      case 'from':
+      case 'to':
         put(s, f);
+        return true;
+      case 'methods':
+        s.methods = [...this.root.querySelectorAll('input[type="checkbox"][data-field="methods"]')].filter((c) => c.checked).map((c) => c.value);
         return true;
       case 'tie-kind':
       case 'tie-seed': {
