@@ -29,6 +29,17 @@ func goldenText(p *page) string {
 }
 
 func writeGolden(b *strings.Builder, blk *calc.Block, o *calc.Outcome) {
+	switch {
+	case o.Sweep != nil:
+		writeSweepGolden(b, blk, o)
+		return
+	case o.Growth != nil:
+		writeGrowthGolden(b, blk, o)
+		return
+	case o.Admit != nil:
+		writeAdmitGolden(b, blk, o)
+		return
+	}
 	r := o.Result
 	b.WriteString("\ncalculator " + blk.ID + ": " + r.Method.String() + ", " + strconv.Itoa(r.Seats) + " seats, total " + r.Total + "\n")
 	for _, u := range r.Units {
@@ -76,6 +87,10 @@ func writeGolden(b *strings.Builder, blk *calc.Block, o *calc.Outcome) {
 			b.WriteString("\n")
 		}
 	}
+	writeVerdicts(b, o)
+}
+
+func writeVerdicts(b *strings.Builder, o *calc.Outcome) {
 	for _, v := range o.Verdicts {
 		verdict := "holds"
 		if !v.Holds {
@@ -83,6 +98,96 @@ func writeGolden(b *strings.Builder, blk *calc.Block, o *calc.Outcome) {
 		}
 		b.WriteString("  claim " + v.Claim.ID + ": " + verdict + ": " + v.Found + "\n")
 	}
+}
+
+// writeSweepGolden writes a sweep block: every method's seats at every
+// house size (one line a size, the units in order), then the findings.
+func writeSweepGolden(b *strings.Builder, blk *calc.Block, o *calc.Outcome) {
+	set := o.Sweep.Set
+	f := set.First()
+	b.WriteString("\nsweep " + blk.ID + ": house sizes " + strconv.Itoa(set.From) + " to " + strconv.Itoa(set.To) + "\n")
+	b.WriteString("  units " + strings.Join(f.Names, ", ") + "\n")
+	for k, sw := range set.Sweeps {
+		m := set.Methods[k].String()
+		if sw == nil {
+			b.WriteString("  method " + m + ": fails: " + set.Errors[k].Error() + "\n")
+			continue
+		}
+		b.WriteString("  method " + m + "\n")
+		for j := range sw.Sizes {
+			z := &sw.Sizes[j]
+			line := "    " + strconv.Itoa(z.House) + ":"
+			if z.Err != nil {
+				line += " fails"
+			}
+			for _, a := range z.Seats {
+				line += " " + strconv.Itoa(a)
+			}
+			for _, t := range z.Ties {
+				line += "; tie " + strings.Join(t.Names, ", ") + " for " + strconv.Itoa(t.Seats)
+			}
+			b.WriteString(line + "\n")
+		}
+	}
+	for k := range set.Methods {
+		for _, p := range set.Paradoxes[k] {
+			b.WriteString("  alabama " + p.Text() + "\n")
+		}
+		for _, v := range o.Sweep.Violations[k] {
+			b.WriteString("  quota " + v.Text() + "\n")
+		}
+	}
+	writeVerdicts(b, o)
+}
+
+// writeGrowthGolden writes a growth block: each unit's populations and
+// seats under the block's method, every method's findings.
+func writeGrowthGolden(b *strings.Builder, blk *calc.Block, o *calc.Outcome) {
+	g := o.Growth
+	r := g.Results[g.Main]
+	b.WriteString("\ngrowth " + blk.ID + ": " + g.Methods[g.Main].String() + ", " + strconv.Itoa(r.Before.Seats) + " seats, total " +
+		r.Before.Total + " then " + r.After.Total + "\n")
+	for i := range r.Before.Units {
+		u, a := &r.Before.Units[i], &r.After.Units[i]
+		b.WriteString("  " + u.Name + ": " + u.Population.String() + " then " + a.Population.String() + ", seats " +
+			strconv.Itoa(u.Seats) + " then " + strconv.Itoa(a.Seats) + "\n")
+	}
+	for k, m := range g.Methods {
+		if g.Results[k] == nil {
+			b.WriteString("  method " + m.String() + ": fails: " + g.Errors[k].Error() + "\n")
+			continue
+		}
+		b.WriteString("  method " + m.String() + ": " + "population paradoxes " + strconv.Itoa(len(g.Results[k].Findings)) + "\n")
+		for _, f := range g.Results[k].Findings {
+			b.WriteString("    " + f.Text() + "\n")
+		}
+	}
+	writeVerdicts(b, o)
+}
+
+// writeAdmitGolden writes an admit block: each unit's seats before and
+// after under the block's method, and what every method does.
+func writeAdmitGolden(b *strings.Builder, blk *calc.Block, o *calc.Outcome) {
+	a := o.Admit
+	r := a.Results[a.Main]
+	b.WriteString("\nadmit " + blk.ID + ": " + a.Methods[a.Main].String() + ", " + r.Name + " with " + strconv.Itoa(r.Added) +
+		" added seats, house " + strconv.Itoa(r.House) + " then " + strconv.Itoa(r.NewHouse) + "\n")
+	for i := range r.After.Units {
+		u := &r.After.Units[i]
+		before := "new"
+		if i < len(r.Before.Units) {
+			before = strconv.Itoa(r.Before.Units[i].Seats)
+		}
+		b.WriteString("  " + u.Name + ": seats " + before + " then " + strconv.Itoa(u.Seats) + "\n")
+	}
+	for k, m := range a.Methods {
+		if a.Results[k] == nil {
+			b.WriteString("  method " + m.String() + ": fails: " + a.Errors[k].Error() + "\n")
+			continue
+		}
+		b.WriteString("  method " + m.String() + ": " + a.Results[k].Text() + "\n")
+	}
+	writeVerdicts(b, o)
 }
 
 // lineDiff returns a readable line-by-line difference of want and got.
