@@ -194,8 +194,8 @@ func growthControls(fs *Node, b *Block, doc *jsondoc.Value, id func(string) stri
 	t.Add(El("thead").Add(El("tr").Add(
 		Wrap("th", "#", "scope", "col"),
 		Wrap("th", "Name", "scope", "col"),
-		Wrap("th", "First population", "scope", "col"),
-		Wrap("th", "Later population", "scope", "col"),
+		Wrap("th", "First count", "scope", "col"),
+		Wrap("th", "Later count", "scope", "col"),
 		El("th", "scope", "col").Add(Wrap("span", "Remove", "class", "sc-vh")),
 	)))
 	body := El("tbody")
