@@ -36,7 +36,7 @@ type Stats struct {
 // inline scripts (JSON data blocks are not scripts), nothing from any other
 // origin.
 const CSP = "default-src 'self'; script-src 'self' 'wasm-unsafe-eval'; style-src 'self'; img-src 'self'; " +
-	"connect-src 'self'; font-src 'self'; object-src 'none'; base-uri 'none'; form-action 'none'"
+	"connect-src 'self'; font-src 'self'; worker-src 'self'; object-src 'none'; base-uri 'none'; form-action 'none'"
 
 // headersFile names the file of HTTP headers written beside the site.
 const headersFile = "site-headers.txt"
@@ -116,6 +116,9 @@ func Build(opt Options) (*Stats, error) {
 		}
 	}
 	add(fingerprint("assets", "seatsmith.wasm", eng))
+	if err := addForecastAssets(root, opt.Src, m, add); err != nil {
+		return nil, err
+	}
 	data, _ := filepath.Glob(filepath.Join(opt.Src, "scenarios", "*"))
 	sort.Strings(data)
 	for _, f := range data {

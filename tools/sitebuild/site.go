@@ -20,6 +20,8 @@ type page struct {
 	Blocks []blockRef
 	// Outcomes are the calculators' results for the page's own numbers.
 	Outcomes []*calc.Outcome
+	// Forecasts are the page's projection blocks (see forecast.go).
+	Forecasts []*forecastRef
 }
 
 // A site is every page of the site sources.
@@ -69,12 +71,16 @@ func loadPage(file string) (*page, []string, error) {
 		return nil, nil, &input.Error{File: file, Msg: "cannot read: " + err.Error()}
 	}
 	p := &page{File: file, Name: strings.TrimSuffix(filepath.Base(file), ".html"), Source: string(data)}
+	forecastBad, err := expandForecasts(p)
+	if err != nil {
+		return nil, nil, err
+	}
 	p.Blocks, err = scanBlocks(file, p.Source)
 	if err != nil {
 		return nil, nil, err
 	}
 	claimIDs := map[string]string{}
-	var bad []string
+	bad := forecastBad
 	for _, br := range p.Blocks {
 		b := br.Block
 		o := calc.Run(b, nil)
@@ -106,6 +112,11 @@ func (p *page) claimIDs() map[string]bool {
 	ids := map[string]bool{}
 	for _, br := range p.Blocks {
 		for _, c := range br.Block.Claims {
+			ids[c.ID] = true
+		}
+	}
+	for _, f := range p.Forecasts {
+		for _, c := range f.Config.Claims {
 			ids[c.ID] = true
 		}
 	}
