@@ -1,6 +1,7 @@
 package calc
 
 import (
+	"strconv"
 	"strings"
 	"testing"
 
@@ -272,3 +273,25 @@ func TestParseMode(t *testing.T) {
 		t.Error("the empty mode is not compact")
 	}
 }
+
+// The sweep block answers every edit: these measure one answer for the
+// page's range (16 sizes, 8 methods) against the widest range a block
+// takes (200 sizes).
+func BenchmarkLiveSweep16(b *testing.B) { benchSweep(b, 30, 45) }
+
+func BenchmarkLiveSweep200(b *testing.B) { benchSweep(b, 1, 200) }
+
+func benchSweep(b *testing.B, from, to int) {
+	doc, err := jsondoc.Parse([]byte(`{"from": "` + itoa(from) + `", "to": "` + itoa(to) + `", ` + vessariaUnits + `}`))
+	if err != nil {
+		b.Fatal(err)
+	}
+	req := studyRequest("sweep", sweepBlock, "scenario", doc)
+	for b.Loop() {
+		if r := Live(req); r.Get("state").Text != "live" {
+			b.Fatal(jsondoc.Marshal(r.Get("error")))
+		}
+	}
+}
+
+func itoa(n int) string { return strconv.Itoa(n) }
