@@ -75,8 +75,14 @@ func writeSite(t *testing.T, page string) string {
 		os.MkdirAll(filepath.Join(dir, d), 0o755)
 	}
 	copyFile(t, filepath.Join(siteSrc, "layout.html"), filepath.Join(dir, "layout.html"))
-	copyFile(t, filepath.Join(siteSrc, "static", "style.css"), filepath.Join(dir, "static", "style.css"))
-	copyFile(t, filepath.Join(siteSrc, "static", "favicon.svg"), filepath.Join(dir, "static", "favicon.svg"))
+	// Every static file, so that the build finds each stylesheet it needs.
+	static, err := filepath.Glob(filepath.Join(siteSrc, "static", "*"))
+	if err != nil || len(static) == 0 {
+		t.Fatalf("no static files: %v", err)
+	}
+	for _, f := range static {
+		copyFile(t, f, filepath.Join(dir, "static", filepath.Base(f)))
+	}
 	if err := os.WriteFile(filepath.Join(dir, "pages", "calculator.html"), []byte(page), 0o644); err != nil {
 		t.Fatal(err)
 	}
