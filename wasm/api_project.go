@@ -60,7 +60,14 @@ func projectStart(arg *jsondoc.Value) (*jsondoc.Value, error) {
 		var ie *input.Error
 		if errors.As(err, &ie) && ie.File != "" {
 			// Name the counts file, line and field in the message.
-			return nil, &input.Error{Field: ie.Field, Msg: ie.Error()}
+			where := ie.File
+			if ie.Line > 0 {
+				where += ", line " + strconv.Itoa(ie.Line)
+			}
+			if ie.Field != "" {
+				where += ", " + ie.Field
+			}
+			return nil, &input.Error{Msg: where + ": " + ie.Msg}
 		}
 		return nil, err
 	}

@@ -33,7 +33,7 @@ func Form(c *Config, id string, enabled bool) *Node {
 		fs.Add(wrap)
 	}
 	field("target", "Target date", "YYYY-MM-DD", El("input", "type", "text", "inputmode", "numeric", "autocomplete", "off", "value", c.Target.String(), "data-field", "target"))
-	field("growth", "Growth", "", choice(c.Growth.String(), "growth", [][2]string{{"linear", "linear (people a year)"}, {"geometric", "geometric (share a year)"}}))
+	field("growth", "Growth", "", choice(c.Growth.String(), "growth", [][2]string{{"linear", "linear"}, {"geometric", "geometric"}}))
 	field("error", "Count error", "", choice(c.Error.String(), "error", [][2]string{{"normal", "normal"}, {"lognormal", "log-normal"}}))
 	rse := c.RSEText
 	if rse == "" {

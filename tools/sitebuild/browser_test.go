@@ -180,7 +180,7 @@ func (tb *tab) waitFor(what, js string) {
 	}
 }
 
-const allLive = `document.querySelectorAll('[data-seatsmith]').length > 0 && [...document.querySelectorAll('[data-seatsmith]')].every(e => e.dataset.state === 'live')`
+const allLive = `document.querySelectorAll('[data-seatsmith], [data-forecast]').length > 0 && [...document.querySelectorAll('[data-seatsmith], [data-forecast]')].every(e => e.dataset.state === 'live')`
 
 func (tb *tab) messages() []string {
 	tb.mu.Lock()
