@@ -141,7 +141,7 @@ func Output(c *Config, s *projection.Summary, id string) *Node {
 		out.Add(ul)
 	}
 	out.Add(Wrap("p", "A projection is an estimate from a growth model and an assumed error, not a forecast of record. "+report.Caution,
-		"class", "fc-caution", "data-role", "forecast-caution"))
+		"class", "fc-caution", "data-role", "caution"))
 	return out
 }
 

@@ -64,7 +64,7 @@ func TestForecastBrowser(t *testing.T) {
 	if n := eval[int](tb, `document.querySelectorAll('[data-claim-ref][data-holds="false"], `+sel+` [data-claim][data-holds="false"]').length`); n != 0 {
 		t.Errorf("%d claims do not hold in the browser", n)
 	}
-	if eval[int](tb, `document.querySelectorAll('`+sel+` [data-role=forecast-caution]').length`) != 1 {
+	if eval[int](tb, `document.querySelectorAll('`+sel+` [data-role=caution]').length`) != 1 {
 		t.Error("the result shows no caution")
 	}
 	if eval[int](tb, `document.querySelectorAll('`+sel+` svg.fc-svg rect.fc-seg').length`) < len(native.Units) {
