@@ -233,11 +233,11 @@ func (pr *problem) checkFeasible() error {
 		firstSeat += lo
 	}
 	h := uint64(pr.h)
-	if total := pr.eligibleTotal(); total.hi == 0 && total.lo == 0 {
-		return scenarioError("population", "every unit taking part has a population of zero")
-	}
 	if !anyEligible {
 		return scenarioError("threshold", "the threshold excludes every unit")
+	}
+	if total := pr.eligibleTotal(); total.hi == 0 && total.lo == 0 {
+		return scenarioError("population", "every unit taking part has a population of zero")
 	}
 	if sumMin > h {
 		return scenarioError("min", "the minimums add up to "+strconv.FormatUint(sumMin, 10)+" seats, more than the house size "+strconv.Itoa(pr.h))
