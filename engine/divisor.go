@@ -92,8 +92,19 @@ type divisorOutcome struct {
 	tail  []award // the awarded seats at the cut value, when tied
 }
 
-// divisorSeats runs the sequential procedure. keepOrder records every award.
+// divisorSeats runs the divisor procedure. keepOrder records every award
+// in order, by the sequential procedure; without it the seats are found by
+// jump and step (jump.go), with the same outcome but for the order.
 func (pr *problem) divisorSeats(keepOrder bool) (*divisorOutcome, error) {
+	if !keepOrder {
+		return pr.divisorJump()
+	}
+	return pr.divisorSequential(true)
+}
+
+// divisorSequential runs the sequential procedure, handing out the seats
+// one at a time. keepOrder records every award.
+func (pr *problem) divisorSequential(keepOrder bool) (*divisorOutcome, error) {
 	n := pr.n()
 	a := make([]int, n)
 	cand := make([]int32, 0, n)
