@@ -2,6 +2,7 @@ package engine
 
 import (
 	"math/big"
+	"math/bits"
 	"sort"
 	"strconv"
 )
@@ -13,16 +14,28 @@ import (
 
 // lrRound is one pass of the largest-remainder procedure over some units.
 type lrRound struct {
-	units  []int  // the units apportioned in this pass, in input order
-	seats  int    // the seats they share
-	floors []int  // whole parts, by position in units
-	rems   []u128 // remainder numerators, by position in units
+	units  []int   // the units apportioned in this pass, in input order
+	seats  int     // the seats they share
+	floors []int32 // whole parts, by position in units (at most MaxSeats)
+	rems   []u128  // remainder numerators, by position in units
 	// For Hamilton the remainder of unit j is rems[j]/total (a fraction of a
 	// seat); for Droop it is rems[j] people (scaled).
-	total  u128 // population of these units (scaled)
-	quota  *big.Rat
-	ranked []int // positions in units, largest remainder first
-	extra  int   // seats handed out by remainder
+	total u128 // population of these units (scaled)
+	quota *big.Rat
+	// ranked holds the positions in units: first those whose remainder is
+	// above the cut value (the extra-th largest remainder), then those
+	// equal to it from index gt, then those below it from index ge, each
+	// group in input order (the group at the cut as cutGroups orders it).
+	// Once sorted is set (rankAll), ranked is the full ranking, largest
+	// remainder first and equal remainders in input order.
+	ranked []int
+	gt, ge int
+	sorted bool
+	extra  int // seats handed out by remainder
+	// bound is at least every remainder; hist, when set, counts the
+	// remainders by their leading bits below it (see kthLargest).
+	bound u128
+	hist  *[selectBuckets]int32
 }
 
 // lrOutcome is the raw result of the largest-remainder procedure.
@@ -42,35 +55,36 @@ type lrOutcome struct {
 }
 
 func (pr *problem) lrPass(units []int, seats int) (*lrRound, error) {
-	r := &lrRound{units: units, seats: seats, floors: make([]int, len(units)), rems: make([]u128, len(units))}
+	r := &lrRound{units: units, seats: seats, floors: make([]int32, len(units)), rems: make([]u128, len(units))}
+	var carry uint64
 	for _, u := range units {
-		r.total, _ = r.total.add64(pr.pops[u])
+		var c uint64
+		r.total.lo, c = bits.Add64(r.total.lo, pr.pops[u], 0)
+		carry += c
 	}
+	r.total.hi = carry
 	if r.total.hi == 0 && r.total.lo == 0 {
 		return nil, scenarioError("population", "the units left to apportion have no population")
 	}
 	sum := 0
 	if seats == 0 {
 		// Nothing left to share: every whole part is zero.
-		r.ranked = make([]int, len(units))
-		for j := range r.ranked {
-			r.ranked[j] = j
-		}
+		r.cutOrder()
 		return r, nil
 	}
 	switch pr.m {
 	case Hamilton:
 		r.quota = new(big.Rat).SetFrac(r.total.big(), new(big.Int).Mul(big.NewInt(int64(seats)), bigU(pow10(pr.places))))
+		if r.total.hi == 0 && !forceBig {
+			sum = r.hareFloors(pr.pops, uint64(seats))
+			break
+		}
+		r.bound = r.total
 		for j, u := range units {
 			num := mul128(pr.pops[u], uint64(seats))
-			if r.total.hi == 0 && !forceBig {
-				q, rem, _ := divmod128(num, r.total.lo)
-				r.floors[j], r.rems[j] = int(q), u128{0, rem}
-			} else {
-				q, rem := new(big.Int).QuoRem(num.big(), r.total.big(), new(big.Int))
-				r.floors[j], r.rems[j] = int(q.Int64()), bigToU128(rem)
-			}
-			sum += r.floors[j]
+			q, rem := new(big.Int).QuoRem(num.big(), r.total.big(), new(big.Int))
+			r.floors[j], r.rems[j] = int32(q.Int64()), bigToU128(rem)
+			sum += int(r.floors[j])
 		}
 	case Droop:
 		scale := pow10(pr.places)
@@ -80,16 +94,16 @@ func (pr *problem) lrPass(units []int, seats int) (*lrRound, error) {
 		r.quota = new(big.Rat).SetInt(q)
 		q.Mul(q, bigU(scale)) // the quota in scaled units
 		if q.IsUint64() && !forceBig {
-			qq := q.Uint64()
-			for j, u := range units {
-				r.floors[j], r.rems[j] = int(pr.pops[u]/qq), u128{0, pr.pops[u] % qq}
-				sum += r.floors[j]
-			}
+			sum = r.droopFloors(pr.pops, q.Uint64())
 		} else {
+			r.bound = bigToU128(q) // a quota beyond 128 bits is above every population
+			if q.BitLen() > 128 {
+				r.bound = u128{^uint64(0), ^uint64(0)}
+			}
 			for j, u := range units {
 				f, rem := new(big.Int).QuoRem(bigU(pr.pops[u]), q, new(big.Int))
-				r.floors[j], r.rems[j] = int(f.Int64()), bigToU128(rem)
-				sum += r.floors[j]
+				r.floors[j], r.rems[j] = int32(f.Int64()), bigToU128(rem)
+				sum += int(r.floors[j])
 			}
 		}
 	}
@@ -98,14 +112,68 @@ func (pr *problem) lrPass(units []int, seats int) (*lrRound, error) {
 		return nil, scenarioError("seats", "the "+pr.m.Name()+" leaves "+strconv.Itoa(r.extra)+
 			" seats over for "+strconv.Itoa(len(units))+" units: too few people for this house size")
 	}
-	r.ranked = make([]int, len(units))
-	for j := range r.ranked {
-		r.ranked[j] = j
-	}
-	sort.SliceStable(r.ranked, func(x, y int) bool {
-		return r.rems[r.ranked[x]].cmp(r.rems[r.ranked[y]]) > 0
-	})
+	r.cutOrder()
 	return r, nil
+}
+
+// hareFloors fills the whole parts and remainders of p·seats/total for a
+// 64-bit total and returns the sum of the whole parts. A floating-point
+// quotient is only the first guess; the 128-bit remainder corrects it
+// exactly.
+func (r *lrRound) hareFloors(pops []uint64, seats uint64) (sum int) {
+	t := r.total.lo
+	ratio := float64(seats) / float64(t)
+	r.bound = u128{0, t}
+	hist := new([selectBuckets]int32)
+	shift := selectShift(r.bound)
+	for j, u := range r.units {
+		num := mul128(pops[u], seats)
+		q := uint64(float64(pops[u]) * ratio)
+		prod := mul128(q, t)
+		for prod.cmp(num) > 0 {
+			q--
+			prod = prod.sub(u128{0, t})
+		}
+		rem := num.sub(prod) // below 2^64 once q is within one of the quotient
+		for rem.hi != 0 || rem.lo >= t {
+			q++
+			rem = rem.sub(u128{0, t})
+		}
+		r.floors[j], r.rems[j] = int32(q), rem
+		hist[rem.lo>>shift&(selectBuckets-1)]++
+		sum += int(q)
+	}
+	r.hist = hist
+	return sum
+}
+
+// droopFloors fills the whole parts and remainders of p/q for a 64-bit quota
+// q (scaled) and returns the sum of the whole parts, correcting a
+// floating-point first guess exactly.
+func (r *lrRound) droopFloors(pops []uint64, q uint64) (sum int) {
+	inv := 1 / float64(q)
+	r.bound = u128{0, q}
+	hist := new([selectBuckets]int32)
+	shift := selectShift(r.bound)
+	for j, u := range r.units {
+		p := pops[u]
+		f := uint64(float64(p) * inv)
+		hi, lo := bits.Mul64(f, q)
+		for hi != 0 || lo > p {
+			f--
+			hi, lo = bits.Mul64(f, q)
+		}
+		rem := p - lo
+		for rem >= q {
+			f++
+			rem -= q
+		}
+		r.floors[j], r.rems[j] = int32(f), u128{0, rem}
+		hist[rem>>shift&(selectBuckets-1)]++
+		sum += int(f)
+	}
+	r.hist = hist
+	return sum
 }
 
 func bigToU128(b *big.Int) u128 {
@@ -115,24 +183,15 @@ func bigToU128(b *big.Int) u128 {
 }
 
 // cutTie reports the positions (in r.units) tied at the cut: those awarded a
-// remainder seat at the cut value and those left out at the same value.
+// remainder seat at the cut value and those left out at the same value, in
+// input order. They are the group of remainders equal to the cut value
+// (cutOrder), when it reaches past the cut.
 func (r *lrRound) cutTie() (awarded, left []int) {
-	if r.extra == 0 || r.extra == len(r.units) {
+	if r.extra == 0 || r.extra == len(r.units) || r.ge <= r.extra {
 		return nil, nil
 	}
-	v := r.rems[r.ranked[r.extra-1]]
-	if r.rems[r.ranked[r.extra]].cmp(v) != 0 {
-		return nil, nil
-	}
-	for k, j := range r.ranked {
-		if r.rems[j].cmp(v) == 0 {
-			if k < r.extra {
-				awarded = append(awarded, j)
-			} else {
-				left = append(left, j)
-			}
-		}
-	}
+	awarded = append([]int(nil), r.ranked[r.gt:r.extra]...)
+	left = append([]int(nil), r.ranked[r.extra:r.ge]...)
 	return awarded, left
 }
 
@@ -154,7 +213,7 @@ func (pr *problem) cutGroups(r *lrRound) (aw, lf []int, forced bool) {
 	k := len(a0)
 	var need, free, full []int
 	for _, j := range append(append([]int(nil), a0...), l0...) {
-		u, f := r.units[j], r.floors[j]
+		u, f := r.units[j], int(r.floors[j])
 		switch {
 		case f+1 == pr.min[u]:
 			need = append(need, j)
@@ -193,14 +252,28 @@ func (pr *problem) cutGroups(r *lrRound) (aw, lf []int, forced bool) {
 	return nil, nil, false
 }
 
-// remainderSeats runs the largest-remainder procedure with bounds.
+// remainderSeats runs the largest-remainder procedure with bounds and ranks
+// every remainder of the final pass, as the explanation shows them.
 func (pr *problem) remainderSeats() (*lrOutcome, error) {
+	o, err := pr.remainderCut()
+	if err == nil && o.final != nil {
+		o.final.rankAll()
+	}
+	return o, err
+}
+
+// remainderCut runs the largest-remainder procedure with bounds. Its passes
+// find the cut by selection: the remainders on either side of the cut are
+// grouped but not ranked (see lrRound.ranked).
+func (pr *problem) remainderCut() (*lrOutcome, error) {
 	n := pr.n()
 	out := &lrOutcome{full: make([]int, n), pinned: make([]int, n)}
 	active := make([]int, 0, n)
+	bounded := false // some unit has a minimum or a maximum
 	for i := 0; i < n; i++ {
 		if pr.eligible[i] {
 			active = append(active, i)
+			bounded = bounded || pr.min[i] > 0 || pr.max[i] != noCap
 		}
 	}
 	left := pr.h
@@ -221,33 +294,30 @@ func (pr *problem) remainderSeats() (*lrOutcome, error) {
 		}
 		out.passes = append(out.passes, r)
 		aw, lf, forced := pr.cutGroups(r)
-		got := make([]int, len(active))
-		for j := range active {
-			got[j] = r.floors[j]
-		}
-		for k := 0; k < r.extra; k++ {
-			got[r.ranked[k]]++
-		}
-		var rest []int
-		fixedAny := false
+		// This pass's seats, then the units they put outside a bound.
 		for j, u := range active {
-			switch {
-			case got[j] < pr.min[u]:
+			out.full[u] = int(r.floors[j])
+		}
+		for _, j := range r.ranked[:r.extra] {
+			out.full[active[j]]++
+		}
+		fixedAny := false
+		for _, u := range active {
+			if !bounded {
+				break
+			}
+			switch g := out.full[u]; {
+			case g < pr.min[u]:
 				out.full[u], out.pinned[u] = pr.min[u], -1
 				left -= pr.min[u]
 				fixedAny = true
-			case got[j] > pr.max[u]:
+			case g > pr.max[u]:
 				out.full[u], out.pinned[u] = pr.max[u], 1
 				left -= pr.max[u]
 				fixedAny = true
-			default:
-				rest = append(rest, u)
 			}
 		}
 		if !fixedAny {
-			for j, u := range active {
-				out.full[u] = got[j]
-			}
 			out.final = r
 			out.seats = out.full
 			if len(aw) > 0 {
@@ -267,6 +337,12 @@ func (pr *problem) remainderSeats() (*lrOutcome, error) {
 		// last) was settled inside the pass: report it.
 		if len(aw) > 0 && forced {
 			out.early = append(out.early, *pr.lrTieRecord(r, aw, lf))
+		}
+		rest := make([]int, 0, len(active))
+		for _, u := range active {
+			if out.pinned[u] == 0 {
+				rest = append(rest, u)
+			}
 		}
 		active = rest
 	}

@@ -871,10 +871,12 @@ func (w *WarmAllotter) bestSeats(a []int, held bool, g, top []float64, out []int
 	return out
 }
 
-// remainder apportions by a largest-remainder method in full.
+// remainder apportions by a largest-remainder method in full; the passes
+// find their cut by selection, and only the remainders the contest lists
+// name are ranked.
 func (w *WarmAllotter) remainder(r *WarmResult) error {
 	pr := &w.pr
-	o, err := pr.run(false)
+	o, err := pr.remainderCut()
 	if err != nil {
 		return err
 	}
@@ -884,12 +886,9 @@ func (w *WarmAllotter) remainder(r *WarmResult) error {
 		sum += s
 	}
 	r.Unassigned = pr.h - sum
-	var ties []Tie
-	if o.lr != nil {
-		ties = append(ties, o.lr.early...)
-	}
+	ties := o.early
 	if o.tie != nil {
-		ties = append(ties, *o.tie)
+		ties = append(ties[:len(ties):len(ties)], *o.tie)
 	}
 	if len(ties) > 0 {
 		in := make([]bool, pr.n())
@@ -905,8 +904,9 @@ func (w *WarmAllotter) remainder(r *WarmResult) error {
 			}
 		}
 	}
-	if k := w.sh.contest; k > 0 && o.lr != nil && o.lr.final != nil {
-		f := o.lr.final
+	if k := w.sh.contest; k > 0 && o.final != nil {
+		f := o.final
+		f.rankNear(k)
 		for j := f.extra - 1; j >= 0 && j >= f.extra-k; j-- {
 			r.Last = append(r.Last, f.units[f.ranked[j]])
 		}

@@ -1,0 +1,247 @@
+package engine
+
+import (
+	"math/bits"
+	"slices"
+)
+
+// This file holds the selection that the largest-remainder procedure uses
+// in place of sorting every remainder: to hand out e leftover seats it only
+// needs the e-th largest remainder v and, for each unit, whether its
+// remainder is above, equal to or below v. Finding v takes two passes over
+// the remainders (a histogram of their leading bits, then a selection
+// among those in the bucket that holds v); the three groups keep the input
+// order, as a stable sort would leave them. The full ranking the
+// explanation shows is made only when asked for (rankAll), and a few ranks
+// on either side of the cut cost little more (rankNear).
+
+// selectBuckets is the number of buckets of the leading-bit histogram.
+const selectBuckets = 1 << 11
+
+// selectShift is the shift that maps keys below bound to the buckets of
+// the leading-bit histogram: the 11 bits below the leading bit of bound.
+func selectShift(bound u128) int { return max(bitLen128(bound)-11, 0) }
+
+// kthLargest returns the e-th largest (1 <= e <= len(keys)) of the keys,
+// and how many keys are greater than it and equal to it. Every key is at
+// most bound, and count holds the histogram of the keys by
+// shr128(key, selectShift(bound)), or is nil.
+func kthLargest(keys []u128, e int, bound u128, count *[selectBuckets]int32) (v u128, gt, eq int) {
+	shift := selectShift(bound)
+	if count == nil {
+		count = new([selectBuckets]int32)
+		for _, k := range keys {
+			count[shr128(k, shift)&(selectBuckets-1)]++
+		}
+	}
+	b, above := selectBuckets-1, 0
+	for ; b > 0 && above+int(count[b]) < e; b-- {
+		above += int(count[b])
+	}
+	in := make([]u128, 0, count[b])
+	for _, k := range keys {
+		if shr128(k, shift)&(selectBuckets-1) == uint64(b) {
+			in = append(in, k)
+		}
+	}
+	v = quickSelect(in, e-above)
+	gt = above
+	for _, k := range in {
+		switch k.cmp(v) {
+		case 1:
+			gt++
+		case 0:
+			eq++
+		}
+	}
+	return v, gt, eq
+}
+
+func bitLen128(x u128) int {
+	if x.hi != 0 {
+		return 64 + bits.Len64(x.hi)
+	}
+	return bits.Len64(x.lo)
+}
+
+// shr128 returns the low 64 bits of x >> s.
+func shr128(x u128, s int) uint64 {
+	switch {
+	case s == 0:
+		return x.lo
+	case s >= 64:
+		return x.hi >> (s - 64)
+	}
+	return x.lo>>s | x.hi<<(64-s)
+}
+
+// quickSelect returns the e-th largest (1 <= e <= len(s)) of s, reordering
+// s. Three-way partitions around a median of three keep it linear on
+// average, with many equal keys too; past a depth of about 2·log2(len(s))
+// it sorts what is left, so the worst case is O(n log n).
+func quickSelect(s []u128, e int) u128 {
+	lo, hi := 0, len(s) // the answer is in s[lo:hi], the e-th largest there
+	for depth := 2 * bits.Len(uint(len(s))); hi-lo > 16; depth-- {
+		if depth == 0 {
+			break
+		}
+		m := lo + (hi-lo)/2
+		p := median3(s[lo], s[m], s[hi-1])
+		// Dutch flag, largest first: [lo,gt) > p, [gt,i) == p, (lt,hi) < p.
+		gt, i, lt := lo, lo, hi-1
+		for i <= lt {
+			switch c := s[i].cmp(p); {
+			case c > 0:
+				s[gt], s[i] = s[i], s[gt]
+				gt++
+				i++
+			case c < 0:
+				s[i], s[lt] = s[lt], s[i]
+				lt--
+			default:
+				i++
+			}
+		}
+		switch {
+		case e <= gt-lo:
+			hi = gt
+		case e <= i-lo:
+			return p
+		default:
+			e -= i - lo
+			lo = i
+		}
+	}
+	t := s[lo:hi]
+	slices.SortFunc(t, func(x, y u128) int { return y.cmp(x) })
+	return t[e-1]
+}
+
+func median3(a, b, c u128) u128 {
+	if a.cmp(b) > 0 {
+		a, b = b, a
+	}
+	if b.cmp(c) > 0 {
+		b = c
+	}
+	if a.cmp(b) > 0 {
+		return a
+	}
+	return b
+}
+
+// cutOrder fills r.ranked with the positions of r.units in three groups,
+// each in input order: remainders above the cut value v (the extra-th
+// largest), equal to it, and below it; r.gt and r.ge are where the second
+// and third groups start. With no seats over every position is in the
+// group below the cut; with one for every unit, in the group above it.
+func (r *lrRound) cutOrder() {
+	n := len(r.units)
+	r.ranked = make([]int, n)
+	if r.extra == 0 || r.extra == n {
+		for j := range r.ranked {
+			r.ranked[j] = j
+		}
+		r.gt = 0
+		if r.extra == n {
+			r.gt = n
+		}
+		r.ge = r.gt
+		return
+	}
+	v, gt, eq := kthLargest(r.rems, r.extra, r.bound, r.hist)
+	// One pass, without a branch on the comparison: the positions above v
+	// fill r.ranked from the front and those below it from the back (in
+	// reverse), each written at both frontiers and kept by the one that
+	// moves; the few equal to v are set aside and fill the gap between.
+	front, back := 0, n-1
+	eqs := make([]int, 0, eq)
+	for j, x := range r.rems {
+		_, up := bits.Sub64(v.lo, x.lo, 0)
+		_, up = bits.Sub64(v.hi, x.hi, up) // x > v
+		_, down := bits.Sub64(x.lo, v.lo, 0)
+		_, down = bits.Sub64(x.hi, v.hi, down) // x < v
+		r.ranked[front] = j
+		r.ranked[back] = j
+		front += int(up)
+		back -= int(down)
+		if up|down == 0 {
+			eqs = append(eqs, j)
+		}
+	}
+	copy(r.ranked[gt:], eqs)
+	slices.Reverse(r.ranked[gt+eq:])
+	r.gt, r.ge = gt, gt+eq
+}
+
+// before reports whether position x ranks before position y: a larger
+// remainder, or an equal one earlier in the input.
+func (r *lrRound) before(x, y int) int {
+	if c := r.rems[y].cmp(r.rems[x]); c != 0 {
+		return c
+	}
+	return x - y
+}
+
+// rankAll completes r.ranked into the full ranking, largest remainder first
+// and equal remainders in input order, leaving the group at the cut as
+// cutGroups ordered it.
+func (r *lrRound) rankAll() {
+	if r.ranked == nil || r.sorted {
+		return
+	}
+	slices.SortFunc(r.ranked[:r.gt], r.before)
+	slices.SortFunc(r.ranked[r.ge:], r.before)
+	r.sorted = true
+}
+
+// rankNear puts the k positions on either side of the cut in rank order:
+// the last k of the group above the cut value and the first k of the group
+// below it; the rest of each group stays in no particular order.
+func (r *lrRound) rankNear(k int) {
+	if r.ranked == nil || r.sorted {
+		return
+	}
+	above := r.ranked[:r.gt]
+	if k >= len(above) {
+		slices.SortFunc(above, r.before)
+	} else {
+		// The k smallest to the end, in order.
+		r.bestTo(above, k, func(x, y int) int { return -r.before(x, y) })
+		slices.Reverse(above)
+	}
+	below := r.ranked[r.ge:]
+	if k >= len(below) {
+		slices.SortFunc(below, r.before)
+	} else {
+		r.bestTo(below, k, r.before)
+	}
+}
+
+// bestTo moves the k first positions of s under cmp to the front of s, in
+// order (k < len(s)).
+func (r *lrRound) bestTo(s []int, k int, cmp func(x, y int) int) {
+	best := make([]int, 0, k+1)
+	for _, j := range s {
+		if len(best) == k && cmp(j, best[k-1]) >= 0 {
+			continue
+		}
+		at, _ := slices.BinarySearchFunc(best, j, cmp)
+		best = slices.Insert(best, at, j)
+		if len(best) > k {
+			best = best[:k]
+		}
+	}
+	in := make(map[int]bool, k)
+	for _, j := range best {
+		in[j] = true
+	}
+	rest := make([]int, 0, len(s)-k)
+	for _, j := range s {
+		if !in[j] {
+			rest = append(rest, j)
+		}
+	}
+	copy(s, best)
+	copy(s[k:], rest)
+}
