@@ -173,14 +173,7 @@ func WriteDiffText(w io.Writer, title string, d *analysis.Diff, md bool) error {
 		return err
 	}
 	b.Reset()
-	t := DiffTable(d)
-	var err error
-	if md {
-		err = t.WriteMarkdown(w)
-	} else {
-		err = t.WriteText(w)
-	}
-	if err != nil {
+	if err := DiffTable(d).Write(w, md); err != nil {
 		return err
 	}
 	b.WriteString("\n")

@@ -151,14 +151,7 @@ func WriteMeasureText(w io.Writer, title string, set *MeasureSet, md bool) error
 		return err
 	}
 	b.Reset()
-	t := MeasureTable(set)
-	var err error
-	if md {
-		err = t.WriteMarkdown(w)
-	} else {
-		err = t.WriteText(w)
-	}
-	if err != nil {
+	if err := MeasureTable(set).Write(w, md); err != nil {
 		return err
 	}
 	bl := bulletFor(md)

@@ -315,14 +315,7 @@ func WriteGrowthText(w io.Writer, title string, g *GrowthSet, md bool) error {
 		return err
 	}
 	b.Reset()
-	t := GrowthTable(g)
-	var err error
-	if md {
-		err = t.WriteMarkdown(w)
-	} else {
-		err = t.WriteText(w)
-	}
-	if err != nil {
+	if err := GrowthTable(g).Write(w, md); err != nil {
 		return err
 	}
 	b.WriteString("\n")
@@ -464,14 +457,7 @@ func WriteAdmitText(w io.Writer, title string, a *AdmitSet, md bool) error {
 		return err
 	}
 	b.Reset()
-	t := AdmitTable(a)
-	var err error
-	if md {
-		err = t.WriteMarkdown(w)
-	} else {
-		err = t.WriteText(w)
-	}
-	if err != nil {
+	if err := AdmitTable(a).Write(w, md); err != nil {
 		return err
 	}
 	b.WriteString("\n")

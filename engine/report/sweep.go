@@ -308,14 +308,7 @@ func writeSweep(w io.Writer, title string, set *SweepSet, md bool) error {
 			return err
 		}
 		b.Reset()
-		t := SweepTable(sw)
-		var err error
-		if md {
-			err = t.WriteMarkdown(w)
-		} else {
-			err = t.WriteText(w)
-		}
-		if err != nil {
+		if err := SweepTable(sw).Write(w, md); err != nil {
 			return err
 		}
 		b.WriteString("\n")

@@ -77,6 +77,15 @@ func (t *Table) WriteText(w io.Writer) error {
 	return err
 }
 
+// Write writes the table as Markdown when md is set, as aligned text
+// otherwise.
+func (t *Table) Write(w io.Writer, md bool) error {
+	if md {
+		return t.WriteMarkdown(w)
+	}
+	return t.WriteText(w)
+}
+
 // WriteMarkdown writes the table as a Markdown pipe table.
 func (t *Table) WriteMarkdown(w io.Writer) error {
 	var b strings.Builder
