@@ -42,24 +42,38 @@ type Field struct {
 	Value *Value
 }
 
+// The constructors and methods that documents call thousands of times are
+// marked noinline: inlined at every call they grow the WebAssembly build
+// by about 110 KB gzipped, for no measurable gain in speed.
+
 // NewObject returns an empty object.
 func NewObject() *Value { return &Value{Kind: Object} }
 
 // NewArray returns an array of the given items.
+//
+//go:noinline
 func NewArray(items ...*Value) *Value { return &Value{Kind: Array, Items: items} }
 
 // Str returns a string value.
+//
+//go:noinline
 func Str(s string) *Value { return &Value{Kind: String, Text: s} }
 
 // Num returns a number value from its literal text, which must be a valid
 // JSON number (such as an exact decimal "1250.75").
+//
+//go:noinline
 func Num(text string) *Value { return &Value{Kind: Number, Text: text} }
 
 // Int returns a number value for n.
+//
+//go:noinline
 func Int(n int) *Value { return &Value{Kind: Number, Text: strconv.Itoa(n)} }
 
 // Float returns a number value for f with the shortest exact-enough text.
 // Infinities and NaN, which JSON cannot hold, become null.
+//
+//go:noinline
 func Float(f float64) *Value {
 	if f != f || f > 1.7976931348623157e308 || f < -1.7976931348623157e308 {
 		return NullValue()
@@ -74,6 +88,8 @@ func Boolean(b bool) *Value { return &Value{Kind: Bool, Bool: b} }
 func NullValue() *Value { return &Value{Kind: Null} }
 
 // Set adds or replaces the member key of an object and returns the object.
+//
+//go:noinline
 func (v *Value) Set(key string, x *Value) *Value {
 	if x == nil {
 		x = NullValue()
@@ -89,6 +105,8 @@ func (v *Value) Set(key string, x *Value) *Value {
 }
 
 // Append adds items to an array and returns the array.
+//
+//go:noinline
 func (v *Value) Append(items ...*Value) *Value {
 	v.Items = append(v.Items, items...)
 	return v
@@ -96,6 +114,8 @@ func (v *Value) Append(items ...*Value) *Value {
 
 // Get returns the member key of an object, or nil when v is not an object
 // or has no such member.
+//
+//go:noinline
 func (v *Value) Get(key string) *Value {
 	if v == nil || v.Kind != Object {
 		return nil
