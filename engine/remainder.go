@@ -16,8 +16,14 @@ import (
 type lrRound struct {
 	units  []int   // the units apportioned in this pass, in input order
 	seats  int     // the seats they share
-	floors []int32 // whole parts, by position in units (at most MaxSeats)
-	rems   []u128  // remainder numerators, by position in units
+	// whole holds the whole parts, by unit (not position): the seats of
+	// the procedure's outcome, which the pass fills before the remainder
+	// seats are added.
+	whole []int
+	// The remainder numerators, by position in units: in rem64 when every
+	// one fits in 64 bits (the quota or the total does), otherwise in rems.
+	rems  []u128
+	rem64 []uint64
 	// For Hamilton the remainder of unit j is rems[j]/total (a fraction of a
 	// seat); for Droop it is rems[j] people (scaled).
 	total u128 // population of these units (scaled)
@@ -54,21 +60,21 @@ type lrOutcome struct {
 	passes []*lrRound
 }
 
-func (pr *problem) lrPass(units []int, seats int) (*lrRound, error) {
-	r := &lrRound{units: units, seats: seats, floors: make([]int32, len(units)), rems: make([]u128, len(units))}
-	var carry uint64
-	for _, u := range units {
-		var c uint64
-		r.total.lo, c = bits.Add64(r.total.lo, pr.pops[u], 0)
-		carry += c
-	}
-	r.total.hi = carry
+// lrPass apportions seats among units (total is their population) by
+// whole parts and remainders, writing the whole parts into whole (by
+// unit), and finds the cut.
+func (pr *problem) lrPass(units []int, seats int, total u128, whole []int) (*lrRound, error) {
+	r := &lrRound{units: units, seats: seats, whole: whole, total: total}
 	if r.total.hi == 0 && r.total.lo == 0 {
 		return nil, scenarioError("population", "the units left to apportion have no population")
 	}
 	sum := 0
 	if seats == 0 {
-		// Nothing left to share: every whole part is zero.
+		// Nothing left to share: every whole part and remainder is zero.
+		for _, u := range units {
+			whole[u] = 0
+		}
+		r.rem64 = make([]uint64, len(units))
 		r.cutOrder()
 		return r, nil
 	}
@@ -80,11 +86,12 @@ func (pr *problem) lrPass(units []int, seats int) (*lrRound, error) {
 			break
 		}
 		r.bound = r.total
+		r.rems = make([]u128, len(units))
 		for j, u := range units {
 			num := mul128(pr.pops[u], uint64(seats))
 			q, rem := new(big.Int).QuoRem(num.big(), r.total.big(), new(big.Int))
-			r.floors[j], r.rems[j] = int32(q.Int64()), bigToU128(rem)
-			sum += int(r.floors[j])
+			whole[u], r.rems[j] = int(q.Int64()), bigToU128(rem)
+			sum += whole[u]
 		}
 	case Droop:
 		scale := pow10(pr.places)
@@ -100,10 +107,11 @@ func (pr *problem) lrPass(units []int, seats int) (*lrRound, error) {
 			if q.BitLen() > 128 {
 				r.bound = u128{^uint64(0), ^uint64(0)}
 			}
+			r.rems = make([]u128, len(units))
 			for j, u := range units {
 				f, rem := new(big.Int).QuoRem(bigU(pr.pops[u]), q, new(big.Int))
-				r.floors[j], r.rems[j] = int32(f.Int64()), bigToU128(rem)
-				sum += int(r.floors[j])
+				whole[u], r.rems[j] = int(f.Int64()), bigToU128(rem)
+				sum += whole[u]
 			}
 		}
 	}
@@ -126,6 +134,8 @@ func (r *lrRound) hareFloors(pops []uint64, seats uint64) (sum int) {
 	r.bound = u128{0, t}
 	hist := new([selectBuckets]int32)
 	shift := selectShift(r.bound)
+	rems := make([]uint64, len(r.units))
+	r.rem64 = rems
 	for j, u := range r.units {
 		num := mul128(pops[u], seats)
 		q := uint64(float64(pops[u]) * ratio)
@@ -139,7 +149,7 @@ func (r *lrRound) hareFloors(pops []uint64, seats uint64) (sum int) {
 			q++
 			rem = rem.sub(u128{0, t})
 		}
-		r.floors[j], r.rems[j] = int32(q), rem
+		r.whole[u], rems[j] = int(q), rem.lo
 		hist[rem.lo>>shift&(selectBuckets-1)]++
 		sum += int(q)
 	}
@@ -155,6 +165,8 @@ func (r *lrRound) droopFloors(pops []uint64, q uint64) (sum int) {
 	r.bound = u128{0, q}
 	hist := new([selectBuckets]int32)
 	shift := selectShift(r.bound)
+	rems := make([]uint64, len(r.units))
+	r.rem64 = rems
 	for j, u := range r.units {
 		p := pops[u]
 		f := uint64(float64(p) * inv)
@@ -168,12 +180,20 @@ func (r *lrRound) droopFloors(pops []uint64, q uint64) (sum int) {
 			f++
 			rem -= q
 		}
-		r.floors[j], r.rems[j] = int32(f), u128{0, rem}
+		r.whole[u], rems[j] = int(f), rem
 		hist[rem>>shift&(selectBuckets-1)]++
 		sum += int(f)
 	}
 	r.hist = hist
 	return sum
+}
+
+// rem returns the remainder numerator at position j.
+func (r *lrRound) rem(j int) u128 {
+	if r.rem64 != nil {
+		return u128{0, r.rem64[j]}
+	}
+	return r.rems[j]
 }
 
 func bigToU128(b *big.Int) u128 {
@@ -213,7 +233,8 @@ func (pr *problem) cutGroups(r *lrRound) (aw, lf []int, forced bool) {
 	k := len(a0)
 	var need, free, full []int
 	for _, j := range append(append([]int(nil), a0...), l0...) {
-		u, f := r.units[j], int(r.floors[j])
+		u := r.units[j]
+		f := r.whole[u]
 		switch {
 		case f+1 == pr.min[u]:
 			need = append(need, j)
@@ -270,10 +291,14 @@ func (pr *problem) remainderCut() (*lrOutcome, error) {
 	out := &lrOutcome{full: make([]int, n), pinned: make([]int, n)}
 	active := make([]int, 0, n)
 	bounded := false // some unit has a minimum or a maximum
+	var total u128   // the population of the active units
 	for i := 0; i < n; i++ {
 		if pr.eligible[i] {
 			active = append(active, i)
 			bounded = bounded || pr.min[i] > 0 || pr.max[i] != noCap
+			var c uint64
+			total.lo, c = bits.Add64(total.lo, pr.pops[i], 0)
+			total.hi += c
 		}
 	}
 	left := pr.h
@@ -288,16 +313,14 @@ func (pr *problem) remainderCut() (*lrOutcome, error) {
 		if left < 0 {
 			return nil, scenarioError("min", "the minimums cannot all be met")
 		}
-		r, err := pr.lrPass(active, left)
+		r, err := pr.lrPass(active, left, total, out.full)
 		if err != nil {
 			return nil, err
 		}
 		out.passes = append(out.passes, r)
 		aw, lf, forced := pr.cutGroups(r)
-		// This pass's seats, then the units they put outside a bound.
-		for j, u := range active {
-			out.full[u] = int(r.floors[j])
-		}
+		// This pass's seats (the whole parts are in out.full), then the
+		// units they put outside a bound.
 		for _, j := range r.ranked[:r.extra] {
 			out.full[active[j]]++
 		}
@@ -339,9 +362,11 @@ func (pr *problem) remainderCut() (*lrOutcome, error) {
 			out.early = append(out.early, *pr.lrTieRecord(r, aw, lf))
 		}
 		rest := make([]int, 0, len(active))
+		total = u128{}
 		for _, u := range active {
 			if out.pinned[u] == 0 {
 				rest = append(rest, u)
+				total, _ = total.add64(pr.pops[u])
 			}
 		}
 		active = rest
@@ -379,7 +404,7 @@ func (pr *problem) lrTieRecord(r *lrRound, aw, lf []int) *Tie {
 // Hamilton, people for Droop.
 func (r *lrRound) remValue(pr *problem, j int) Value {
 	if pr.m == Hamilton {
-		return ratValue(new(big.Rat).SetFrac(r.rems[j].big(), r.total.big()))
+		return ratValue(new(big.Rat).SetFrac(r.rem(j).big(), r.total.big()))
 	}
-	return ratValue(new(big.Rat).SetFrac(r.rems[j].big(), bigU(pow10(pr.places))))
+	return ratValue(new(big.Rat).SetFrac(r.rem(j).big(), bigU(pow10(pr.places))))
 }

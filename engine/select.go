@@ -23,15 +23,19 @@ const selectBuckets = 1 << 11
 func selectShift(bound u128) int { return max(bitLen128(bound)-11, 0) }
 
 // kthLargest returns the e-th largest (1 <= e <= len(keys)) of the keys,
-// and how many keys are greater than it and equal to it. Every key is at
-// most bound, and count holds the histogram of the keys by
-// shr128(key, selectShift(bound)), or is nil.
-func kthLargest(keys []u128, e int, bound u128, count *[selectBuckets]int32) (v u128, gt, eq int) {
+// and how many keys are greater than it and equal to it. The keys are wide,
+// or narrow when wide is nil. Every key is at most bound, and count holds
+// the histogram of the keys by shr128(key, selectShift(bound)), or is nil.
+func kthLargest(wide []u128, narrow []uint64, e int, bound u128, count *[selectBuckets]int32) (v u128, gt, eq int) {
 	shift := selectShift(bound)
+	const mask = selectBuckets - 1
 	if count == nil {
 		count = new([selectBuckets]int32)
-		for _, k := range keys {
-			count[shr128(k, shift)&(selectBuckets-1)]++
+		for _, k := range wide {
+			count[shr128(k, shift)&mask]++
+		}
+		for _, k := range narrow {
+			count[shr128(u128{0, k}, shift)&mask]++
 		}
 	}
 	b, above := selectBuckets-1, 0
@@ -39,9 +43,20 @@ func kthLargest(keys []u128, e int, bound u128, count *[selectBuckets]int32) (v 
 		above += int(count[b])
 	}
 	in := make([]u128, 0, count[b])
-	for _, k := range keys {
-		if shr128(k, shift)&(selectBuckets-1) == uint64(b) {
+	for _, k := range wide {
+		if shr128(k, shift)&mask == uint64(b) {
 			in = append(in, k)
+		}
+	}
+	if shift < 64 {
+		for _, k := range narrow {
+			if k>>shift&mask == uint64(b) {
+				in = append(in, u128{0, k})
+			}
+		}
+	} else if b == 0 {
+		for _, k := range narrow {
+			in = append(in, u128{0, k})
 		}
 	}
 	v = quickSelect(in, e-above)
@@ -149,13 +164,27 @@ func (r *lrRound) cutOrder() {
 		r.ge = r.gt
 		return
 	}
-	v, gt, eq := kthLargest(r.rems, r.extra, r.bound, r.hist)
+	v, gt, eq := kthLargest(r.rems, r.rem64, r.extra, r.bound, r.hist)
 	// One pass, without a branch on the comparison: the positions above v
 	// fill r.ranked from the front and those below it from the back (in
 	// reverse), each written at both frontiers and kept by the one that
 	// moves; the few equal to v are set aside and fill the gap between.
 	front, back := 0, n-1
 	eqs := make([]int, 0, eq)
+	if r.rem64 != nil {
+		vv := v.lo
+		for j, x := range r.rem64 {
+			_, up := bits.Sub64(vv, x, 0)   // x > v
+			_, down := bits.Sub64(x, vv, 0) // x < v
+			r.ranked[front] = j
+			r.ranked[back] = j
+			front += int(up)
+			back -= int(down)
+			if up|down == 0 {
+				eqs = append(eqs, j)
+			}
+		}
+	}
 	for j, x := range r.rems {
 		_, up := bits.Sub64(v.lo, x.lo, 0)
 		_, up = bits.Sub64(v.hi, x.hi, up) // x > v
@@ -177,6 +206,12 @@ func (r *lrRound) cutOrder() {
 // before reports whether position x ranks before position y: a larger
 // remainder, or an equal one earlier in the input.
 func (r *lrRound) before(x, y int) int {
+	if r.rem64 != nil {
+		if a, b := r.rem64[x], r.rem64[y]; a != b {
+			return cmpU(b, a)
+		}
+		return x - y
+	}
 	if c := r.rems[y].cmp(r.rems[x]); c != 0 {
 		return c
 	}

@@ -36,6 +36,18 @@ func genKeys(t *rapid.T) []u128 {
 	return keys
 }
 
+// narrowKeys returns the keys as 64-bit values when they all fit.
+func narrowKeys(keys []u128) ([]uint64, bool) {
+	out := make([]uint64, len(keys))
+	for i, k := range keys {
+		if k.hi != 0 {
+			return nil, false
+		}
+		out[i] = k.lo
+	}
+	return out, true
+}
+
 func maxKey(keys []u128) u128 {
 	var m u128
 	for _, k := range keys {
@@ -66,9 +78,15 @@ func TestKthLargest(t *testing.T) {
 		if rapid.Bool().Draw(t, "looseBound") {
 			bound, _ = bound.add64(rapid.Uint64().Draw(t, "slack"))
 		}
-		v, g, q := kthLargest(slices.Clone(keys), e, bound, nil)
+		v, g, q := kthLargest(slices.Clone(keys), nil, e, bound, nil)
 		if v != want || g != gt || q != eq {
 			t.Fatalf("kthLargest(%d) = %v (%d above, %d equal), want %v (%d, %d)", e, v, g, q, want, gt, eq)
+		}
+		if narrow, ok := narrowKeys(keys); ok {
+			v, g, q := kthLargest(nil, narrow, e, bound, nil)
+			if v != want || g != gt || q != eq {
+				t.Fatalf("kthLargest(%d) on 64-bit keys = %v (%d above, %d equal), want %v (%d, %d)", e, v, g, q, want, gt, eq)
+			}
 		}
 		if got := quickSelect(slices.Clone(keys), e); got != want {
 			t.Fatalf("quickSelect(%d) = %v, want %v", e, got, want)
@@ -92,6 +110,9 @@ func TestCutOrder(t *testing.T) {
 		keys := genKeys(t)
 		n := len(keys)
 		r := &lrRound{units: make([]int, n), rems: keys, extra: rapid.IntRange(0, n).Draw(t, "extra"), bound: maxKey(keys)}
+		if narrow, ok := narrowKeys(keys); ok && rapid.Bool().Draw(t, "narrow") {
+			r.rems, r.rem64 = nil, narrow
+		}
 		r.cutOrder()
 		want := stableRanking(keys)
 		// The groups hold what the stable ranking holds at their places,
@@ -114,7 +135,7 @@ func TestCutOrder(t *testing.T) {
 			}
 		}
 		k := rapid.IntRange(1, 40).Draw(t, "near")
-		near := &lrRound{units: r.units, rems: keys, extra: r.extra, ranked: slices.Clone(r.ranked), gt: r.gt, ge: r.ge}
+		near := &lrRound{units: r.units, rems: r.rems, rem64: r.rem64, extra: r.extra, ranked: slices.Clone(r.ranked), gt: r.gt, ge: r.ge}
 		near.rankNear(k)
 		r.rankAll()
 		if !slices.Equal(r.ranked, want) {
@@ -145,7 +166,11 @@ func TestRemainderRanks(t *testing.T) {
 					return
 				}
 				f := o.final
-				want := stableRanking(f.rems)
+				rems := make([]u128, len(f.units))
+				for j := range rems {
+					rems[j] = f.rem(j)
+				}
+				want := stableRanking(rems)
 				for p := range want {
 					if (p < f.gt || p >= f.ge) && f.ranked[p] != want[p] {
 						t.Fatalf("rank %d: position %d, stable ranking %d", p+1, f.ranked[p], want[p])
