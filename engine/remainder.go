@@ -14,8 +14,8 @@ import (
 
 // lrRound is one pass of the largest-remainder procedure over some units.
 type lrRound struct {
-	units  []int   // the units apportioned in this pass, in input order
-	seats  int     // the seats they share
+	units []int // the units apportioned in this pass, in input order
+	seats int   // the seats they share
 	// whole holds the whole parts, by unit (not position): the seats of
 	// the procedure's outcome, which the pass fills before the remainder
 	// seats are added.
