@@ -132,7 +132,10 @@ func (r *lrRound) hareFloors(pops []uint64, seats uint64) (sum int) {
 	t := r.total.lo
 	ratio := float64(seats) / float64(t)
 	r.bound = u128{0, t}
-	hist := new([selectBuckets]int32)
+	var hist *[selectBuckets]int32 // the histogram kthLargest needs, if any
+	if len(r.units) >= selectSmall {
+		hist = new([selectBuckets]int32)
+	}
 	shift := selectShift(r.bound)
 	rems := make([]uint64, len(r.units))
 	r.rem64 = rems
@@ -150,7 +153,9 @@ func (r *lrRound) hareFloors(pops []uint64, seats uint64) (sum int) {
 			rem = rem.sub(u128{0, t})
 		}
 		r.whole[u], rems[j] = int(q), rem.lo
-		hist[rem.lo>>shift&(selectBuckets-1)]++
+		if hist != nil {
+			hist[rem.lo>>shift&(selectBuckets-1)]++
+		}
 		sum += int(q)
 	}
 	r.hist = hist
@@ -163,7 +168,10 @@ func (r *lrRound) hareFloors(pops []uint64, seats uint64) (sum int) {
 func (r *lrRound) droopFloors(pops []uint64, q uint64) (sum int) {
 	inv := 1 / float64(q)
 	r.bound = u128{0, q}
-	hist := new([selectBuckets]int32)
+	var hist *[selectBuckets]int32 // the histogram kthLargest needs, if any
+	if len(r.units) >= selectSmall {
+		hist = new([selectBuckets]int32)
+	}
 	shift := selectShift(r.bound)
 	rems := make([]uint64, len(r.units))
 	r.rem64 = rems
@@ -181,7 +189,9 @@ func (r *lrRound) droopFloors(pops []uint64, q uint64) (sum int) {
 			rem -= q
 		}
 		r.whole[u], rems[j] = int(f), rem
-		hist[rem>>shift&(selectBuckets-1)]++
+		if hist != nil {
+			hist[rem>>shift&(selectBuckets-1)]++
+		}
 		sum += int(f)
 	}
 	r.hist = hist

@@ -18,6 +18,10 @@ import (
 // selectBuckets is the number of buckets of the leading-bit histogram.
 const selectBuckets = 1 << 11
 
+// selectSmall is the fewest keys worth a histogram; fewer are selected
+// among directly.
+const selectSmall = 1 << 12
+
 // selectShift is the shift that maps keys below bound to the buckets of
 // the leading-bit histogram: the 11 bits below the leading bit of bound.
 func selectShift(bound u128) int { return max(bitLen128(bound)-11, 0) }
@@ -27,6 +31,23 @@ func selectShift(bound u128) int { return max(bitLen128(bound)-11, 0) }
 // or narrow when wide is nil. Every key is at most bound, and count holds
 // the histogram of the keys by shr128(key, selectShift(bound)), or is nil.
 func kthLargest(wide []u128, narrow []uint64, e int, bound u128, count *[selectBuckets]int32) (v u128, gt, eq int) {
+	if len(wide)+len(narrow) < selectSmall {
+		in := make([]u128, 0, len(wide)+len(narrow))
+		in = append(in, wide...)
+		for _, k := range narrow {
+			in = append(in, u128{0, k})
+		}
+		v = quickSelect(in, e)
+		for _, k := range in {
+			switch k.cmp(v) {
+			case 1:
+				gt++
+			case 0:
+				eq++
+			}
+		}
+		return v, gt, eq
+	}
 	shift := selectShift(bound)
 	const mask = selectBuckets - 1
 	if count == nil {

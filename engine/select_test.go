@@ -14,7 +14,10 @@ import (
 // genKeys draws remainders: few distinct values (many equal), full 64-bit
 // values, or values with high words (the math/big path's remainders).
 func genKeys(t *rapid.T) []u128 {
-	n := rapid.IntRange(1, 3000).Draw(t, "n")
+	n := rapid.IntRange(1, 300).Draw(t, "n")
+	if rapid.Bool().Draw(t, "many") {
+		n = rapid.IntRange(selectSmall, 3*selectSmall).Draw(t, "many n") // the histogram path
+	}
 	kind := rapid.IntRange(0, 3).Draw(t, "kind")
 	keys := make([]u128, n)
 	for i := range keys {
@@ -78,12 +81,19 @@ func TestKthLargest(t *testing.T) {
 		if rapid.Bool().Draw(t, "looseBound") {
 			bound, _ = bound.add64(rapid.Uint64().Draw(t, "slack"))
 		}
-		v, g, q := kthLargest(slices.Clone(keys), nil, e, bound, nil)
+		var count *[selectBuckets]int32
+		if rapid.Bool().Draw(t, "count") {
+			count = new([selectBuckets]int32)
+			for _, k := range keys {
+				count[shr128(k, selectShift(bound))&(selectBuckets-1)]++
+			}
+		}
+		v, g, q := kthLargest(slices.Clone(keys), nil, e, bound, count)
 		if v != want || g != gt || q != eq {
 			t.Fatalf("kthLargest(%d) = %v (%d above, %d equal), want %v (%d, %d)", e, v, g, q, want, gt, eq)
 		}
 		if narrow, ok := narrowKeys(keys); ok {
-			v, g, q := kthLargest(nil, narrow, e, bound, nil)
+			v, g, q := kthLargest(nil, narrow, e, bound, count)
 			if v != want || g != gt || q != eq {
 				t.Fatalf("kthLargest(%d) on 64-bit keys = %v (%d above, %d equal), want %v (%d, %d)", e, v, g, q, want, gt, eq)
 			}
