@@ -37,7 +37,8 @@ type lrRound struct {
 	ranked []int
 	gt, ge int
 	sorted bool
-	extra  int // seats handed out by remainder
+	near   bool // rankNear has reordered the groups
+	extra  int  // seats handed out by remainder
 	// bound is at least every remainder; hist, when set, counts the
 	// remainders by their leading bits below it (see kthLargest).
 	bound u128

@@ -246,9 +246,50 @@ func (r *lrRound) rankAll() {
 	if r.ranked == nil || r.sorted {
 		return
 	}
-	slices.SortFunc(r.ranked[:r.gt], r.before)
-	slices.SortFunc(r.ranked[r.ge:], r.before)
+	for _, g := range [][]int{r.ranked[:r.gt], r.ranked[r.ge:]} {
+		if r.rem64 != nil && len(g) >= selectSmall && !r.near {
+			radixRank(g, r.rem64, bitLen128(r.bound))
+		} else {
+			slices.SortFunc(g, r.before)
+		}
+	}
 	r.sorted = true
+}
+
+// radixRank sorts the positions g, given in input order, by their keys
+// (below 2^width), largest first: a least-significant-digit radix sort,
+// which is stable, so that equal keys stay in input order.
+func radixRank(g []int, keys []uint64, width int) {
+	const digit = 11
+	type pair struct {
+		k uint64
+		j int
+	}
+	a, b := make([]pair, len(g)), make([]pair, len(g))
+	for i, j := range g {
+		a[i] = pair{keys[j], j}
+	}
+	var count [1 << digit]int
+	for shift := 0; shift < width; shift += digit {
+		clear(count[:])
+		for _, p := range a {
+			count[(1<<digit-1)-(p.k>>shift)&(1<<digit-1)]++
+		}
+		at := 0
+		for d, c := range count {
+			count[d] = at
+			at += c
+		}
+		for _, p := range a {
+			d := (1<<digit - 1) - (p.k>>shift)&(1<<digit-1)
+			b[count[d]] = p
+			count[d]++
+		}
+		a, b = b, a
+	}
+	for i, p := range a {
+		g[i] = p.j
+	}
 }
 
 // rankNear puts the k positions on either side of the cut in rank order:
@@ -258,6 +299,7 @@ func (r *lrRound) rankNear(k int) {
 	if r.ranked == nil || r.sorted {
 		return
 	}
+	r.near = true
 	above := r.ranked[:r.gt]
 	if k >= len(above) {
 		slices.SortFunc(above, r.before)
