@@ -219,6 +219,20 @@ func TestJumpLarge(t *testing.T) {
 			if !slices.Equal(got.seats, want.seats) || !reflect.DeepEqual(got.tie, want.tie) {
 				t.Errorf("%s bounded=%v: jump and sequential differ", m, bounded)
 			}
+			// The result stands on its divisor certificate, re-rounded
+			// by the reference.
+			res, err := Allot(s, 0)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if len(res.Ties) > 0 || res.Divisor.Certificate == "" {
+				t.Fatalf("%s bounded=%v: tie or no certificate: %+v", m, bounded, res.Divisor)
+			}
+			d, _ := new(big.Rat).SetString(res.Divisor.Certificate)
+			pops, lo, hi, elig := refBounds(s)
+			if c := refSeatsAtDivisor(m, d, pops, lo, hi, elig); !slices.Equal(c, seatsOf(res)) || !slices.Equal(c, got.seats) {
+				t.Errorf("%s bounded=%v: the certificate %s does not give the seats", m, bounded, res.Divisor.Certificate)
+			}
 		}
 	}
 }
