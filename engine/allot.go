@@ -34,7 +34,7 @@ func (pr *problem) run(keepOrder bool) (*outcome, error) {
 		}
 		return &outcome{seats: d.seats, full: d.full, tie: d.tie, div: d}, nil
 	}
-	l, err := pr.remainderSeats()
+	l, err := pr.remainderCut()
 	if err != nil {
 		return nil, err
 	}
@@ -261,6 +261,9 @@ func (pr *problem) beyond(seats []int, filled, k int) []SeatAward {
 func (pr *problem) explainRemainder(l *lrOutcome, res *Result) {
 	res.Passes = l.rounds
 	r := l.final
+	if r != nil {
+		r.rankAll() // the explanation shows every remainder's rank
+	}
 	for i := range res.Units {
 		res.Units[i].AtMin = l.pinned[i] < 0
 		res.Units[i].AtMax = l.pinned[i] > 0

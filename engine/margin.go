@@ -323,7 +323,7 @@ func (pr *problem) pieceEnd(i int, x uint64, dir int, limit uint64) uint64 {
 		// One pass over the eligible units.
 		passes = []*lrRound{{seats: pr.h, units: []int{i}, total: q.eligibleTotal()}}
 	} else if q != nil {
-		if o, err := q.remainderSeats(); err == nil {
+		if o, err := q.remainderCut(); err == nil {
 			passes = o.passes
 		}
 	}
@@ -659,7 +659,7 @@ func (pr *problem) pinnedAt(i int, p uint64) []int {
 	if q == nil {
 		return nil
 	}
-	o, err := q.remainderSeats()
+	o, err := q.remainderCut()
 	if err != nil {
 		return nil
 	}
