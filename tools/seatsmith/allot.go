@@ -77,7 +77,13 @@ func runAllot(e *env, args []string) int {
 	if !src.Scenario.Method.Valid() {
 		return fail(e, "allot", usageError("no method: give -method (or \"method\" in a JSON scenario)"))
 	}
-	res, err := engine.Allot(&src.Scenario, engine.Full)
+	// The seat order grows with the house size; only the formats that show
+	// it ask for it.
+	detail := engine.WithMargins
+	if of.format != "csv" {
+		detail |= engine.WithOrder
+	}
+	res, err := engine.Allot(&src.Scenario, detail)
 	if err != nil {
 		return fail(e, "allot", src.Locate(err))
 	}
