@@ -17,6 +17,8 @@ type Attr struct {
 
 // El returns an element with the given tag and attributes, given as
 // alternating keys and values. A key without a value gets the empty value.
+//
+//go:noinline
 func El(tag string, kv ...string) *Node {
 	n := &Node{Tag: tag}
 	for i := 0; i < len(kv); i += 2 {
@@ -30,9 +32,13 @@ func El(tag string, kv ...string) *Node {
 }
 
 // Text returns a text node.
+//
+//go:noinline
 func Text(s string) *Node { return &Node{Text: s} }
 
 // Add appends children and returns n. Nil children are skipped.
+//
+//go:noinline
 func (n *Node) Add(kids ...*Node) *Node {
 	for _, k := range kids {
 		if k != nil {
@@ -43,9 +49,13 @@ func (n *Node) Add(kids ...*Node) *Node {
 }
 
 // AddText appends a text child and returns n.
+//
+//go:noinline
 func (n *Node) AddText(s string) *Node { return n.Add(Text(s)) }
 
 // Set adds or replaces an attribute and returns n.
+//
+//go:noinline
 func (n *Node) Set(key, val string) *Node {
 	for i := range n.Attrs {
 		if n.Attrs[i].Key == key {
@@ -58,6 +68,8 @@ func (n *Node) Set(key, val string) *Node {
 }
 
 // SetIf adds the attribute when cond is true, and returns n.
+//
+//go:noinline
 func (n *Node) SetIf(cond bool, key, val string) *Node {
 	if cond {
 		n.Set(key, val)
@@ -76,6 +88,8 @@ func (n *Node) Attr(key string) (string, bool) {
 }
 
 // Wrap returns an element holding the text s.
+//
+//go:noinline
 func Wrap(tag, s string, kv ...string) *Node { return El(tag, kv...).AddText(s) }
 
 // Walk calls f for n and every node below it, depth first.
