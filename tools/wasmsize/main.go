@@ -6,6 +6,12 @@
 // inlined page would send them, and the ratio of the compressed sizes is
 // the figure to watch (the target is at most 1.5).
 //
+// A second baseline, the floor, is the minimal program that also uses the
+// two libraries the engine is built on (hack-pad/safejs and math/big; see
+// package seatsmith/tools/wasmsize/floor). The floor over the minimal
+// program is what those libraries cost before any of seatsmith's own code;
+// the engine over the floor is what seatsmith's own code costs.
+//
 // Usage:
 //
 //	go run ./tools/wasmsize [-json] [-packages N] [-funcs N] [-check]
@@ -83,16 +89,16 @@ func run(args []string, stdout, stderr io.Writer) int {
 		io.WriteString(stderr, "wasmsize: no arguments expected\n")
 		return 2
 	}
-	engine, minimal, err := measure(*top > 0 || *funcs > 0)
+	engine, minimal, floor, err := measure(*top > 0 || *funcs > 0)
 	if err != nil {
 		io.WriteString(stderr, "wasmsize: "+err.Error()+"\n")
 		return 1
 	}
 	ratio := float64(engine.Gzip) / float64(minimal.Gzip)
 	if *asJSON {
-		stdout.Write(jsondoc.MarshalIndent(report(engine, minimal, ratio, *top, *funcs), "  "))
+		stdout.Write(jsondoc.MarshalIndent(report(engine, minimal, floor, ratio, *top, *funcs), "  "))
 	} else {
-		writeTable(stdout, engine, minimal, ratio, *top, *funcs)
+		writeTable(stdout, engine, minimal, floor, ratio, *top, *funcs)
 	}
 	if *check && ratio > Target {
 		return 1
@@ -100,47 +106,58 @@ func run(args []string, stdout, stderr io.Writer) int {
 	return 0
 }
 
-// measure builds and measures the engine and the minimal program; with
-// names it also attributes their code to packages.
-func measure(names bool) (engine, minimal *build, err error) {
+// floorPackage is the import path of the floor baseline.
+const floorPackage = "seatsmith/tools/wasmsize/floor"
+
+// measure builds and measures the engine, the minimal program and the
+// floor; with names it also attributes the engine's and the minimal
+// program's code to packages.
+func measure(names bool) (engine, minimal, floor *build, err error) {
 	dir, err := os.MkdirTemp("", "wasmsize-")
 	if err != nil {
-		return nil, nil, err
+		return nil, nil, nil, err
 	}
 	defer os.RemoveAll(dir)
 	wasm, _, err := wasmbuild.Build(filepath.Join(dir, "engine"))
 	if err != nil {
-		return nil, nil, err
+		return nil, nil, nil, err
 	}
 	src := filepath.Join(dir, "minimal")
 	if err := os.MkdirAll(src, 0o755); err != nil {
-		return nil, nil, err
+		return nil, nil, nil, err
 	}
 	if err := os.WriteFile(filepath.Join(src, "main.go"), []byte(minimalProgram), 0o644); err != nil {
-		return nil, nil, err
+		return nil, nil, nil, err
 	}
 	if err := os.WriteFile(filepath.Join(src, "go.mod"), []byte("module minimal\n\ngo 1.21\n"), 0o644); err != nil {
-		return nil, nil, err
+		return nil, nil, nil, err
 	}
 	minWasm := filepath.Join(dir, "minimal.wasm")
 	if err := wasmbuild.Compile(src, ".", minWasm); err != nil {
-		return nil, nil, err
+		return nil, nil, nil, err
+	}
+	floorWasm := filepath.Join(dir, "floor.wasm")
+	if err := wasmbuild.Compile("", floorPackage, floorWasm); err != nil {
+		return nil, nil, nil, err
 	}
 	if engine, err = measureFile("engine", wasm); err != nil {
-		return nil, nil, err
+		return nil, nil, nil, err
 	}
 	if minimal, err = measureFile("minimal", minWasm); err != nil {
-		return nil, nil, err
+		return nil, nil, nil, err
+	}
+	if floor, err = measureFile("floor", floorWasm); err != nil {
+		return nil, nil, nil, err
 	}
 	if names {
 		if err := attribute(engine, "", wasmbuild.Package, filepath.Join(dir, "engine-named.wasm")); err != nil {
-			return nil, nil, err
+			return nil, nil, nil, err
 		}
 		if err := attribute(minimal, src, ".", filepath.Join(dir, "minimal-named.wasm")); err != nil {
-			return nil, nil, err
+			return nil, nil, nil, err
 		}
 	}
-	return engine, minimal, nil
+	return engine, minimal, floor, nil
 }
 
 func measureFile(name, path string) (*build, error) {
@@ -286,7 +303,7 @@ func topPackages(engine, minimal *build, n int) []pkgSize {
 	return ps
 }
 
-func writeTable(w io.Writer, engine, minimal *build, ratio float64, top, funcs int) {
+func writeTable(w io.Writer, engine, minimal, floor *build, ratio float64, top, funcs int) {
 	var b strings.Builder
 	row := func(cells ...string) {
 		b.WriteString(pad(cells[0], 16, false))
@@ -296,7 +313,7 @@ func writeTable(w io.Writer, engine, minimal *build, ratio float64, top, funcs i
 		b.WriteString("\n")
 	}
 	row("", "bytes", "gzip -9", "code", "data")
-	for _, x := range []*build{engine, minimal} {
+	for _, x := range []*build{engine, minimal, floor} {
 		row(x.Name, itoa(x.Bytes), itoa(x.Gzip), itoa(x.Code), itoa(x.Data))
 	}
 	row("ratio", ftoa(float64(engine.Bytes)/float64(minimal.Bytes)), ftoa(ratio),
@@ -306,6 +323,8 @@ func writeTable(w io.Writer, engine, minimal *build, ratio float64, top, funcs i
 		verdict = "ABOVE"
 	}
 	b.WriteString("\ngzipped engine / gzipped minimal = " + ftoa(ratio) + ": " + verdict + " the target of " + ftoa(Target) + "\n")
+	b.WriteString("gzipped floor / gzipped minimal = " + ftoa(float64(floor.Gzip)/float64(minimal.Gzip)) + " (safejs and math/big alone)\n")
+	b.WriteString("(engine - floor) / minimal, gzipped = " + ftoa(float64(engine.Gzip-floor.Gzip)/float64(minimal.Gzip)) + " (seatsmith's own code)\n")
 	if top > 0 {
 		b.WriteString("\ncode by package (function bodies, bytes)\n")
 		b.WriteString(pad("package", 44, false) + pad("engine", 10, true) + pad("minimal", 10, true) + pad("added", 10, true) + "\n")
@@ -322,12 +341,14 @@ func writeTable(w io.Writer, engine, minimal *build, ratio float64, top, funcs i
 	io.WriteString(w, b.String())
 }
 
-func report(engine, minimal *build, ratio float64, top, funcs int) *jsondoc.Value {
+func report(engine, minimal, floor *build, ratio float64, top, funcs int) *jsondoc.Value {
 	one := func(x *build) *jsondoc.Value {
 		return jsondoc.NewObject().Set("bytes", jsondoc.Int(x.Bytes)).Set("gzip", jsondoc.Int(x.Gzip)).
 			Set("code", jsondoc.Int(x.Code)).Set("data", jsondoc.Int(x.Data))
 	}
-	v := jsondoc.NewObject().Set("engine", one(engine)).Set("minimal", one(minimal))
+	v := jsondoc.NewObject().Set("engine", one(engine)).Set("minimal", one(minimal)).Set("floor", one(floor))
+	v.Set("floor_ratio", jsondoc.Num(ftoa(float64(floor.Gzip)/float64(minimal.Gzip))))
+	v.Set("own_ratio", jsondoc.Num(ftoa(float64(engine.Gzip-floor.Gzip)/float64(minimal.Gzip))))
 	v.Set("ratio", jsondoc.Num(ftoa(ratio))).Set("raw_ratio", jsondoc.Num(ftoa(float64(engine.Bytes)/float64(minimal.Bytes))))
 	v.Set("target", jsondoc.Num(ftoa(Target))).Set("within_target", jsondoc.Boolean(ratio <= Target))
 	if top > 0 {

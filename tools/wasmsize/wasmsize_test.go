@@ -122,6 +122,12 @@ func TestRun(t *testing.T) {
 	if r := num("ratio"); r < e/m-0.01 || r > e/m+0.01 {
 		t.Errorf("ratio %v, want %v", r, e/m)
 	}
+	if f := num("floor", "gzip"); f <= m || f >= e {
+		t.Errorf("floor gzip %v: want between the minimal program's %v and the engine's %v", f, m, e)
+	}
+	if r, f := num("own_ratio"), num("floor", "gzip"); r < (e-f)/m-0.01 || r > (e-f)/m+0.01 {
+		t.Errorf("own_ratio %v, want %v", r, (e-f)/m)
+	}
 	if n := len(v.Get("packages").Items); n != 5 {
 		t.Errorf("%d packages listed, want 5", n)
 	}
