@@ -37,9 +37,10 @@
 // whether quota is satisfied; for divisor methods the exact divisor interval,
 // a divisor certificate from inside it, the seat order and the next seats
 // beyond the house size; for largest-remainder methods the remainders and
-// their rank at the cut; and for every unit the gain and lose margins, the
-// fewest people it would need to gain (or could lose before it drops) one
-// seat outright, all other units fixed.
+// their rank at the cut; and for every unit the gain and lose margins, all
+// other units fixed: the fewest extra people who would win it one more seat
+// outright, and the fewest people whose loss would cost it a seat or leave
+// its last seat tied.
 //
 // The package does no I/O. Readers and writers for CSV and JSON live in the
 // format packages beside it.

@@ -260,7 +260,7 @@ func resultsTable(o *Outcome) *Node {
 		ask.AddText("This method's margins take a search of many exact apportionments, which can take a while for these numbers. ")
 		ask.Add(Wrap("button", "Compute the margins", "type", "button", "data-action", "margins"))
 	}
-	legend.AddText("Quota: the unit's exact share of the seats, population × seats ÷ total. Gain margin: the fewest extra people who would win the unit one more seat outright, all others fixed; lose margin: the fewest people it could lose before it drops a seat. A dash means no change of its population alone does it.")
+	legend.AddText("Quota: the unit's exact share of the seats, population × seats ÷ total. Gain margin: the fewest extra people who would win the unit one more seat outright, all others fixed; lose margin: the fewest people whose loss, all others fixed, would cost it a seat or leave its last seat tied. A dash means no change of its population alone does it.")
 	return El("div", "class", "sc-results-wrap").Add(wrap, ask, legend)
 }
 
