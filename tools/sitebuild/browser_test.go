@@ -34,7 +34,7 @@ var (
 )
 
 // builtSite builds the real site once for every browser test.
-func builtSite(t *testing.T) string {
+func builtSite(t testing.TB) string {
 	t.Helper()
 	builtOnce.Do(func() {
 		dir, err := os.MkdirTemp("", "sitebuild-browser-")
@@ -61,7 +61,7 @@ func builtSite(t *testing.T) string {
 	return builtDir
 }
 
-func chromiumPath(t *testing.T) string {
+func chromiumPath(t testing.TB) string {
 	t.Helper()
 	p := os.Getenv("SEATSMITH_CHROMIUM")
 	if p == "" {
@@ -80,7 +80,7 @@ func chromiumPath(t *testing.T) string {
 }
 
 // browser starts one headless Chromium for a test and returns its context.
-func browser(t *testing.T) context.Context {
+func browser(t testing.TB) context.Context {
 	t.Helper()
 	exe := chromiumPath(t)
 	ud := t.TempDir()
@@ -117,17 +117,23 @@ func browser(t *testing.T) context.Context {
 
 // A tab is one page under test, with everything it logged and requested.
 type tab struct {
-	t        *testing.T
+	t        testing.TB
 	ctx      context.Context
 	mu       sync.Mutex
 	console  []chromedp.ConsoleMessage
 	requests []string
 }
 
-func newTab(t *testing.T, parent context.Context) *tab {
+func newTab(t testing.TB, parent context.Context) *tab {
+	t.Helper()
+	return newTabFor(t, parent, 60*time.Second)
+}
+
+// newTabFor opens a tab that lives at most d.
+func newTabFor(t testing.TB, parent context.Context, d time.Duration) *tab {
 	t.Helper()
 	ctx, cancel := chromedp.NewContext(parent)
-	ctx, tcancel := context.WithTimeout(ctx, 60*time.Second)
+	ctx, tcancel := context.WithTimeout(ctx, d)
 	t.Cleanup(func() { tcancel(); cancel() })
 	tb := &tab{t: t, ctx: ctx}
 	msgs := chromedp.Console(ctx)
@@ -269,7 +275,7 @@ func sameRows(t *testing.T, what string, got, want []row) {
 	}
 }
 
-func artifact(t *testing.T, name string, png []byte) {
+func artifact(t testing.TB, name string, png []byte) {
 	t.Helper()
 	dir := filepath.Join("..", "..", "testdata", "artifacts")
 	if err := os.MkdirAll(dir, 0o755); err != nil {
