@@ -57,10 +57,81 @@ export function build(t, inSvg = false) {
   const el = svg ? document.createElementNS(SVG_NS, t[0]) : document.createElement(t[0]);
   const attrs = t[1] || {};
   for (const k of Object.keys(attrs)) {
-    if (/^on/i.test(k) || URL_ATTRS.has(k.toLowerCase()) || !/^[a-zA-Z][a-zA-Z0-9:._-]*$/.test(k)) continue;
-    el.setAttribute(k, String(attrs[k]));
+    if (canSet(k)) el.setAttribute(k, String(attrs[k]));
   }
   for (let i = 2; i < t.length; i++) el.appendChild(build(t[i], svg));
+  return el;
+}
+
+// settable caches, by attribute name, whether build sets an attribute:
+// event handlers, URL-bearing attributes and odd names are refused.
+const settable = new Map();
+
+function canSet(k) {
+  let ok = settable.get(k);
+  if (ok === undefined) {
+    ok = !(/^on/i.test(k) || URL_ATTRS.has(k.toLowerCase()) || !/^[a-zA-Z][a-zA-Z0-9:._-]*$/.test(k));
+    settable.set(k, ok);
+  }
+  return ok;
+}
+
+// checkTree throws, as build would, if t holds a tag build refuses.
+function checkTree(t) {
+  if (typeof t === 'string') return;
+  if (!Array.isArray(t) || typeof t[0] !== 'string' || !TAGS.has(t[0])) {
+    throw new Error('the engine returned markup this page does not accept');
+  }
+  for (let i = 2; i < t.length; i++) checkTree(t[i]);
+}
+
+// patch makes the DOM node el what build(t) would make, changing only what
+// differs, and returns the node now in el's place. Keeping the nodes that
+// stay the same keeps the browser from styling and laying out the whole
+// result again after every edit.
+function patch(el, t, inSvg) {
+  if (typeof t === 'string') {
+    if (el.nodeType === Node.TEXT_NODE) {
+      if (el.data !== t) el.data = t;
+      return el;
+    }
+    const n = document.createTextNode(t);
+    el.replaceWith(n);
+    return n;
+  }
+  const svg = inSvg || t[0] === 'svg';
+  const ns = svg ? SVG_NS : 'http://www.w3.org/1999/xhtml';
+  if (el.nodeType !== Node.ELEMENT_NODE || el.localName !== t[0] || el.namespaceURI !== ns) {
+    const n = build(t, inSvg);
+    el.replaceWith(n);
+    return n;
+  }
+  const attrs = t[1] || {};
+  let n = 0;
+  for (const k of Object.keys(attrs)) {
+    if (!canSet(k)) continue;
+    n++;
+    const v = String(attrs[k]);
+    if (el.getAttribute(k) !== v) el.setAttribute(k, v);
+  }
+  if (el.attributes.length !== n) {
+    for (const a of [...el.attributes]) {
+      if (!Object.hasOwn(attrs, a.name) || !canSet(a.name)) el.removeAttribute(a.name);
+    }
+  }
+  let c = el.firstChild;
+  for (let i = 2; i < t.length; i++) {
+    if (c) {
+      const next = c.nextSibling;
+      patch(c, t[i], svg);
+      c = next;
+    } else el.appendChild(build(t[i], svg));
+  }
+  while (c) {
+    const next = c.nextSibling;
+    c.remove();
+    c = next;
+  }
   return el;
 }
 
@@ -263,19 +334,30 @@ class Calculator {
       (this.root.querySelector('[data-part="output"]') ? ' The numbers shown were computed when the page was built.' : '');
   }
 
+  // replacePart puts the part built from tree in place of the current one.
+  // The results are patched in place; the editor is built anew, so that
+  // every field shows the value the engine read.
   replacePart(name, tree) {
-    const el = build(tree);
     const old = this.root.querySelector('[data-part="' + name + '"]');
-    if (old) {
-      // Folded sections stay as the reader left them.
-      for (const d of old.querySelectorAll('details[class]')) {
-        const same = el.querySelector('details.' + CSS.escape(d.classList[0]));
-        if (same) same.open = d.open;
-      }
+    if (!old) {
+      const el = build(tree);
+      this.root.appendChild(el);
+      return el;
+    }
+    // Folded sections stay as the reader left them.
+    const folds = [...old.querySelectorAll('details[class]')].map((d) => [d.classList[0], d.open]);
+    let el;
+    if (name === 'output') {
+      checkTree(tree);
+      el = patch(old, tree, false);
+    } else {
+      el = build(tree);
       old.replaceWith(el);
     }
-    else if (name === 'editor') this.root.appendChild(el);
-    else this.root.appendChild(el);
+    for (const [cls, open] of folds) {
+      const same = el.querySelector('details.' + CSS.escape(cls));
+      if (same && same.open !== open) same.open = open;
+    }
     return el;
   }
 
@@ -404,12 +486,16 @@ class Calculator {
     }
     const focus = document.activeElement;
     const key = focus && this.root.contains(focus) ? focus.getAttribute('data-field') || focus.getAttribute('data-action') : null;
+    // The link is written before the results go into the page: the browser
+    // records the page's layout with each history entry, and while the new
+    // results are not yet laid out that would lay out the whole page first.
+    if (r.scenario) this.scenario = r.scenario;
+    this.saveFragment();
     this.apply(r, withEditor);
     if (withEditor && key) {
       const again = this.root.querySelector('[data-field="' + CSS.escape(key) + '"], [data-action="' + CSS.escape(key) + '"]');
       if (again) again.focus();
     }
-    this.saveFragment();
     if (r.margins_pending && r.margins_auto) this.marginTimer = setTimeout(() => this.refresh(false, { margins: true }), 600);
     return r;
   }
