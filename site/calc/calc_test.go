@@ -1,7 +1,9 @@
 package calc
 
 import (
+	"bytes"
 	"os"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -164,5 +166,59 @@ func TestQuickMargins(t *testing.T) {
 		if full := Live(request(c.block)); full.Get("margins_pending").Bool {
 			t.Errorf("%s: margins pending without being left out", c.block)
 		}
+	}
+}
+
+// TestLiveScenarioText checks that a scenario sent as JSON text, as the
+// bridge sends it, gets the answer the same scenario sent as a document
+// gets, errors included, and that text that is not JSON is refused.
+func TestLiveScenarioText(t *testing.T) {
+	for _, text := range []string{
+		`{"seats": "40", "method": "webster", "units": [{"name": "A", "population": "1200"}, {"name": "B", "population": "800"}]}`,
+		`{"seats": "40", "method": "webster", "units": [{"name": "A", "population": "1"}, {"name": "B", "population": "12x"}]}`,
+		`{"seats": 7, "method": "hamilton", "min": 1, "units": [{"name": "A", "population": 10}, {"name": "B", "population": 3}]}`,
+	} {
+		doc, err := jsondoc.Parse([]byte(text))
+		if err != nil {
+			t.Fatal(err)
+		}
+		want := jsondoc.Marshal(Live(request(vessaria(t), "scenario", withoutLines(doc), "editor", jsondoc.Boolean(true))))
+		got := jsondoc.Marshal(Live(request(vessaria(t), "scenario_text", jsondoc.Str(text), "editor", jsondoc.Boolean(true))))
+		if !bytes.Equal(got, want) {
+			t.Errorf("scenario_text %s answered differently:\n got %.300s\nwant %.300s", text, got, want)
+		}
+	}
+	r := Live(request(vessaria(t), "scenario_text", jsondoc.Str(`{"seats": `)))
+	if r.Get("fatal") == nil || !strings.Contains(r.Get("error").Get("message").Text, "scenario_text") {
+		t.Errorf("bad scenario_text answered %s", jsondoc.Marshal(r))
+	}
+}
+
+// TestBlockCache checks that a block's text is parsed once, that the same
+// text under another id or mode is a different block, that a bad block is
+// refused every time, and that the cache stays within its size.
+func TestBlockCache(t *testing.T) {
+	var c blockCache
+	text := vessaria(t)
+	a, msg := c.get("a", Full, text)
+	if a == nil {
+		t.Fatal(msg)
+	}
+	if b, _ := c.get("a", Full, text); b != a {
+		t.Error("the same block was parsed again")
+	}
+	if b, _ := c.get("b", Full, text); b == a || b.ID != "b" {
+		t.Error("another calculator's id got the first one's block")
+	}
+	for k := 0; k < 2; k++ {
+		if b, msg := c.get("a", Full, "{"); b != nil || !strings.Contains(msg, "not valid JSON") {
+			t.Errorf("bad block: %v, %q", b, msg)
+		}
+	}
+	for k := 0; k < 3*maxCachedBlocks; k++ {
+		c.get("x"+strconv.Itoa(k), Full, text)
+	}
+	if len(c.entries) != maxCachedBlocks {
+		t.Errorf("%d blocks cached, want %d", len(c.entries), maxCachedBlocks)
 	}
 }

@@ -19,6 +19,10 @@ import (
 //	mode        "full", "compact", "sweep", "growth" or "admit" (see Mode)
 //	scenario    the scenario being edited, a scenario document; the
 //	            block's own when absent or null
+//	scenario_text
+//	            the same as JSON text, in place of scenario (one string
+//	            crosses from JavaScript into the engine much faster than
+//	            an object read member by member, so the bridge sends this)
 //	load        {name, text}: a CSV table (replaces the units) or a JSON
 //	            scenario document (replaces the scenario) to load first
 //	editor      true to lay out the editor as well as the results
@@ -59,15 +63,18 @@ func Live(req *jsondoc.Value) (resp *jsondoc.Value) {
 		id = x.Text
 	}
 	mode, _ := ParseMode(str(req.Get("mode")))
-	bv, err := jsondoc.Parse([]byte(bt.Text))
-	if err != nil {
-		return fatal("the calculator's scenario block is not valid JSON: " + err.Error())
-	}
-	b, err := ParseBlock("", id, mode, bv)
-	if err != nil {
-		return fatal("the calculator's scenario block is invalid: " + trimInput(err))
+	b, msg := blocks.get(id, mode, bt.Text)
+	if b == nil {
+		return fatal(msg)
 	}
 	doc := req.Get("scenario")
+	if st := req.Get("scenario_text"); st != nil && st.Kind == jsondoc.String {
+		v, err := jsondoc.Parse([]byte(st.Text))
+		if err != nil {
+			return fatal("scenario_text is not valid JSON: " + err.Error())
+		}
+		doc = withoutLines(v)
+	}
 	if doc.IsNull() {
 		doc = b.Doc
 	}
@@ -111,6 +118,36 @@ func Live(req *jsondoc.Value) (resp *jsondoc.Value) {
 		resp.Set("csv", jsondoc.Str(csv)).Set("json", jsondoc.Str(js))
 	}
 	return resp
+}
+
+// parseBlock reads a calculator block from its JSON text, or says why it
+// cannot.
+func parseBlock(id string, mode Mode, text string) (*Block, string) {
+	bv, err := jsondoc.Parse([]byte(text))
+	if err != nil {
+		return nil, "the calculator's scenario block is not valid JSON: " + err.Error()
+	}
+	b, err := ParseBlock("", id, mode, bv)
+	if err != nil {
+		return nil, "the calculator's scenario block is invalid: " + trimInput(err)
+	}
+	return b, ""
+}
+
+// withoutLines clears the line numbers of a parsed document, which for a
+// document passed as text are those of the text, not of the page.
+func withoutLines(v *jsondoc.Value) *jsondoc.Value {
+	if v == nil {
+		return nil
+	}
+	v.Line = 0
+	for _, x := range v.Items {
+		withoutLines(x)
+	}
+	for _, f := range v.Fields {
+		withoutLines(f.Value)
+	}
+	return v
 }
 
 func fatal(msg string) *jsondoc.Value {

@@ -81,8 +81,8 @@ const editTimingJS = `(async (n, same) => {
 })`
 
 // engineTimingJS calls the engine as the bridge does for an edit (the
-// calculator function with the edited scenario, no editor, no costly
-// margins) without building anything from the answer, and a trivial
+// calculator function with the edited scenario as JSON text, no editor, no
+// costly margins) without building anything from the answer, and a trivial
 // exported function (methods) as the baseline of a call across the bridge.
 // It also times the pieces of a render: the call, building the DOM nodes
 // from the answer (the bridge's own build), and putting them in place with
@@ -97,12 +97,13 @@ const engineTimingJS = `(async (n, batch) => {
   while (b.length % 4) b += '=';
   const scenario = JSON.parse(new TextDecoder().decode(Uint8Array.from(atob(b), (c) => c.charCodeAt(0))));
   const req = {block_text: root.querySelector('script[type="application/json"]').textContent, id: root.id,
-    mode: root.getAttribute('data-seatsmith'), scenario, editor: false, margins: false};
+    mode: root.getAttribute('data-seatsmith'), scenario_text: '', editor: false, margins: false};
   const out = {engine: [], noop: [], build: [], place: [], compare: [], units: scenario.units.length, state: ''};
   for (let i = 0; i < n; i++) {
     const u = scenario.units[(i * 7) % scenario.units.length];
     u.population = String(Number(u.population) + ((i % 2) ? -1 : 1) * (1000 + 37 * i));
     const t0 = performance.now();
+    req.scenario_text = JSON.stringify(scenario);
     const r = api.calculator(req);
     const t1 = performance.now();
     out.engine.push(t1 - t0);
