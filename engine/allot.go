@@ -62,7 +62,7 @@ func (pr *problem) allot(detail Detail) (*Result, error) {
 			u.Max = -1
 		}
 		u.Excluded = !pr.eligible[i]
-		pr.quota(i, total, u, detail != 0)
+		pr.quota(i, total, u, detail&Full != 0)
 	}
 	res.Unassigned = pr.h - sum
 	if o.lr != nil {
@@ -76,9 +76,14 @@ func (pr *problem) allot(detail Detail) (*Result, error) {
 			res.Units[j].Tied = true
 		}
 	}
-	if o.div != nil {
+	switch {
+	case detail == SeatsOnly:
+		if o.lr != nil {
+			pr.boundsHeld(o.lr, res)
+		}
+	case o.div != nil:
 		pr.explainDivisor(o, res, detail)
-	} else {
+	default:
 		pr.explainRemainder(o.lr, res)
 	}
 	if detail&WithMargins != 0 {
@@ -258,16 +263,22 @@ func (pr *problem) beyond(seats []int, filled, k int) []SeatAward {
 }
 
 // explainRemainder adds the quota, remainders and ranks.
-func (pr *problem) explainRemainder(l *lrOutcome, res *Result) {
+// boundsHeld records the largest-remainder passes and the units they fixed
+// at a bound.
+func (pr *problem) boundsHeld(l *lrOutcome, res *Result) {
 	res.Passes = l.rounds
-	r := l.final
-	if r != nil {
-		r.rankAll() // the explanation shows every remainder's rank
-	}
 	for i := range res.Units {
 		res.Units[i].AtMin = l.pinned[i] < 0
 		res.Units[i].AtMax = l.pinned[i] > 0
 	}
+}
+
+func (pr *problem) explainRemainder(l *lrOutcome, res *Result) {
+	r := l.final
+	if r != nil {
+		r.rankAll() // the explanation shows every remainder's rank
+	}
+	pr.boundsHeld(l, res)
 	if r == nil {
 		return
 	}

@@ -14,9 +14,14 @@ type Comparison struct {
 
 // Compare apportions s by every method in ms (all methods when ms is empty).
 // A method that cannot apportion s records its error instead of a result.
+// detail is passed to [engine.Allot]; 0 means [engine.SeatsOnly], all that
+// the comparison's document and tables show.
 func Compare(s engine.Scenario, ms []engine.Method, detail engine.Detail) *Comparison {
 	if len(ms) == 0 {
 		ms = engine.Methods()
+	}
+	if detail == 0 {
+		detail = engine.SeatsOnly
 	}
 	c := &Comparison{Methods: ms, Results: make([]*engine.Result, len(ms)), Errors: make([]error, len(ms))}
 	for i, m := range ms {
