@@ -62,7 +62,7 @@ func (pr *problem) allot(detail Detail) (*Result, error) {
 			u.Max = -1
 		}
 		u.Excluded = !pr.eligible[i]
-		pr.quota(i, total, u, detail&Full != 0)
+		pr.quota(i, total, u)
 	}
 	res.Unassigned = pr.h - sum
 	if o.lr != nil {
@@ -111,8 +111,9 @@ func scaledText(x u128, places int) string {
 	return decimalText(r)
 }
 
-// quota fills the standard quota p·H/P of unit i.
-func (pr *problem) quota(i int, total u128, u *UnitResult, text bool) {
+// quota fills the standard quota p·H/P of unit i, in integer arithmetic
+// when the total fits in 64 bits.
+func (pr *problem) quota(i int, total u128, u *UnitResult) {
 	if !pr.eligible[i] {
 		u.Quota = Fraction{Num: "0", Den: "1", Text: "0"}
 		u.MeetsQuota = u.Seats == 0
@@ -133,17 +134,20 @@ func (pr *problem) quota(i int, total u128, u *UnitResult, text bool) {
 	u.MeetsQuota = u.Seats == u.Lower || u.Seats == u.Upper
 	if total.hi == 0 && !forceBig {
 		u.Quota.Text = quotaText(q, rem, total.lo)
-		u.Quota.Approx = float64(q) + float64(rem)/float64(total.lo)
+		u.Quota.Approx = ratFloat(num, total.lo)
+		// gcd(num, total) = gcd(num mod total, total).
+		g := gcd64(rem, total.lo)
+		n, _ := num.div64(g)
+		u.Quota.Num, u.Quota.Den = n.text(), strconvU(total.lo/g)
+		return
 	}
-	if text || total.hi != 0 || forceBig {
-		r := new(big.Rat).SetFrac(num.big(), total.big())
-		u.Quota.Approx, _ = r.Float64()
-		u.Quota.Num, u.Quota.Den = r.Num().String(), r.Denom().String()
-		if s, ok := exactDecimal(r, 6); ok {
-			u.Quota.Text = s
-		} else {
-			u.Quota.Text = r.FloatString(6)
-		}
+	r := new(big.Rat).SetFrac(num.big(), total.big())
+	u.Quota.Approx, _ = r.Float64()
+	u.Quota.Num, u.Quota.Den = r.Num().String(), r.Denom().String()
+	if s, ok := exactDecimal(r, 6); ok {
+		u.Quota.Text = s
+	} else {
+		u.Quota.Text = r.FloatString(6)
 	}
 }
 
@@ -291,10 +295,30 @@ func (pr *problem) explainRemainder(l *lrOutcome, res *Result) {
 		rank[j] = k + 1
 	}
 	for j, u := range r.units {
-		v := r.remValue(pr, j)
+		v := pr.remainderValue(r, j)
 		ur := &res.Units[u]
 		ur.Remainder = &v
 		ur.RemainderRank = rank[j]
 		ur.RemainderSeat = rank[j] <= r.extra
 	}
+}
+
+// remainderValue is r.remValue(pr, j) in integer arithmetic where the
+// denominator fits in 64 bits: a fraction of a seat for Hamilton, people
+// for Droop.
+func (pr *problem) remainderValue(r *lrRound, j int) Value {
+	den := pow10(pr.places)
+	if pr.m == Hamilton {
+		den = r.total.lo
+		if r.total.hi != 0 || den == 0 {
+			return r.remValue(pr, j)
+		}
+	}
+	if forceBig {
+		return r.remValue(pr, j)
+	}
+	if v, ok := fracValue(r.rem(j), den); ok {
+		return v
+	}
+	return r.remValue(pr, j)
 }

@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"math"
 	"math/big"
 	"math/bits"
 )
@@ -116,4 +117,104 @@ func divmod128(x u128, y uint64) (q, r uint64, ok bool) {
 	}
 	q, r = bits.Div64(x.hi, x.lo, y)
 	return q, r, true
+}
+
+// div64 returns x div y and x mod y for a 64-bit divisor y > 0.
+func (x u128) div64(y uint64) (u128, uint64) {
+	qhi, r := x.hi/y, x.hi%y
+	qlo, r := bits.Div64(r, x.lo, y)
+	return u128{qhi, qlo}, r
+}
+
+// gcd64 is the greatest common divisor of a and b (b when a is zero).
+func gcd64(a, b uint64) uint64 {
+	for a != 0 {
+		a, b = b%a, a
+	}
+	return b
+}
+
+// text writes x in decimal.
+func (x u128) text() string {
+	if x.hi == 0 {
+		return strconvU(x.lo)
+	}
+	return x.big().String()
+}
+
+// isqrt128 returns floor(sqrt(x)) for x < 2^126.
+func isqrt128(x u128) uint64 {
+	f := math.Sqrt(float64(x.hi)*0x1p64 + float64(x.lo))
+	r := uint64(f)
+	if r == 0 {
+		r = 1
+	}
+	// One Newton step from the float estimate, then exact correction.
+	if q, _, ok := divmod128(x, r); ok {
+		s, _ := mul128(1, q).add64(r)
+		r = s.lo>>1 | s.hi<<63
+	}
+	for r > 0 && mul128(r, r).cmp(x) > 0 {
+		r--
+	}
+	for mul128(r+1, r+1).cmp(x) <= 0 {
+		r++
+	}
+	return r
+}
+
+// ratFloat returns the float64 nearest to num/den (ties to even), as
+// big.Rat.Float64 does, for den > 0.
+func ratFloat(num u128, den uint64) float64 {
+	if num.hi == 0 && num.lo < 1<<53 && den < 1<<53 {
+		return float64(num.lo) / float64(den) // both exact: one rounding
+	}
+	if num.hi == 0 && num.lo == 0 {
+		return 0
+	}
+	// Scale num by 2^k so that the quotient q has 63 or 64 bits, keep a
+	// sticky bit for what the division and the shift drop, and let the
+	// conversion to float64 round once.
+	ln := 128 - bits.LeadingZeros64(num.hi)
+	if num.hi == 0 {
+		ln = 64 - bits.LeadingZeros64(num.lo)
+	}
+	ld := 64 - bits.LeadingZeros64(den)
+	k := 63 - (ln - ld)
+	var x u128
+	sticky := false
+	switch {
+	case k > 0:
+		x = num.shl(uint(k))
+	case k < 0:
+		x = num.shr(uint(-k))
+		sticky = num.sub(x.shl(uint(-k))) != u128{}
+	default:
+		x = num
+	}
+	q, r, _ := divmod128(x, den)
+	if r != 0 || sticky {
+		q |= 1
+	}
+	return math.Ldexp(float64(q), -k)
+}
+
+func (x u128) shl(n uint) u128 {
+	switch {
+	case n == 0:
+		return x
+	case n >= 64:
+		return u128{x.lo << (n - 64), 0}
+	}
+	return u128{x.hi<<n | x.lo>>(64-n), x.lo << n}
+}
+
+func (x u128) shr(n uint) u128 {
+	switch {
+	case n == 0:
+		return x
+	case n >= 64:
+		return u128{0, x.hi >> (n - 64)}
+	}
+	return u128{x.hi >> n, x.lo>>n | x.hi<<(64-n)}
 }

@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"math"
 	"math/big"
 	"strconv"
 )
@@ -99,7 +100,7 @@ const ValueDigits = 3
 // approximation for charts. Infinite values have Infinite set.
 type Value struct {
 	Text     string  // decimal text, e.g. "762314.333"
-	Approx   float64 // nearest float64, for charts and sorting in pages
+	Approx   float64 // nearest float64 (within a few units in the last place for Huntington–Hill), for charts and sorting in pages
 	Exact    bool    // Text is the exact value
 	Infinite bool    // the value is p/0: the unit's first seat under Adams, Dean or Huntington–Hill
 }
@@ -108,12 +109,101 @@ func (m Method) value(x prio, places int) Value {
 	if m.infinite(x) {
 		return Value{Text: "inf", Infinite: true}
 	}
+	if v, ok := m.valueInt(x, places); ok {
+		return v
+	}
 	if r := m.prioRat(x, places); r != nil {
 		return ratValue(r)
 	}
 	f := m.prioFloat(x, places, 200)
 	a, _ := f.Float64()
 	return Value{Text: f.Text('f', ValueDigits), Approx: a}
+}
+
+// valueInt is value in 64- and 128-bit integer arithmetic, with the same
+// text; false when the numbers do not fit, and value falls back to
+// math/big. The priority is p·d/(n·10^places), or for Huntington–Hill
+// p/(10^places·sqrt(n)).
+func (m Method) valueInt(x prio, places int) (Value, bool) {
+	s := m.signpost(x.a)
+	if x.p == 0 {
+		if s.sq {
+			return Value{Text: "0.000"}, true
+		}
+		return Value{Text: "0", Exact: true}, true
+	}
+	hi, den := mulWide(s.n, pow10(places))
+	if hi != 0 || den == 0 {
+		return Value{}, false
+	}
+	if !s.sq {
+		return fracValue(mul128(x.p, s.d), den)
+	}
+	// Huntington–Hill: sqrt(n) is irrational (n = a(a+1), a >= 1), so the
+	// value is never a short decimal. With y = 1000p/(10^places·sqrt(n)),
+	// floor(y) = isqrt(floor((1000p)^2/den')) for den' = 10^(2·places)·n,
+	// and y rounds up when (2·floor(y)+1)^2·den' < 4·(1000p)^2.
+	hi, p3 := mulWide(x.p, 1000)
+	if hi != 0 || p3 >= 1<<62 {
+		return Value{}, false
+	}
+	hi, den2 := mulWide(den, pow10(places))
+	if hi != 0 {
+		return Value{}, false
+	}
+	a := mul128(p3, p3) // below 2^124
+	y, _ := a.div64(den2)
+	k := isqrt128(y)
+	c, ok := mul128(2*k+1, 2*k+1).mulSmall(den2)
+	if ok && c.cmp(a.shl(2)) < 0 {
+		k++
+	}
+	approx := float64(x.p) / float64(pow10(places)) / math.Sqrt(float64(s.n))
+	return Value{Text: pointText(k, ValueDigits), Approx: approx}, true
+}
+
+// fracValue is ratValue for num/den with a 64-bit denominator den > 0:
+// exact when num/den has at most ValueDigits decimals, otherwise rounded
+// half up to ValueDigits places (as big.Rat.FloatString rounds); false when
+// the scaled quotient does not fit in 64 bits.
+func fracValue(num u128, den uint64) (Value, bool) {
+	var q, r uint64
+	for i := 0; i <= ValueDigits; i++ {
+		t, ok := num.mulSmall(pow10(i))
+		if !ok {
+			return Value{}, false
+		}
+		if q, r, ok = divmod128(t, den); !ok {
+			return Value{}, false
+		}
+		if r == 0 {
+			return Value{Text: pointText(q, i), Approx: ratFloat(num, den), Exact: true}, true
+		}
+	}
+	if r >= den-r {
+		if q == math.MaxUint64 {
+			return Value{}, false
+		}
+		q++
+	}
+	return Value{Text: pointText(q, ValueDigits), Approx: ratFloat(num, den)}, true
+}
+
+// pointText writes q/10^places with exactly places decimals.
+func pointText(q uint64, places int) string {
+	var buf [24]byte
+	b := strconv.AppendUint(buf[:0], q, 10)
+	if places == 0 {
+		return string(b)
+	}
+	for len(b) <= places {
+		b = append(b[:0], append([]byte{'0'}, b...)...)
+	}
+	n := len(b) - places
+	out := make([]byte, 0, len(b)+1)
+	out = append(out, b[:n]...)
+	out = append(out, '.')
+	return string(append(out, b[n:]...))
 }
 
 // ratValue shows a rational exactly when it has a short decimal expansion,
