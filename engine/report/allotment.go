@@ -1,6 +1,9 @@
 package report
 
 import (
+	"bytes"
+	"io"
+
 	"seatsmith/engine"
 	"seatsmith/engine/jsondoc"
 )
@@ -10,6 +13,64 @@ const Version = 1
 
 // Allotment builds the allotment document for res.
 func Allotment(title string, res *engine.Result) *jsondoc.Value {
+	units := jsondoc.NewArray()
+	for i := range res.Units {
+		units.Append(unitDoc(&res.Units[i], res.Method))
+	}
+	return allotment(title, res, units)
+}
+
+// WriteAllotJSON writes the allotment document of res as indented JSON,
+// byte for byte what jsondoc.MarshalIndent(Allotment(title, res), "  ")
+// gives, but making the units' objects one at a time as they are written.
+// skipped names the parts of the explanation that were not computed
+// ("margins", "order"); when there are any, the document ends with a
+// skipped member listing them.
+func WriteAllotJSON(w io.Writer, title string, res *engine.Result, skipped []string) error {
+	b, own := buffered(w)
+	v := allotment(title, res, jsondoc.NewArray())
+	if len(skipped) > 0 {
+		arr := jsondoc.NewArray()
+		for _, s := range skipped {
+			arr.Append(jsondoc.Str(s))
+		}
+		v.Set("skipped", arr)
+	}
+	doc := jsondoc.MarshalIndent(v, "  ")
+	const mark = "\n  \"units\": []"
+	k := bytes.Index(doc, []byte(mark))
+	if k < 0 || len(res.Units) == 0 {
+		b.Write(doc)
+		return finish(b, own)
+	}
+	b.Write(doc[:k+len(mark)-1])
+	var one []byte
+	for i := range res.Units {
+		if i > 0 {
+			b.WriteByte(',')
+		}
+		b.WriteString("\n    ")
+		// Each unit is an object without nested values on their own lines
+		// but its members; indent those by two levels.
+		one = append(one[:0], jsondoc.MarshalIndent(unitDoc(&res.Units[i], res.Method), "  ")...)
+		one = one[:len(one)-1] // the final line feed
+		for len(one) > 0 {
+			j := bytes.IndexByte(one, '\n')
+			if j < 0 {
+				b.Write(one)
+				break
+			}
+			b.Write(one[:j+1])
+			b.WriteString("    ")
+			one = one[j+1:]
+		}
+	}
+	b.WriteString("\n  ]")
+	b.Write(doc[k+len(mark):])
+	return finish(b, own)
+}
+
+func allotment(title string, res *engine.Result, units *jsondoc.Value) *jsondoc.Value {
 	v := header("allotment", title)
 	v.Set("method", jsondoc.Str(res.Method.String()))
 	v.Set("method_name", jsondoc.Str(res.Method.Name()))
@@ -17,10 +78,6 @@ func Allotment(title string, res *engine.Result) *jsondoc.Value {
 	v.Set("total", jsondoc.Str(res.Total))
 	v.Set("tie_rule", jsondoc.Str(res.Tie.String()))
 	v.Set("unassigned", jsondoc.Int(res.Unassigned))
-	units := jsondoc.NewArray()
-	for i := range res.Units {
-		units.Append(unitDoc(&res.Units[i], res.Method))
-	}
 	v.Set("units", units)
 	v.Set("ties", Ties(res))
 	if d := res.Divisor; d != nil {

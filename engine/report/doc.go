@@ -35,6 +35,10 @@
 //	beyond       the next seats after the house size, same shape
 //	quota        the largest-remainder quota in the final pass, or null
 //	passes       the passes the bounds took, or null
+//	skipped      only when parts of the explanation were not computed
+//	             (the command line leaves them out on large inputs):
+//	             ["margins"] (every gain_margin and lose_margin is then
+//	             null), ["order"] (order is then empty), or both
 //
 // Priority values and divisors are written with three decimal places unless
 // shorter and exact. Margins count whole people (or the smallest decimal

@@ -12,18 +12,28 @@ import (
 // seats, whether quota holds, the method's explanation columns and the
 // margins.
 func AllotTable(res *engine.Result) *Table {
-	t := &Table{}
+	r := AllotRows(res)
+	t := &Table{Header: r.Header, Right: r.Right, Rows: make([][]string, r.N)}
+	for i := range t.Rows {
+		t.Rows[i] = r.Row(i, nil)
+	}
+	return t
+}
+
+// AllotRows returns the rows of [AllotTable], made one at a time as they
+// are written.
+func AllotRows(res *engine.Result) *Rows {
+	t := &Rows{N: len(res.Units)}
 	div := res.Method.IsDivisor()
 	if div {
 		t.Header = []string{"unit", "population", "quota", "seats", "quota ok", "last priority", "next priority", "gain margin", "lose margin", "notes"}
-		t.Right = []bool{false, true, true, true, false, true, true, true, true, false}
 	} else {
 		t.Header = []string{"unit", "population", "quota", "seats", "quota ok", "remainder", "rank", "gain margin", "lose margin", "notes"}
-		t.Right = []bool{false, true, true, true, false, true, true, true, true, false}
 	}
-	for i := range res.Units {
+	t.Right = []bool{false, true, true, true, false, true, true, true, true, false}
+	t.Row = func(i int, row []string) []string {
 		u := &res.Units[i]
-		row := []string{u.Name, u.Population.String(), u.Quota.Text, strconv.Itoa(u.Seats), yesNo(u.MeetsQuota)}
+		row = append(row[:0], u.Name, u.Population.String(), u.Quota.Text, strconv.Itoa(u.Seats), yesNo(u.MeetsQuota))
 		if div {
 			row = append(row, valueText(u.Last), valueText(u.Next))
 		} else {
@@ -36,8 +46,7 @@ func AllotTable(res *engine.Result) *Table {
 			}
 			row = append(row, valueText(u.Remainder), rank)
 		}
-		row = append(row, marginText(u.Gain), marginText(u.Lose), unitNotes(u))
-		t.AddRow(row...)
+		return append(row, marginText(u.Gain), marginText(u.Lose), unitNotes(u))
 	}
 	return t
 }
@@ -87,46 +96,43 @@ func marginText(d *engine.Decimal) string {
 // terminal. order chooses whether the whole seat order is listed; otherwise
 // the last five seats and the next five are.
 func WriteAllotText(w io.Writer, title string, res *engine.Result, order bool) error {
-	var b strings.Builder
+	b, own := buffered(w)
 	if title != "" {
 		b.WriteString(title + "\n")
 	}
 	b.WriteString(res.Method.Name() + ", " + strconv.Itoa(res.Seats) + " seats, population " + res.Total + "\n\n")
-	if err := writeString(w, b.String()); err != nil {
+	if err := AllotRows(res).WriteText(b); err != nil {
 		return err
 	}
-	if err := AllotTable(res).WriteText(w); err != nil {
-		return err
-	}
-	b.Reset()
 	b.WriteString("\n")
-	writeExplanation(&b, res, order, "")
+	writeExplanation(b, res, order, "")
 	b.WriteString("\n" + Wrap(Caution, 76) + "\n")
-	return writeString(w, b.String())
+	return finish(b, own)
 }
 
 // WriteAllotMarkdown writes res as a Markdown section.
 func WriteAllotMarkdown(w io.Writer, title string, res *engine.Result) error {
-	var b strings.Builder
+	b, own := buffered(w)
 	if title == "" {
 		title = "Apportionment"
 	}
 	b.WriteString("## " + title + "\n\n")
 	b.WriteString("**" + res.Method.Name() + "**, " + strconv.Itoa(res.Seats) + " seats, population " + res.Total + ".\n\n")
-	if err := writeString(w, b.String()); err != nil {
+	if err := AllotRows(res).WriteMarkdown(b); err != nil {
 		return err
 	}
-	if err := AllotTable(res).WriteMarkdown(w); err != nil {
-		return err
-	}
-	b.Reset()
 	b.WriteString("\n")
-	writeExplanation(&b, res, false, "- ")
+	writeExplanation(b, res, false, "- ")
 	b.WriteString("\n> " + Caution + "\n")
-	return writeString(w, b.String())
+	return finish(b, own)
 }
 
-func writeExplanation(b *strings.Builder, res *engine.Result, order bool, bullet string) {
+// WriteAllotCSV writes the table of res as CSV, one row at a time.
+func WriteAllotCSV(w io.Writer, res *engine.Result) error {
+	return AllotRows(res).WriteCSV(w)
+}
+
+func writeExplanation(b io.StringWriter, res *engine.Result, order bool, bullet string) {
 	line := func(s string) { b.WriteString(bullet + s + "\n") }
 	for _, t := range res.Ties {
 		s := "TIE: " + strings.Join(t.Names, ", ") + " tie at " + t.Value.Text + " for " + plural(t.Seats, "seat")
