@@ -1,9 +1,11 @@
 package main
 
 import (
+	"bufio"
 	"bytes"
 	"flag"
 	"io"
+	"strconv"
 
 	"seatsmith/engine"
 	"seatsmith/engine/jsondoc"
@@ -21,6 +23,14 @@ Apportions the seats by one method and explains the result: each unit's
 quota and whether it is met, the divisor range (divisor methods) or the
 remainders (largest-remainder methods), the seat order and the next seats,
 and how many people each unit is from gaining or losing a seat.
+
+The margins and the seat order are the costly parts. On large inputs they
+are left out unless asked for, with a note on standard error saying so:
+the margins with more than 100,000 units (more than 1,000 for
+largest-remainder methods or with a threshold, where each margin is a
+search of complete apportionments), the seat order with more than 100,000
+seats. -margins and -order ask for them at any size; -margins=false and
+-order=false leave them out at any size. CSV never needs the seat order.
 
 Examples:
   seatsmith allot -method huntington-hill -seats 40 -min 1 testdata/demo/vessaria.csv
@@ -59,7 +69,8 @@ func runAllot(e *env, args []string) int {
 	var of outputFlags
 	sf.bind(fs, true)
 	of.bind(fs, "text", "csv", "json", "markdown")
-	order := fs.Bool("order", false, "list the whole seat order, not just the last and next seats (text format)")
+	order := fs.Bool("order", false, "compute the seat order at any house size and list all of it, not just the last\nand next seats (text format)")
+	margins := fs.Bool("margins", false, "compute every unit's gain and lose margins at any size (default: on small\ninputs only)")
 	fs.Usage = helpFunc(fs, e.stdout, allotHelp)
 	if err := fs.Parse(args); err != nil {
 		if err == flag.ErrHelp {
@@ -77,30 +88,30 @@ func runAllot(e *env, args []string) int {
 	if !src.Scenario.Method.Valid() {
 		return fail(e, "allot", usageError("no method: give -method (or \"method\" in a JSON scenario)"))
 	}
-	// The seat order grows with the house size; only the formats that show
-	// it ask for it.
-	detail := engine.WithMargins
-	if of.format != "csv" {
-		detail |= engine.WithOrder
+	set := map[string]bool{}
+	fs.Visit(func(f *flag.Flag) { set[f.Name] = true })
+	plan := planDetail(&src.Scenario, of.format, set["margins"], *margins, set["order"], *order)
+	for _, n := range plan.notes {
+		io.WriteString(e.stderr, "seatsmith allot: "+n+"\n")
 	}
-	res, err := engine.Allot(&src.Scenario, detail)
+	res, err := engine.Allot(&src.Scenario, plan.detail)
 	if err != nil {
 		return fail(e, "allot", src.Locate(err))
 	}
-	var b bytes.Buffer
-	switch of.format {
-	case "json":
-		b.Write(jsondoc.MarshalIndent(report.Allotment(src.Title, res), "  "))
-	case "csv":
-		err = report.AllotTable(res).WriteCSV(&b)
-	case "markdown":
-		err = report.WriteAllotMarkdown(&b, src.Title, res)
-	default:
-		err = report.WriteAllotText(&b, src.Title, res, *order)
-	}
-	if err == nil {
-		err = of.write(e, &b)
-	}
+	// The scenario's copy of the units is no longer needed; the result
+	// holds what the output shows.
+	src.Scenario.Units = nil
+	err = of.stream(e, func(w *bufio.Writer) error {
+		switch of.format {
+		case "json":
+			return report.WriteAllotJSON(w, src.Title, res, plan.skipped)
+		case "csv":
+			return report.WriteAllotCSV(w, res)
+		case "markdown":
+			return report.WriteAllotMarkdown(w, src.Title, res)
+		}
+		return report.WriteAllotText(w, src.Title, res, *order)
+	})
 	if err != nil {
 		return fail(e, "allot", err)
 	}
@@ -161,4 +172,66 @@ func runCompare(e *env, args []string) int {
 		}
 	}
 	return exitOK
+}
+
+// Sizes above which allot leaves out the costly parts of the explanation
+// unless asked for them.
+const (
+	// autoMarginUnits: closed-form margins (divisor methods without a
+	// threshold) cost a pass over the units.
+	autoMarginUnits = 100_000
+	// autoSearchUnits: the other margins are searches in which every probe
+	// is a complete apportionment, so their cost grows with the square of
+	// the number of units.
+	autoSearchUnits = 1_000
+	// autoOrderSeats: the seat order holds one entry per seat.
+	autoOrderSeats = 100_000
+)
+
+// detailPlan is what allot computes and what it leaves out.
+type detailPlan struct {
+	detail  engine.Detail
+	skipped []string // "margins", "order"
+	notes   []string // why, and how to ask for it
+}
+
+// planDetail chooses the explanation for the scenario and format: what was
+// asked for on the command line (asked reports that the option was given),
+// or by the size of the input.
+func planDetail(s *engine.Scenario, format string, marginsAsked, margins, orderAsked, order bool) detailPlan {
+	var p detailPlan
+	n := len(s.Units)
+	search := !s.Method.IsDivisor() || !s.Threshold.IsZero()
+	switch {
+	case marginsAsked && margins:
+		p.detail |= engine.WithMargins
+	case marginsAsked:
+		p.skipped = append(p.skipped, "margins")
+	case search && n > autoSearchUnits:
+		p.skipped = append(p.skipped, "margins")
+		p.notes = append(p.notes, strconv.Itoa(n)+" units: gain and lose margins left out (each is a search of complete apportionments, "+
+			"for every unit); give -margins to compute them")
+	case n > autoMarginUnits:
+		p.skipped = append(p.skipped, "margins")
+		p.notes = append(p.notes, strconv.Itoa(n)+" units: gain and lose margins left out; give -margins to compute them")
+	default:
+		p.detail |= engine.WithMargins
+	}
+	// Only divisor methods have a seat order, and only the formats that
+	// print it need it.
+	if !s.Method.IsDivisor() || format == "csv" {
+		return p
+	}
+	switch {
+	case orderAsked && order:
+		p.detail |= engine.WithOrder
+	case orderAsked:
+		p.skipped = append(p.skipped, "order")
+	case s.Seats > autoOrderSeats:
+		p.skipped = append(p.skipped, "order")
+		p.notes = append(p.notes, strconv.Itoa(s.Seats)+" seats: the seat order left out; give -order to list it")
+	default:
+		p.detail |= engine.WithOrder
+	}
+	return p
 }

@@ -1,6 +1,7 @@
 package main
 
 import (
+	"bufio"
 	"bytes"
 	"flag"
 	"os"
@@ -8,9 +9,10 @@ import (
 	"strings"
 )
 
-// outputFlags choose the output format and destination. Output is built in
-// full before anything is written, and a file is replaced only once the new
-// content is complete, so a failure never leaves half a result.
+// outputFlags choose the output format and destination. A file is replaced
+// only once the new content is complete, so a failure never leaves half a
+// result: output goes to a temporary file beside it, renamed over it at
+// the end.
 type outputFlags struct {
 	format string
 	out    string
@@ -56,4 +58,39 @@ func (o *outputFlags) write(e *env, b *bytes.Buffer) error {
 		return err
 	}
 	return nil
+}
+
+// stream calls fill with a buffered writer and delivers what it writes:
+// straight to standard output, or through a temporary file renamed over
+// the destination once fill and every write have succeeded. Nothing is
+// held in memory beyond the buffer.
+func (o *outputFlags) stream(e *env, fill func(w *bufio.Writer) error) error {
+	if o.out == "" || o.out == "-" {
+		w := bufio.NewWriterSize(e.stdout, 1<<16)
+		if err := fill(w); err != nil {
+			w.Flush()
+			return err
+		}
+		return w.Flush()
+	}
+	tmp, err := os.CreateTemp(filepath.Dir(o.out), ".seatsmith-*")
+	if err != nil {
+		return err
+	}
+	name := tmp.Name()
+	w := bufio.NewWriterSize(tmp, 1<<16)
+	err = fill(w)
+	if err == nil {
+		err = w.Flush()
+	}
+	if cerr := tmp.Close(); err == nil {
+		err = cerr
+	}
+	if err == nil {
+		err = os.Rename(name, o.out)
+	}
+	if err != nil {
+		os.Remove(name)
+	}
+	return err
 }
