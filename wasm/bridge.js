@@ -25,7 +25,8 @@
 // Each calculator root carries data-state: "static" (rendered ahead of
 // time), "live" (the engine has run here) or "error" (with the message
 // shown). The edited scenario is kept in the URL fragment as
-// #ID=BASE64URL(JSON), so a link reproduces the same view.
+// #ID=BASE64URL(JSON), written once the reader pauses, so a link
+// reproduces the same view.
 
 const ROOT = '[data-seatsmith]';
 const SVG_NS = 'http://www.w3.org/2000/svg';
@@ -38,6 +39,10 @@ const URL_ATTRS = new Set(['href', 'src', 'action', 'formaction', 'xlink:href', 
 // across house sizes (sweep), between two population counts (growth) and
 // with a unit added (admit).
 const MODES = new Set(['compact', 'full', 'sweep', 'growth', 'admit']);
+
+// LINK_PAUSE is how long after the last edit, in milliseconds, the link
+// in the address bar catches up with the scenario.
+const LINK_PAUSE = 400;
 
 const here = import.meta.url;
 
@@ -124,6 +129,40 @@ function patch(el, t, inSvg) {
     if (c) {
       const next = c.nextSibling;
       patch(c, t[i], svg);
+      c = next;
+    } else el.appendChild(build(t[i], svg));
+  }
+  while (c) {
+    const next = c.nextSibling;
+    c.remove();
+    c = next;
+  }
+  return el;
+}
+
+// patchFrom is patch for an element known to be what build(old) made: it
+// compares the two trees in JavaScript and touches the DOM only where they
+// differ, never reading it, which makes an edit that changes a few numbers
+// in a result of thousands of nodes cheap. Where the trees' shapes differ
+// it falls back to patch.
+function patchFrom(el, old, t, inSvg) {
+  if (old === t) return el;
+  if (typeof t === 'string' || !Array.isArray(old) || old[0] !== t[0]) return patch(el, t, inSvg);
+  const svg = inSvg || t[0] === 'svg';
+  const a = t[1] || {};
+  const b = old[1] || {};
+  for (const k of Object.keys(a)) {
+    if (a[k] !== b[k] && canSet(k)) el.setAttribute(k, String(a[k]));
+  }
+  for (const k of Object.keys(b)) {
+    if (!Object.hasOwn(a, k) && canSet(k)) el.removeAttribute(k);
+  }
+  let c = el.firstChild;
+  for (let i = 2; i < t.length; i++) {
+    if (c) {
+      const next = c.nextSibling;
+      if (i < old.length) patchFrom(c, old[i], t[i], svg);
+      else patch(c, t[i], svg);
       c = next;
     } else el.appendChild(build(t[i], svg));
   }
@@ -352,7 +391,11 @@ class Calculator {
     let el;
     if (name === 'output') {
       checkTree(tree);
-      el = patch(old, tree, false);
+      // The tree last put in place describes the node still there, unless
+      // something else has replaced it since.
+      el = this.outputEl === old && this.outputTree ? patchFrom(old, this.outputTree, tree, false) : patch(old, tree, false);
+      this.outputEl = el;
+      this.outputTree = tree;
     } else {
       el = build(tree);
       old.replaceWith(el);
@@ -405,6 +448,9 @@ class Calculator {
 
   wire() {
     const root = this.root;
+    addEventListener('pagehide', () => {
+      if (this.linkTimer) this.saveFragment();
+    });
     root.addEventListener('submit', (e) => e.preventDefault());
     root.addEventListener('input', (e) => this.onField(e, false));
     root.addEventListener('change', (e) => this.onField(e, true));
@@ -493,7 +539,7 @@ class Calculator {
     // records the page's layout with each history entry, and while the new
     // results are not yet laid out that would lay out the whole page first.
     if (r.scenario) this.scenario = r.scenario;
-    this.saveFragment();
+    this.saveFragmentSoon();
     this.apply(r, withEditor);
     if (withEditor && key) {
       const again = this.root.querySelector('[data-field="' + CSS.escape(key) + '"], [data-action="' + CSS.escape(key) + '"]');
@@ -503,7 +549,18 @@ class Calculator {
     return r;
   }
 
+  // saveFragmentSoon writes the link once the reader pauses: the browser
+  // records the state of every form field with each history entry, which
+  // on a page of fifty units takes longer than a frame, too long to do at
+  // every edit. A page being left gets its link at once.
+  saveFragmentSoon() {
+    clearTimeout(this.linkTimer);
+    this.linkTimer = setTimeout(() => this.saveFragment(), LINK_PAUSE);
+  }
+
   saveFragment() {
+    clearTimeout(this.linkTimer);
+    this.linkTimer = 0;
     const parts = fragmentParts();
     parts.set(this.id, encodeScenario(this.scenario));
     const h = [...parts].map(([k, v]) => encodeURIComponent(k) + '=' + v).join('&');

@@ -234,6 +234,7 @@ func BenchmarkBrowserEdit(b *testing.B) {
 		var g engineTimes
 		run(editTimingJS+`(`+strconv.Itoa(editsPerOp)+`, false)`, &e)
 		run(editTimingJS+`(`+strconv.Itoa(editsPerOp/4)+`, true)`, &s)
+		tb.waitFor("the link to hold the scenario", `location.hash.includes("workbench=")`)
 		run(engineTimingJS+`(`+strconv.Itoa(editsPerOp)+`, 20)`, &g)
 		edits.Handle = append(edits.Handle, e.Handle...)
 		edits.Raf = append(edits.Raf, e.Raf...)

@@ -10,6 +10,7 @@ package main
 import (
 	"net/http"
 	"net/http/httptest"
+	"strconv"
 	"strings"
 	"sync"
 	"testing"
@@ -159,7 +160,11 @@ func TestBrowserLoading(t *testing.T) {
 		// fresh build of the engine's answer gives.
 		for _, v := range []string{"3055971", "x", "55971"} {
 			sel := chromedp.CSS(`#workbench [data-field="units.8.population"]`)
+			before := eval[string](tb, `location.hash`)
 			tb.do(chromedp.SetValue(sel, v), chromedp.Evaluate[chromedp.Void](`document.querySelector('#workbench [data-field="units.8.population"]').dispatchEvent(new Event('change', {bubbles: true}))`))
+			// The link, which the check reads the scenario from, follows
+			// after a pause.
+			tb.waitFor("the link to follow the edit", `location.hash !== `+strconv.Quote(before))
 			same := eval[string](tb, `(async () => {
   const bridge = await import(document.querySelector('script[type=module][src]').src);
   const root = document.querySelector('#workbench');

@@ -78,9 +78,8 @@ func TestBrowserStudies(t *testing.T) {
 		if n := eval[int](tb, alabama); n != 1 {
 			t.Errorf("%d Alabama paradoxes without the Droop quota, want 1", n)
 		}
-		if !strings.Contains(eval[string](tb, `location.hash`), "sweep=") {
-			t.Error("the edit is not in the link")
-		}
+		// The link follows once the reader pauses.
+		tb.waitFor("the edit in the link", `location.hash.includes("sweep=")`)
 
 		// A population edit redraws the lines.
 		before := eval[string](tb, `document.querySelector('#sweep [data-method=hamilton] path[data-sweep-unit="Sarrow"]').getAttribute('d')`)

@@ -374,9 +374,8 @@ func TestBrowser(t *testing.T) {
 		if n := eval[int](tb, `document.querySelectorAll('#assembly [data-claim][data-holds]').length`); n != 6 {
 			t.Errorf("%d claims shown", n)
 		}
-		if !strings.Contains(eval[string](tb, `location.hash`), "assembly=") {
-			t.Error("the edit is not in the fragment")
-		}
+		// The link follows once the typing pauses.
+		tb.waitFor("the edit in the fragment", `location.hash.includes("assembly=")`)
 		// The claims in the prose follow the edit: Orlen no longer gets 12.
 		if got := eval[string](tb, `document.querySelector('[data-claim-ref="orlen-hh"]').dataset.holds`); got != "false" {
 			t.Errorf("the inline claim shows holds=%s after the edit", got)
@@ -490,6 +489,12 @@ func TestBrowser(t *testing.T) {
 		tb.do(chromedp.Focus(sel), chromedp.Evaluate[chromedp.Void](`document.activeElement.select()`), chromedp.SendKeys(sel, "41"))
 		tb.waitFor("41 seats", `document.querySelector('#council table.sc-results').dataset.house === '41'`)
 		rows := tb.rows()
+		// The link follows once the typing pauses, and at once when the
+		// page is being left.
+		if got := eval[string](tb, `dispatchEvent(new PageTransitionEvent('pagehide')), `+linkMember("council", "seats")); got != "41" {
+			t.Errorf("leaving the page left the link with seats %s, want 41", got)
+		}
+		tb.waitFor("the link to hold 41 seats", linkMember("council", "seats")+` === "41"`)
 		link := eval[string](tb, `location.href`)
 		if !strings.Contains(link, "#council=") {
 			t.Fatalf("no scenario in the link %s", link)
@@ -633,3 +638,16 @@ func TestBrowser(t *testing.T) {
 }
 
 func b64url(s string) string { return base64.RawURLEncoding.EncodeToString([]byte(s)) }
+
+// linkMember returns a JavaScript expression for a member of the scenario
+// that the page's link holds for calculator id (undefined while it holds
+// none).
+func linkMember(id, member string) string {
+	return `(() => {
+  const m = new RegExp('[#&]' + ` + strconv.Quote(id) + ` + '=([^&]*)').exec(location.hash);
+  if (!m) return undefined;
+  let b = m[1].replace(/-/g, '+').replace(/_/g, '/');
+  while (b.length % 4) b += '=';
+  return String(JSON.parse(new TextDecoder().decode(Uint8Array.from(atob(b), (c) => c.charCodeAt(0))))[` + strconv.Quote(member) + `]);
+})()`
+}
