@@ -1,8 +1,6 @@
 package input
 
 import (
-	"bytes"
-	"encoding/csv"
 	"errors"
 	"io"
 	"strconv"
@@ -14,21 +12,14 @@ import (
 // ReadCSV reads a table of units. file names the input in error messages.
 // The scenario-level fields (seats, method, ...) are left for the caller.
 func ReadCSV(file string, r io.Reader) (*Source, error) {
-	data, err := io.ReadAll(io.LimitReader(r, 1<<31))
-	if err != nil {
-		return nil, &Error{File: file, Msg: err.Error()}
-	}
-	data = bytes.TrimPrefix(data, []byte("\xEF\xBB\xBF"))
-	cr := csv.NewReader(bytes.NewReader(data))
-	cr.FieldsPerRecord = 0 // every row as long as the header
-	cr.ReuseRecord = true
+	cr := NewCSVReader(r) // every row as long as the header
 	src := &Source{File: file, Given: map[string]bool{}, fieldLines: map[string]int{}}
 	header, err := cr.Read()
 	if err == io.EOF {
 		return nil, &Error{File: file, Line: 1, Msg: "empty file: expected a header row such as name,population"}
 	}
 	if err != nil {
-		return nil, csvError(file, err)
+		return nil, errorOf(file, err)
 	}
 	col := map[string]int{}
 	for i, h := range header {
@@ -55,9 +46,9 @@ func ReadCSV(file string, r io.Reader) (*Source, error) {
 			break
 		}
 		if err != nil {
-			return nil, csvError(file, err)
+			return nil, errorOf(file, err)
 		}
-		line, _ := cr.FieldPos(0)
+		line := cr.Line()
 		if len(src.unitLines) >= engine.MaxUnits {
 			return nil, &Error{File: file, Line: line, Msg: "more than " + strconv.Itoa(engine.MaxUnits) + " units"}
 		}
@@ -133,15 +124,4 @@ func wholeSeats(s string) (int, error) {
 		return 0, errors.New(t + " is more than the limit of " + strconv.Itoa(engine.MaxSeats) + " seats")
 	}
 	return n, nil
-}
-
-func csvError(file string, err error) error {
-	var pe *csv.ParseError
-	if errors.As(err, &pe) {
-		if errors.Is(pe.Err, csv.ErrFieldCount) {
-			return &Error{File: file, Line: pe.Line, Field: "row", Msg: "this row has a different number of fields from the header"}
-		}
-		return &Error{File: file, Line: pe.Line, Field: "column " + strconv.Itoa(pe.Column), Msg: pe.Err.Error()}
-	}
-	return &Error{File: file, Msg: err.Error()}
 }

@@ -1,6 +1,8 @@
 package input
 
 import (
+	"bufio"
+	"bytes"
 	"errors"
 	"io"
 	"strconv"
@@ -33,15 +35,31 @@ func ReadJSON(file string, r io.Reader) (*Source, error) {
 // Read reads a scenario from CSV or JSON: JSON when the first character that
 // is not white space is '{', CSV otherwise.
 func Read(file string, r io.Reader) (*Source, error) {
-	data, err := io.ReadAll(io.LimitReader(r, 1<<31))
-	if err != nil {
-		return nil, &Error{File: file, Msg: err.Error()}
+	// Read only as far as the first character that decides, then hand the
+	// whole input on: a CSV table is read as it streams in.
+	br := bufio.NewReaderSize(r, 64<<10)
+	var head []byte
+	for {
+		c, err := br.ReadByte()
+		if err == io.EOF {
+			break
+		}
+		if err != nil {
+			return nil, &Error{File: file, Msg: err.Error()}
+		}
+		head = append(head, c)
+		if len(head) <= 3 && bytes.HasPrefix([]byte("\xEF\xBB\xBF"), head) {
+			continue
+		}
+		if c != ' ' && c != '\t' && c != '\r' && c != '\n' {
+			break
+		}
 	}
-	t := strings.TrimLeft(strings.TrimPrefix(string(data), "\uFEFF"), " \t\r\n")
-	if strings.HasPrefix(t, "{") {
-		return ReadJSON(file, strings.NewReader(string(data)))
+	all := io.MultiReader(bytes.NewReader(head), br)
+	if len(head) > 0 && head[len(head)-1] == '{' {
+		return ReadJSON(file, all)
 	}
-	return ReadCSV(file, strings.NewReader(string(data)))
+	return ReadCSV(file, all)
 }
 
 var scenarioMembers = []string{"version", "title", "seats", "method", "min", "max", "threshold", "tie", "units"}

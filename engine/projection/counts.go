@@ -2,7 +2,6 @@ package projection
 
 import (
 	"bytes"
-	"encoding/csv"
 	"errors"
 	"io"
 	"math"
@@ -104,9 +103,7 @@ var csvColumns = []string{"name", "date", "population", "rse", "min", "max"}
 
 // readCSV reads a table with one row per count.
 func readCSV(file string, data []byte) (*Counts, error) {
-	cr := csv.NewReader(bytes.NewReader(data))
-	cr.FieldsPerRecord = 0
-	cr.ReuseRecord = true
+	cr := input.NewCSVReader(bytes.NewReader(data))
 	bad := func(line int, field, msg string) error {
 		return &input.Error{File: file, Line: line, Field: field, Msg: msg}
 	}
@@ -156,7 +153,7 @@ func readCSV(file string, data []byte) (*Counts, error) {
 		if err != nil {
 			return nil, csvError(file, err)
 		}
-		line, _ := cr.FieldPos(0)
+		line := cr.Line()
 		rows++
 		if rows > engine.MaxUnits*8 {
 			return nil, bad(line, "", "too many rows")
@@ -458,16 +455,7 @@ func wholeSeats(s string) (int, error) {
 	return n, nil
 }
 
-func csvError(file string, err error) error {
-	var pe *csv.ParseError
-	if errors.As(err, &pe) {
-		if errors.Is(pe.Err, csv.ErrFieldCount) {
-			return &input.Error{File: file, Line: pe.Line, Field: "row", Msg: "this row has a different number of fields from the header"}
-		}
-		return &input.Error{File: file, Line: pe.Line, Field: "column " + strconv.Itoa(pe.Column), Msg: pe.Err.Error()}
-	}
-	return &input.Error{File: file, Msg: err.Error()}
-}
+func csvError(file string, err error) error { return input.CSVErrorOf(file, err) }
 
 func contains(list []string, s string) bool {
 	for _, x := range list {
