@@ -9,6 +9,11 @@
 //
 //	go run ./tools/scalebench gen -units N [-seed S] > big.csv
 //	go run ./tools/scalebench allot -method M -seats H [-detail D] [-o FILE] [-lean] big.csv
+//	go run ./tools/scalebench read big.csv
+//
+// read is the baseline for peak memory: it reads the file into memory and
+// does nothing else, so the peak resident memory of any command on the
+// same file can be given as a ratio to it.
 //
 // -detail is none, margins, order or full (the default, what seatsmith
 // allot asks for); FILE defaults to /dev/null. -lean measures what the
@@ -51,6 +56,8 @@ func run(args []string, stdout, stderr io.Writer) int {
 		return gen(args[1:], stdout, stderr)
 	case "allot":
 		return allot(args[1:], stdout, stderr)
+	case "read":
+		return readOnly(args[1:], stdout, stderr)
 	}
 	fmt.Fprintf(stderr, "scalebench: unknown command %q\n", args[0])
 	return 2
@@ -189,5 +196,21 @@ func allot(args []string, stdout, stderr io.Writer) int {
 		return 1
 	}
 	step("write")
+	return 0
+}
+
+// readOnly reads the file into memory and reports its size.
+func readOnly(args []string, stdout, stderr io.Writer) int {
+	if len(args) != 1 {
+		io.WriteString(stderr, "usage: scalebench read FILE\n")
+		return 2
+	}
+	data, err := os.ReadFile(args[0])
+	if err != nil {
+		fmt.Fprintln(stderr, "scalebench:", err)
+		return 1
+	}
+	lines := bytes.Count(data, []byte{'\n'})
+	fmt.Fprintf(stdout, "read %d bytes, %d lines\n", len(data), lines)
 	return 0
 }
