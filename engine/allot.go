@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"math"
 	"math/big"
 )
 
@@ -51,6 +52,7 @@ func (pr *problem) allot(detail Detail) (*Result, error) {
 	total := pr.eligibleTotal()
 	res.Total = scaledText(total, pr.places)
 	sum := 0
+	var dens lastText
 	for i := range res.Units {
 		u := &res.Units[i]
 		u.Name = pr.names[i]
@@ -62,7 +64,7 @@ func (pr *problem) allot(detail Detail) (*Result, error) {
 			u.Max = -1
 		}
 		u.Excluded = !pr.eligible[i]
-		pr.quota(i, total, u)
+		pr.quota(i, total, u, &dens)
 	}
 	res.Unassigned = pr.h - sum
 	if o.lr != nil {
@@ -111,9 +113,24 @@ func scaledText(x u128, places int) string {
 	return decimalText(r)
 }
 
+// lastText writes whole numbers, reusing the last text for the same
+// number: most quotas share one denominator, the total over a small common
+// factor, and a million units need not keep a million copies of it.
+type lastText struct {
+	n    uint64
+	text string
+}
+
+func (c *lastText) of(n uint64) string {
+	if c.text == "" || c.n != n {
+		c.n, c.text = n, strconvU(n)
+	}
+	return c.text
+}
+
 // quota fills the standard quota p·H/P of unit i, in integer arithmetic
 // when the total fits in 64 bits.
-func (pr *problem) quota(i int, total u128, u *UnitResult) {
+func (pr *problem) quota(i int, total u128, u *UnitResult, dens *lastText) {
 	if !pr.eligible[i] {
 		u.Quota = Fraction{Num: "0", Den: "1", Text: "0"}
 		u.MeetsQuota = u.Seats == 0
@@ -138,7 +155,7 @@ func (pr *problem) quota(i int, total u128, u *UnitResult) {
 		// gcd(num, total) = gcd(num mod total, total).
 		g := gcd64(rem, total.lo)
 		n, _ := num.div64(g)
-		u.Quota.Num, u.Quota.Den = n.text(), strconvU(total.lo/g)
+		u.Quota.Num, u.Quota.Den = n.text(), dens.of(total.lo/g)
 		return
 	}
 	r := new(big.Rat).SetFrac(num.big(), total.big())
@@ -156,10 +173,29 @@ func (pr *problem) quota(i int, total u128, u *UnitResult) {
 func quotaText(q, rem, den uint64) string {
 	var digits [6]byte
 	n := 0
-	for ; n < 6 && rem != 0; n++ {
-		d, r, _ := divmod128(mul128(rem, 10), den)
-		digits[n] = byte(d)
-		rem = r
+	if rem <= math.MaxUint64/1_000_000 {
+		// The six digits at once, in one 64-bit division: far quicker
+		// than six 128-bit ones where those are done in software, as in
+		// WebAssembly.
+		x := rem * 1_000_000
+		d := x / den
+		rem = x % den
+		for k := 5; k >= 0; k-- {
+			digits[k] = byte(d % 10)
+			d /= 10
+		}
+		n = 6
+		if rem == 0 {
+			for n > 0 && digits[n-1] == 0 {
+				n--
+			}
+		}
+	} else {
+		for ; n < 6 && rem != 0; n++ {
+			d, r, _ := divmod128(mul128(rem, 10), den)
+			digits[n] = byte(d)
+			rem = r
+		}
 	}
 	if rem != 0 && mul128(rem, 2).cmp(u128{0, den}) >= 0 {
 		// Round up, carrying through the digits into the whole part.

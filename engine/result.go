@@ -40,24 +40,27 @@ type UnitResult struct {
 	AtMin      bool // the minimum holds it up
 	AtMax      bool // the maximum holds it down
 	Tied       bool // one of the units in a tie
+	// MeetsQuota reports whether Seats is the lower or the upper quota
+	// (kept beside the other flags, as RemainderSeat is, so that a
+	// million units' results are 16 bytes a unit smaller).
+	MeetsQuota bool
+	// RemainderSeat: see Remainder below.
+	RemainderSeat bool
 
 	// Quota is the standard quota p·H/P over the apportioned units, with
-	// its lower and upper quota; MeetsQuota reports whether Seats is one of
-	// them.
+	// its lower and upper quota.
 	Quota        Fraction
 	Lower, Upper int
-	MeetsQuota   bool
 
 	// Divisor methods: the priority value of the last seat held beyond the
 	// minimum and of the next seat; nil where there is none.
 	Last, Next *Value
 
-	// Largest-remainder methods: the remainder in the final pass, its rank
-	// there (1 for the largest; 0 when the unit was fixed at a bound or
-	// excluded) and whether it won a seat.
+	// Largest-remainder methods: the remainder in the final pass and its
+	// rank there (1 for the largest; 0 when the unit was fixed at a bound
+	// or excluded); RemainderSeat above reports whether it won a seat.
 	Remainder     *Value
 	RemainderRank int
-	RemainderSeat bool
 
 	// Gain is the fewest extra people who would win the unit one more seat
 	// outright (not merely a tie for it), all other units fixed; Lose the

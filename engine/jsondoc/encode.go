@@ -82,6 +82,16 @@ func AppendString(b []byte, s string) []byte {
 	const hex = "0123456789abcdef"
 	b = append(b, '"')
 	for i := 0; i < len(s); {
+		// Copy a run of characters that need no escape at once.
+		if plainByte[s[i]] {
+			j := i + 1
+			for j < len(s) && plainByte[s[j]] {
+				j++
+			}
+			b = append(b, s[i:j]...)
+			i = j
+			continue
+		}
 		c := s[i]
 		if c < utf8.RuneSelf {
 			switch {
@@ -114,3 +124,11 @@ func AppendString(b []byte, s string) []byte {
 	}
 	return append(b, '"')
 }
+
+// plainByte marks the ASCII bytes AppendString copies as they are.
+var plainByte = func() (t [256]bool) {
+	for c := 0x20; c < utf8.RuneSelf; c++ {
+		t[c] = c != '"' && c != '\\' && c != '<' && c != '>' && c != '&'
+	}
+	return t
+}()

@@ -63,3 +63,25 @@ func FuzzParse(f *testing.F) {
 		}
 	})
 }
+
+// TestAppendString checks every kind of character AppendString writes:
+// runs copied as they are, escapes, HTML-sensitive characters, line and
+// paragraph separators, multi-byte UTF-8 and invalid bytes.
+func TestAppendString(t *testing.T) {
+	for _, tc := range []struct{ in, want string }{
+		{"", `""`},
+		{"plain text 123", `"plain text 123"`},
+		{`a"b\c`, `"a\"b\\c"`},
+		{"tab\tnew\nret\r", `"tab\tnew\nret\r"`},
+		{"\x00\x1f", `"\u0000\u001f"`},
+		{"<b>&amp;", `"\u003cb\u003e\u0026amp;"`},
+		{"Sainte-Laguë – ok", `"Sainte-Laguë – ok"`},
+		{"line\u2028para\u2029", `"line\u2028para\u2029"`},
+		{"bad\xffbyte", `"bad\ufffdbyte"`},
+		{"\xe2\x82", `"\ufffd\ufffd"`},
+	} {
+		if got := string(AppendString(nil, tc.in)); got != tc.want {
+			t.Errorf("AppendString(%q) = %s, want %s", tc.in, got, tc.want)
+		}
+	}
+}
