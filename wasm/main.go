@@ -3,6 +3,8 @@
 package main
 
 import (
+	"runtime/debug"
+
 	"github.com/hack-pad/safejs"
 
 	"seatsmith/engine/jsondoc"
@@ -10,6 +12,11 @@ import (
 )
 
 func main() {
+	// An answer for a calculator of fifty units allocates a few megabytes
+	// and keeps almost none of it. Collecting once the heap has grown
+	// fivefold rather than twofold halves the time an edit spends in the
+	// collector, for a few megabytes more of a page's memory.
+	debug.SetGCPercent(400)
 	if err := install(); err != nil {
 		if console, err2 := safejs.Global().Get("console"); err2 == nil {
 			console.Call("error", "seatsmith: the engine could not start: "+err.Error())

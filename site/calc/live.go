@@ -3,7 +3,9 @@ package calc
 import (
 	"bytes"
 	"errors"
+	"strconv"
 	"strings"
+	"time"
 
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
@@ -27,6 +29,7 @@ import (
 //	            scenario document (replaces the scenario) to load first
 //	editor      true to lay out the editor as well as the results
 //	export      true to add the CSV and JSON exports
+//	timings     true to add timings to the answer (for measuring speed)
 //	margins     false to leave out the margins where they are costly (see
 //	            RunQuick); the answer then has margins_pending true, and
 //	            margins_auto true when they are quick enough to fill in
@@ -43,6 +46,9 @@ import (
 //	claims      [{id, holds, found}]
 //	load_error  {message, line, field} when load could not be read
 //	csv, json   the exports, when asked for and the scenario is valid
+//	timings     {compute_ms, layout_ms} when asked for: the milliseconds
+//	            spent apportioning, comparing and checking claims, and
+//	            laying the results out as a tree
 //
 // A block that cannot be read answers {state: "error", error, fatal: true}.
 func Live(req *jsondoc.Value) (resp *jsondoc.Value) {
@@ -90,11 +96,13 @@ func Live(req *jsondoc.Value) (resp *jsondoc.Value) {
 	}
 	doc = stringNumbers(doc)
 	var o *Outcome
+	started := time.Now()
 	if x := req.Get("margins"); x != nil && x.Kind == jsondoc.Bool && !x.Bool {
 		o = RunQuick(b, doc)
 	} else {
 		o = Run(b, doc)
 	}
+	computed := time.Now()
 	resp.Set("margins_pending", jsondoc.Boolean(o.MarginsPending))
 	resp.Set("margins_auto", jsondoc.Boolean(o.MarginsAuto()))
 	resp.Set("state", jsondoc.Str(o.State()))
@@ -105,6 +113,12 @@ func Live(req *jsondoc.Value) (resp *jsondoc.Value) {
 	}
 	resp.Set("scenario", doc)
 	resp.Set("output", render.Doc(Output(o)))
+	if x := req.Get("timings"); x != nil && x.Kind == jsondoc.Bool && x.Bool {
+		ms := func(d time.Duration) *jsondoc.Value {
+			return jsondoc.Num(strconv.FormatFloat(d.Seconds()*1000, 'f', 3, 64))
+		}
+		resp.Set("timings", jsondoc.NewObject().Set("compute_ms", ms(computed.Sub(started))).Set("layout_ms", ms(time.Since(computed))))
+	}
 	if x := req.Get("editor"); x != nil && x.Kind == jsondoc.Bool && x.Bool {
 		resp.Set("editor", render.Doc(Editor(b, doc, true)))
 	}

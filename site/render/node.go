@@ -21,6 +21,9 @@ type Attr struct {
 //go:noinline
 func El(tag string, kv ...string) *Node {
 	n := &Node{Tag: tag}
+	if len(kv) > 0 {
+		n.Attrs = make([]Attr, 0, (len(kv)+1)/2)
+	}
 	for i := 0; i < len(kv); i += 2 {
 		v := ""
 		if i+1 < len(kv) {

@@ -97,8 +97,8 @@ const engineTimingJS = `(async (n, batch) => {
   while (b.length % 4) b += '=';
   const scenario = JSON.parse(new TextDecoder().decode(Uint8Array.from(atob(b), (c) => c.charCodeAt(0))));
   const req = {block_text: root.querySelector('script[type="application/json"]').textContent, id: root.id,
-    mode: root.getAttribute('data-seatsmith'), scenario_text: '', editor: false, margins: false};
-  const out = {engine: [], noop: [], build: [], place: [], compare: [], units: scenario.units.length, state: ''};
+    mode: root.getAttribute('data-seatsmith'), scenario_text: '', editor: false, margins: false, timings: true};
+  const out = {engine: [], compute: [], layout: [], noop: [], build: [], place: [], compare: [], units: scenario.units.length, state: ''};
   for (let i = 0; i < n; i++) {
     const u = scenario.units[(i * 7) % scenario.units.length];
     u.population = String(Number(u.population) + ((i % 2) ? -1 : 1) * (1000 + 37 * i));
@@ -107,6 +107,8 @@ const engineTimingJS = `(async (n, batch) => {
     const r = api.calculator(req);
     const t1 = performance.now();
     out.engine.push(t1 - t0);
+    out.compute.push(Number(r.timings.compute_ms));
+    out.layout.push(Number(r.timings.layout_ms));
     out.state = r.state;
     const el = bridge.build(r.output);
     const t2 = performance.now();
@@ -197,6 +199,8 @@ func fiftyUnitPage(b testing.TB) *tab {
 //	ms/raf-p95                    input event to the next animation frame
 //	ms/unchanged-median           the same for a render of an unchanged scenario
 //	ms/engine-median              the calculator call alone
+//	ms/compute-median             of which the apportionment, the comparison and the claims
+//	ms/layout-median              and the laying out of the results as a tree
 //	ms/noop-median                a trivial call across the bridge
 //	edit-p95/frame, paint-p95/frame   against a 16 ms frame
 //	edit-median/unchanged, engine-median/noop, ...   ratios to baselines of this run
@@ -211,9 +215,9 @@ func BenchmarkBrowserEdit(b *testing.B) {
 
 	type editTimes struct{ Handle, Raf, Render, Gap []float64 }
 	type engineTimes struct {
-		Engine, Noop, Build, Place, Compare []float64
-		Units                               int
-		State                               string
+		Engine, Compute, Layout, Noop, Build, Place, Compare []float64
+		Units                                                int
+		State                                                string
 	}
 	var edits, same editTimes
 	var eng engineTimes
@@ -243,6 +247,8 @@ func BenchmarkBrowserEdit(b *testing.B) {
 		same.Handle = append(same.Handle, s.Handle...)
 		same.Render = append(same.Render, s.Render...)
 		eng.Engine = append(eng.Engine, g.Engine...)
+		eng.Compute = append(eng.Compute, g.Compute...)
+		eng.Layout = append(eng.Layout, g.Layout...)
 		eng.Noop = append(eng.Noop, g.Noop...)
 		eng.Build = append(eng.Build, g.Build...)
 		eng.Place = append(eng.Place, g.Place...)
@@ -283,6 +289,10 @@ func BenchmarkBrowserEdit(b *testing.B) {
 	b.ReportMetric(sameMed, "ms/unchanged-median")
 	b.ReportMetric(engMed, "ms/engine-median")
 	b.ReportMetric(noopMed, "ms/noop-median")
+	computeMed := quantile(eng.Compute, .5)
+	b.ReportMetric(computeMed, "ms/compute-median")
+	b.ReportMetric(quantile(eng.Layout, .5), "ms/layout-median")
+	b.ReportMetric(computeMed/engMed, "compute-median/engine-median")
 	b.ReportMetric(quantile(eng.Compare, .5), "ms/compare-median")
 	b.ReportMetric(quantile(eng.Build, .5), "ms/build-median")
 	b.ReportMetric(quantile(eng.Place, .5), "ms/place-median")
@@ -296,6 +306,6 @@ func BenchmarkBrowserEdit(b *testing.B) {
 	b.ReportMetric(engMed/frameBudget, "engine-median/frame")
 	b.ReportMetric(float64(dropped)/float64(len(edits.Gap)), "late-frames/edit")
 	b.Logf("%d edits of 50 units (every method compared): input to DOM median %.2f ms, p95 %.2f ms; with the next frame's rendering p95 %.2f ms; "+
-		"unchanged scenario median %.2f ms; engine call median %.3f ms (no-op call %.4f ms, compare alone %.3f ms); DOM build median %.2f ms, placing %.2f ms",
-		len(edits.Handle), med, p95, paintP95, sameMed, engMed, noopMed, quantile(eng.Compare, .5), quantile(eng.Build, .5), quantile(eng.Place, .5))
+		"unchanged scenario median %.2f ms; engine call median %.3f ms, of which apportioning, comparing and claims %.3f ms and layout %.3f ms (no-op call %.4f ms, compare alone %.3f ms); DOM build median %.2f ms, placing %.2f ms",
+		len(edits.Handle), med, p95, paintP95, sameMed, engMed, computeMed, quantile(eng.Layout, .5), noopMed, quantile(eng.Compare, .5), quantile(eng.Build, .5), quantile(eng.Place, .5))
 }
