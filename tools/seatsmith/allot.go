@@ -88,6 +88,7 @@ func runAllot(e *env, args []string) int {
 	if !src.Scenario.Method.Valid() {
 		return fail(e, "allot", usageError("no method: give -method (or \"method\" in a JSON scenario)"))
 	}
+	limitMemory(len(src.Scenario.Units))
 	set := map[string]bool{}
 	fs.Visit(func(f *flag.Flag) { set[f.Name] = true })
 	plan := planDetail(&src.Scenario, of.format, set["margins"], *margins, set["order"], *order)
