@@ -3,6 +3,8 @@
 package main
 
 import (
+	"unsafe"
+
 	"github.com/hack-pad/safejs"
 
 	"seatsmith/engine/jsondoc"
@@ -22,6 +24,7 @@ type jsRuntime struct {
 	parse      safejs.Value // JSON.parse
 	stringOf   safejs.Value // String
 	objectCtor safejs.Value // Object
+	out        []byte       // the buffer value writes answers into
 }
 
 func newRuntime() (*jsRuntime, error) {
@@ -54,9 +57,23 @@ func newRuntime() (*jsRuntime, error) {
 // value makes the JavaScript value of a document: JSON.parse of its JSON
 // text, so numbers become JavaScript numbers, and objects plain objects
 // with their members in order.
+//
+// The text is written into a buffer kept from call to call and passed as a
+// string that shares its bytes (syscall/js copies a string's bytes into
+// JavaScript during the call and keeps no reference to them), so that an
+// answer of a hundred kilobytes leaves no garbage of that size behind.
 func (rt *jsRuntime) value(v *jsondoc.Value) (safejs.Value, error) {
-	return rt.parse.Invoke(string(jsondoc.Marshal(v)))
+	rt.out = jsondoc.AppendMarshal(rt.out[:0], v)
+	text := unsafe.String(unsafe.SliceData(rt.out), len(rt.out))
+	r, err := rt.parse.Invoke(text)
+	if cap(rt.out) > maxKeptOutput {
+		rt.out = nil // an unusually large answer: do not keep its buffer
+	}
+	return r, err
 }
+
+// maxKeptOutput is the largest answer buffer kept for the next call.
+const maxKeptOutput = 4 << 20
 
 // reader wraps v for fromJS.
 func (rt *jsRuntime) reader(v safejs.Value) jsReader { return &jsValue{v: v, rt: rt} }

@@ -13,10 +13,12 @@ import (
 
 func main() {
 	// An answer for a calculator of fifty units allocates a few megabytes
-	// and keeps almost none of it. Collecting once the heap has grown
-	// fivefold rather than twofold halves the time an edit spends in the
-	// collector, for a few megabytes more of a page's memory.
-	debug.SetGCPercent(400)
+	// and keeps almost none of it, and a collection in the middle of one
+	// is what makes the slowest edits slow. So the collector waits until
+	// the heap has grown seventeenfold, but never past a soft limit of
+	// 64 MiB, which keeps a page's memory within bounds.
+	debug.SetGCPercent(1600)
+	debug.SetMemoryLimit(64 << 20)
 	if err := install(); err != nil {
 		if console, err2 := safejs.Global().Get("console"); err2 == nil {
 			console.Call("error", "seatsmith: the engine could not start: "+err.Error())

@@ -8,6 +8,10 @@ import (
 // Marshal writes v as compact JSON.
 func Marshal(v *Value) []byte { return appendValue(nil, v, "", "") }
 
+// AppendMarshal appends v as compact JSON to b and returns the extended
+// buffer, so that a caller writing many documents can reuse one buffer.
+func AppendMarshal(b []byte, v *Value) []byte { return appendValue(b, v, "", "") }
+
 // MarshalIndent writes v as JSON with one member or element a line, each
 // level indented by indent.
 func MarshalIndent(v *Value, indent string) []byte {

@@ -198,9 +198,9 @@ func fiftyUnitPage(b testing.TB) *tab {
 //	ms/paint-p95                  that plus the next frame's style, layout and paint
 //	ms/raf-p95                    input event to the next animation frame
 //	ms/unchanged-median           the same for a render of an unchanged scenario
-//	ms/engine-median              the calculator call alone
-//	ms/compute-median             of which the apportionment, the comparison and the claims
-//	ms/layout-median              and the laying out of the results as a tree
+//	ms/engine-median, ms/engine-p95   the calculator call alone
+//	ms/compute-median, -p95       of which the apportionment, the comparison and the claims
+//	ms/layout-median, -p95        and the laying out of the results as a tree
 //	ms/noop-median                a trivial call across the bridge
 //	edit-p95/frame, paint-p95/frame   against a 16 ms frame
 //	edit-median/unchanged, engine-median/noop, ...   ratios to baselines of this run
@@ -288,6 +288,9 @@ func BenchmarkBrowserEdit(b *testing.B) {
 	b.ReportMetric(quantile(edits.Raf, .95), "ms/raf-p95")
 	b.ReportMetric(sameMed, "ms/unchanged-median")
 	b.ReportMetric(engMed, "ms/engine-median")
+	b.ReportMetric(quantile(eng.Engine, .95), "ms/engine-p95")
+	b.ReportMetric(quantile(eng.Compute, .95), "ms/compute-p95")
+	b.ReportMetric(quantile(eng.Layout, .95), "ms/layout-p95")
 	b.ReportMetric(noopMed, "ms/noop-median")
 	computeMed := quantile(eng.Compute, .5)
 	b.ReportMetric(computeMed, "ms/compute-median")
