@@ -85,3 +85,17 @@ func TestAppendString(t *testing.T) {
 		}
 	}
 }
+
+// TestAppendMarshal checks that AppendMarshal extends a buffer with what
+// Marshal writes, and can reuse it.
+func TestAppendMarshal(t *testing.T) {
+	v := NewObject().Set("a", Int(1)).Set("b", NewArray(Str("x"), NullValue()))
+	buf := AppendMarshal([]byte("pre:"), v)
+	if got, want := string(buf), "pre:"+string(Marshal(v)); got != want {
+		t.Fatalf("AppendMarshal = %s, want %s", got, want)
+	}
+	again := AppendMarshal(buf[:0], Str("y"))
+	if string(again) != `"y"` || &again[0] != &buf[0] {
+		t.Errorf("reuse: %s (same buffer: %v)", again, &again[0] == &buf[0])
+	}
+}
