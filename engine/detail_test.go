@@ -16,18 +16,18 @@ func TestSeatsOnly(t *testing.T) {
 			rapid.Check(t, func(t *rapid.T) {
 				s := genScenario(t, m, 12, 1_000_000, 200, rapid.Bool().Draw(t, "bounds"))
 				full, ferr := Allot(s, WithOrder)
-				brief, berr := Allot(s, SeatsOnly)
-				if (ferr == nil) != (berr == nil) {
-					t.Fatalf("errors differ: %v and %v", ferr, berr)
+				only, oerr := Allot(s, SeatsOnly)
+				if (ferr == nil) != (oerr == nil) {
+					t.Fatalf("errors differ: %v and %v", ferr, oerr)
 				}
 				if ferr != nil {
 					return
 				}
-				if !slices.Equal(seatsOf(full), seatsOf(brief)) || len(full.Ties) != len(brief.Ties) || full.Unassigned != brief.Unassigned || full.Total != brief.Total {
-					t.Fatalf("seats only differs: seats %v and %v, ties %v and %v", seatsOf(full), seatsOf(brief), full.Ties, brief.Ties)
+				if !slices.Equal(seatsOf(full), seatsOf(only)) || len(full.Ties) != len(only.Ties) || full.Unassigned != only.Unassigned || full.Total != only.Total {
+					t.Fatalf("seats only differs: seats %v and %v, ties %v and %v", seatsOf(full), seatsOf(only), full.Ties, only.Ties)
 				}
 				for i := range full.Units {
-					f, b := &full.Units[i], &brief.Units[i]
+					f, b := &full.Units[i], &only.Units[i]
 					if f.Quota.Text != b.Quota.Text || f.Lower != b.Lower || f.Upper != b.Upper || f.MeetsQuota != b.MeetsQuota ||
 						f.Tied != b.Tied || f.Excluded != b.Excluded || (m.IsLargestRemainder() && (f.AtMin != b.AtMin || f.AtMax != b.AtMax)) {
 						t.Fatalf("unit %d: %+v, seats only %+v", i, *f, *b)
@@ -36,7 +36,7 @@ func TestSeatsOnly(t *testing.T) {
 						t.Fatalf("unit %d: seats only explains %+v", i, *b)
 					}
 				}
-				if brief.Divisor != nil || brief.Order != nil || brief.Beyond != nil {
+				if only.Divisor != nil || only.Order != nil || only.Beyond != nil {
 					t.Fatal("seats only gives a divisor range, an order or the seats beyond")
 				}
 				if both, err := Allot(s, SeatsOnly|WithOrder); err != nil || (m.IsDivisor() && len(both.Order) != len(full.Order)) {
