@@ -95,12 +95,18 @@ func marginText(d *engine.Decimal) string {
 // WriteAllotText writes a full explanation of res for reading in a
 // terminal. order chooses whether the whole seat order is listed; otherwise
 // the last five seats and the next five are.
-func WriteAllotText(w io.Writer, title string, res *engine.Result, order bool) error {
+// skipped names the parts of the explanation left out ("margins",
+// "order"), which the text says above the table.
+func WriteAllotText(w io.Writer, title string, res *engine.Result, order bool, skipped []string) error {
 	b, own := buffered(w)
 	if title != "" {
 		b.WriteString(title + "\n")
 	}
-	b.WriteString(res.Method.Name() + ", " + strconv.Itoa(res.Seats) + " seats, population " + res.Total + "\n\n")
+	b.WriteString(res.Method.Name() + ", " + strconv.Itoa(res.Seats) + " seats, population " + res.Total + "\n")
+	if n := skippedNote(skipped); n != "" {
+		b.WriteString(Wrap(n, 76) + "\n")
+	}
+	b.WriteString("\n")
 	if err := AllotRows(res).WriteText(b); err != nil {
 		return err
 	}
@@ -111,13 +117,17 @@ func WriteAllotText(w io.Writer, title string, res *engine.Result, order bool) e
 }
 
 // WriteAllotMarkdown writes res as a Markdown section.
-func WriteAllotMarkdown(w io.Writer, title string, res *engine.Result) error {
+// skipped is as for WriteAllotText.
+func WriteAllotMarkdown(w io.Writer, title string, res *engine.Result, skipped []string) error {
 	b, own := buffered(w)
 	if title == "" {
 		title = "Apportionment"
 	}
 	b.WriteString("## " + title + "\n\n")
 	b.WriteString("**" + res.Method.Name() + "**, " + strconv.Itoa(res.Seats) + " seats, population " + res.Total + ".\n\n")
+	if n := skippedNote(skipped); n != "" {
+		b.WriteString("*" + n + "*\n\n")
+	}
 	if err := AllotRows(res).WriteMarkdown(b); err != nil {
 		return err
 	}
@@ -335,4 +345,22 @@ func Wrap(text string, width int) string {
 		n += l
 	}
 	return b.String()
+}
+
+// skippedNote says which parts of the explanation were left out, so that
+// a dash in the margin columns is not read as "cannot happen".
+func skippedNote(skipped []string) string {
+	var parts []string
+	for _, k := range skipped {
+		switch k {
+		case "margins":
+			parts = append(parts, "the gain and lose margins were not computed (a dash in their columns means not computed here)")
+		case "order":
+			parts = append(parts, "the full seat order was not computed")
+		}
+	}
+	if len(parts) == 0 {
+		return ""
+	}
+	return "At this size " + strings.Join(parts, ", and ") + "."
 }

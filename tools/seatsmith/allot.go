@@ -109,9 +109,9 @@ func runAllot(e *env, args []string) int {
 		case "csv":
 			return report.WriteAllotCSV(w, res)
 		case "markdown":
-			return report.WriteAllotMarkdown(w, src.Title, res)
+			return report.WriteAllotMarkdown(w, src.Title, res, plan.skipped)
 		}
-		return report.WriteAllotText(w, src.Title, res, *order)
+		return report.WriteAllotText(w, src.Title, res, *order, plan.skipped)
 	})
 	if err != nil {
 		return fail(e, "allot", err)

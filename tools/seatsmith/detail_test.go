@@ -68,6 +68,14 @@ func TestAllotLargeInput(t *testing.T) {
 	if u := v.Get("units").Items[0]; !u.Get("gain_margin").IsNull() {
 		t.Errorf("margin computed: %s", jsondoc.Marshal(u))
 	}
+	// Text and Markdown say it above the table, so that the dashes in the
+	// margin columns are not read as "cannot happen".
+	for _, format := range []string{"text", "markdown"} {
+		out, _, code := cli(t, b.String(), "allot", "-method", "hamilton", "-seats", "500", "-format", format, "-")
+		if code != 0 || !strings.Contains(out, "margins were not computed") {
+			t.Errorf("%s output (exit %d) does not say the margins were left out: %.300s", format, code, out)
+		}
+	}
 	// Asked for, on a smaller table, margins come back without a note.
 	small := strings.Join(strings.SplitAfter(b.String(), "\n")[:60], "")
 	out, errOut, code = cli(t, small, "allot", "-method", "hamilton", "-seats", "100", "-margins", "-format", "csv", "-")
