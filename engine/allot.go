@@ -64,7 +64,7 @@ func (pr *problem) allot(detail Detail) (*Result, error) {
 			u.Max = -1
 		}
 		u.Excluded = !pr.eligible[i]
-		pr.quota(i, total, u, &dens)
+		pr.quota(i, total, u, &dens, detail != SeatsOnly)
 	}
 	res.Unassigned = pr.h - sum
 	if o.lr != nil {
@@ -129,8 +129,9 @@ func (c *lastText) of(n uint64) string {
 }
 
 // quota fills the standard quota p·H/P of unit i, in integer arithmetic
-// when the total fits in 64 bits.
-func (pr *problem) quota(i int, total u128, u *UnitResult, dens *lastText) {
+// when the total fits in 64 bits; without exact it may leave out the
+// fraction in lowest terms (Num and Den).
+func (pr *problem) quota(i int, total u128, u *UnitResult, dens *lastText, exact bool) {
 	if !pr.eligible[i] {
 		u.Quota = Fraction{Num: "0", Den: "1", Text: "0"}
 		u.MeetsQuota = u.Seats == 0
@@ -152,6 +153,9 @@ func (pr *problem) quota(i int, total u128, u *UnitResult, dens *lastText) {
 	if total.hi == 0 && !forceBig {
 		u.Quota.Text = quotaText(q, rem, total.lo)
 		u.Quota.Approx = ratFloat(num, total.lo)
+		if !exact {
+			return // SeatsOnly: the fraction in lowest terms is not shown
+		}
 		// gcd(num, total) = gcd(num mod total, total).
 		g := gcd64(rem, total.lo)
 		n, _ := num.div64(g)

@@ -108,10 +108,12 @@ const (
 	// WithMargins computes every unit's gain and lose margins.
 	WithMargins
 	// SeatsOnly leaves out the rest of the explanation too: the divisor
-	// range, each unit's priorities, the remainders and their ranks, and
-	// the seats beyond the house size. The result keeps its seats, quotas,
-	// bounds and ties, which is what a comparison of methods shows. It
-	// gives way to WithOrder and WithMargins when combined with them.
+	// range, each unit's priorities, the remainders and their ranks, the
+	// seats beyond the house size, and the quotas' fractions in lowest
+	// terms (Quota.Num and Quota.Den may be empty). The result keeps its
+	// seats, quotas (as text, with lower and upper quota), bounds and
+	// ties, which is what a comparison of methods shows. It gives way to
+	// WithOrder and WithMargins when combined with them.
 	SeatsOnly
 	// Full is every explanation.
 	Full = WithOrder | WithMargins
