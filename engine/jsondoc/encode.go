@@ -35,6 +35,11 @@ func appendValue(b []byte, v *Value, nl, indent string) []byte {
 		return append(b, v.Text...)
 	case String:
 		return AppendString(b, v.Text)
+	case Raw:
+		if v.Text == "" {
+			return append(b, "null"...)
+		}
+		return append(b, v.Text...)
 	case Array:
 		if len(v.Items) == 0 {
 			return append(b, "[]"...)

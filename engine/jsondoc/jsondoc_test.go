@@ -99,3 +99,18 @@ func TestAppendMarshal(t *testing.T) {
 		t.Errorf("reuse: %s (same buffer: %v)", again, &again[0] == &buf[0])
 	}
 }
+
+// TestRawJSON checks that raw JSON text is written as it is, compact or
+// indented, and that an empty one is null.
+func TestRawJSON(t *testing.T) {
+	v := NewObject().Set("a", RawJSON(`[1,{"b":2}]`)).Set("c", RawJSON(""))
+	if got := string(Marshal(v)); got != `{"a":[1,{"b":2}],"c":null}` {
+		t.Errorf("Marshal = %s", got)
+	}
+	if got := string(MarshalIndent(v, " ")); got != "{\n \"a\": [1,{\"b\":2}],\n \"c\": null\n}\n" {
+		t.Errorf("MarshalIndent = %q", got)
+	}
+	if Raw.String() != "raw JSON" {
+		t.Errorf("Raw.String() = %q", Raw.String())
+	}
+}

@@ -112,7 +112,7 @@ func Live(req *jsondoc.Value) (resp *jsondoc.Value) {
 		resp.Set("error", nil)
 	}
 	resp.Set("scenario", doc)
-	resp.Set("output", render.Doc(Output(o)))
+	resp.Set("output", render.JSON(Output(o)))
 	if x := req.Get("timings"); x != nil && x.Kind == jsondoc.Bool && x.Bool {
 		ms := func(d time.Duration) *jsondoc.Value {
 			return jsondoc.Num(strconv.FormatFloat(d.Seconds()*1000, 'f', 3, 64))
@@ -120,7 +120,7 @@ func Live(req *jsondoc.Value) (resp *jsondoc.Value) {
 		resp.Set("timings", jsondoc.NewObject().Set("compute_ms", ms(computed.Sub(started))).Set("layout_ms", ms(time.Since(computed))))
 	}
 	if x := req.Get("editor"); x != nil && x.Kind == jsondoc.Bool && x.Bool {
-		resp.Set("editor", render.Doc(Editor(b, doc, true)))
+		resp.Set("editor", render.JSON(Editor(b, doc, true)))
 	}
 	cl := jsondoc.NewArray()
 	for _, v := range o.Verdicts {

@@ -126,3 +126,28 @@ func TestDocSlabs(t *testing.T) {
 		t.Errorf("text alone: %s", got)
 	}
 }
+
+// TestJSON checks that JSON writes the same text as marshalling Doc, and
+// that FromDoc reads it back.
+func TestJSON(t *testing.T) {
+	n := El("div", "class", "a", "data-x", `<"q">`).Add(
+		Wrap("p", "one & two", "id", "x"),
+		El("ul").Add(Wrap("li", "Sainte-Laguë"), El("li"), Text("\u2028")),
+		El("svg", "viewBox", "0 0 1 1").Add(El("rect", "x", "0")),
+	)
+	raw := JSON(n)
+	if got, want := string(jsondoc.Marshal(raw)), string(jsondoc.Marshal(Doc(n))); got != want {
+		t.Fatalf("JSON wrote\n%s\nwant\n%s", got, want)
+	}
+	back, ok := FromDoc(raw)
+	if !ok || HTML(back) != HTML(n) {
+		t.Errorf("FromDoc(JSON(n)) = %v, %v", back, ok)
+	}
+	if _, ok := FromDoc(jsondoc.RawJSON(`["script",{}]`)); ok {
+		t.Error("FromDoc read a refused tag from raw JSON")
+	}
+	wrapped := string(jsondoc.Marshal(jsondoc.NewObject().Set("output", raw)))
+	if want := `{"output":` + string(jsondoc.Marshal(Doc(n))) + `}`; wrapped != want {
+		t.Errorf("raw JSON inside an object: %s", wrapped)
+	}
+}
