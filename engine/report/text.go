@@ -362,5 +362,6 @@ func skippedNote(skipped []string) string {
 	if len(parts) == 0 {
 		return ""
 	}
-	return "At this size " + strings.Join(parts, ", and ") + "."
+	out := strings.Join(parts, ", and ") + "."
+	return strings.ToUpper(out[:1]) + out[1:]
 }
