@@ -14,7 +14,6 @@ import (
 	"strings"
 	"sync"
 	"testing"
-	"time"
 
 	cdppage "github.com/chromedp/cdproto/page"
 	"github.com/chromedp/chromedp"
@@ -25,8 +24,8 @@ import (
 type wasmGate struct {
 	h        http.Handler
 	mime     string
-	mu       sync.Mutex
-	waiting  int
+	asked    chan struct{} // closed when the page first asks for the engine
+	askOnce  sync.Once
 	released chan struct{}
 	once     sync.Once
 }
@@ -36,9 +35,7 @@ func (g *wasmGate) ServeHTTP(w http.ResponseWriter, r *http.Request) {
 		g.h.ServeHTTP(w, r)
 		return
 	}
-	g.mu.Lock()
-	g.waiting++
-	g.mu.Unlock()
+	g.askOnce.Do(func() { close(g.asked) })
 	select {
 	case <-g.released:
 	case <-r.Context().Done():
@@ -51,12 +48,6 @@ func (g *wasmGate) ServeHTTP(w http.ResponseWriter, r *http.Request) {
 }
 
 func (g *wasmGate) release() { g.once.Do(func() { close(g.released) }) }
-
-func (g *wasmGate) held() int {
-	g.mu.Lock()
-	defer g.mu.Unlock()
-	return g.waiting
-}
 
 // typedWriter overrides the Content-Type the file server chooses.
 type typedWriter struct {
@@ -109,7 +100,7 @@ func TestBrowserLoading(t *testing.T) {
 		{"another type falls back to a buffer", "application/octet-stream", "streaming,streaming failed,buffer"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
-			gate := &wasmGate{h: h, mime: tc.mime, released: make(chan struct{})}
+			gate := &wasmGate{h: h, mime: tc.mime, asked: make(chan struct{}), released: make(chan struct{})}
 			srv := httptest.NewServer(gate)
 			defer srv.Close()
 			defer gate.release()
@@ -119,10 +110,10 @@ func TestBrowserLoading(t *testing.T) {
 				t.Fatal(err)
 			}
 			tb.do(chromedp.Navigate(srv.URL + "/calculator.html"))
-			for start := time.Now(); gate.held() == 0; time.Sleep(10 * time.Millisecond) {
-				if time.Since(start) > 20*time.Second {
-					t.Fatal("the page has not asked for the engine")
-				}
+			select {
+			case <-gate.asked:
+			case <-tb.ctx.Done():
+				t.Fatal("the page never asked for the engine")
 			}
 			// The engine is still on its way: the page shows the numbers
 			// computed when it was built.
