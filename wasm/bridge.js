@@ -93,8 +93,14 @@ function checkTree(t) {
 // patch makes the DOM node el what build(t) would make, changing only what
 // differs, and returns the node now in el's place. Keeping the nodes that
 // stay the same keeps the browser from styling and laying out the whole
-// result again after every edit.
-function patch(el, t, inSvg) {
+// result again after every edit. When old is the tree el was made from, the
+// two trees are compared in JavaScript and the DOM is touched only where
+// they differ, never read, which makes an edit that changes a few numbers
+// in a result of thousands of nodes cheap; where the shapes differ, or
+// without old, the DOM itself is compared.
+function patch(el, t, inSvg, old) {
+  if (old !== undefined && old === t) return el;
+  const known = Array.isArray(old) && Array.isArray(t) && old[0] === t[0];
   if (typeof t === 'string') {
     if (el.nodeType === Node.TEXT_NODE) {
       if (el.data !== t) el.data = t;
@@ -106,63 +112,39 @@ function patch(el, t, inSvg) {
   }
   const svg = inSvg || t[0] === 'svg';
   const ns = svg ? SVG_NS : 'http://www.w3.org/1999/xhtml';
-  if (el.nodeType !== Node.ELEMENT_NODE || el.localName !== t[0] || el.namespaceURI !== ns) {
+  if (!known && (el.nodeType !== Node.ELEMENT_NODE || el.localName !== t[0] || el.namespaceURI !== ns)) {
     const n = build(t, inSvg);
     el.replaceWith(n);
     return n;
   }
   const attrs = t[1] || {};
-  let n = 0;
-  for (const k of Object.keys(attrs)) {
-    if (!canSet(k)) continue;
-    n++;
-    const v = String(attrs[k]);
-    if (el.getAttribute(k) !== v) el.setAttribute(k, v);
-  }
-  if (el.attributes.length !== n) {
-    for (const a of [...el.attributes]) {
-      if (!Object.hasOwn(attrs, a.name) || !canSet(a.name)) el.removeAttribute(a.name);
+  if (known) {
+    const before = old[1] || {};
+    for (const k of Object.keys(attrs)) {
+      if (attrs[k] !== before[k] && canSet(k)) el.setAttribute(k, String(attrs[k]));
+    }
+    for (const k of Object.keys(before)) {
+      if (!Object.hasOwn(attrs, k) && canSet(k)) el.removeAttribute(k);
+    }
+  } else {
+    let n = 0;
+    for (const k of Object.keys(attrs)) {
+      if (!canSet(k)) continue;
+      n++;
+      const v = String(attrs[k]);
+      if (el.getAttribute(k) !== v) el.setAttribute(k, v);
+    }
+    if (el.attributes.length !== n) {
+      for (const a of [...el.attributes]) {
+        if (!Object.hasOwn(attrs, a.name) || !canSet(a.name)) el.removeAttribute(a.name);
+      }
     }
   }
   let c = el.firstChild;
   for (let i = 2; i < t.length; i++) {
     if (c) {
       const next = c.nextSibling;
-      patch(c, t[i], svg);
-      c = next;
-    } else el.appendChild(build(t[i], svg));
-  }
-  while (c) {
-    const next = c.nextSibling;
-    c.remove();
-    c = next;
-  }
-  return el;
-}
-
-// patchFrom is patch for an element known to be what build(old) made: it
-// compares the two trees in JavaScript and touches the DOM only where they
-// differ, never reading it, which makes an edit that changes a few numbers
-// in a result of thousands of nodes cheap. Where the trees' shapes differ
-// it falls back to patch.
-function patchFrom(el, old, t, inSvg) {
-  if (old === t) return el;
-  if (typeof t === 'string' || !Array.isArray(old) || old[0] !== t[0]) return patch(el, t, inSvg);
-  const svg = inSvg || t[0] === 'svg';
-  const a = t[1] || {};
-  const b = old[1] || {};
-  for (const k of Object.keys(a)) {
-    if (a[k] !== b[k] && canSet(k)) el.setAttribute(k, String(a[k]));
-  }
-  for (const k of Object.keys(b)) {
-    if (!Object.hasOwn(a, k) && canSet(k)) el.removeAttribute(k);
-  }
-  let c = el.firstChild;
-  for (let i = 2; i < t.length; i++) {
-    if (c) {
-      const next = c.nextSibling;
-      if (i < old.length) patchFrom(c, old[i], t[i], svg);
-      else patch(c, t[i], svg);
+      patch(c, t[i], svg, known && i < old.length ? old[i] : undefined);
       c = next;
     } else el.appendChild(build(t[i], svg));
   }
@@ -393,7 +375,7 @@ class Calculator {
       checkTree(tree);
       // The tree last put in place describes the node still there, unless
       // something else has replaced it since.
-      el = this.outputEl === old && this.outputTree ? patchFrom(old, this.outputTree, tree, false) : patch(old, tree, false);
+      el = patch(old, tree, false, this.outputEl === old ? this.outputTree : undefined);
       this.outputEl = el;
       this.outputTree = tree;
     } else {
