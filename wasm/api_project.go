@@ -139,7 +139,7 @@ func projectResult(arg *jsondoc.Value) (*jsondoc.Value, error) {
 		claims.Append(jsondoc.NewObject().Set("id", jsondoc.Str(c.ID)).Set("holds", jsondoc.Boolean(v.Holds)).Set("found", jsondoc.Str(v.Found)))
 	}
 	return jsondoc.NewObject().Set("document", report.Projection(s)).
-		Set("view", render.Doc(forecast.Output(ls.cfg, s, block))).Set("claims", claims), nil
+		Set("view", render.JSON(forecast.Output(ls.cfg, s, block))).Set("claims", claims), nil
 }
 
 func projectDrop(arg *jsondoc.Value) (*jsondoc.Value, error) {

@@ -83,50 +83,6 @@ func ExampleDoc() {
 	// Output: ["p",{"class":"note"},"Seats: ",["strong",{},"12"]]
 }
 
-// plainDoc builds Doc's form one value at a time, as a reference.
-func plainDoc(n *Node) *jsondoc.Value {
-	if n.Tag == "" {
-		return jsondoc.Str(n.Text)
-	}
-	attrs := jsondoc.NewObject()
-	for _, a := range n.Attrs {
-		attrs.Set(a.Key, jsondoc.Str(a.Val))
-	}
-	v := jsondoc.NewArray(jsondoc.Str(n.Tag), attrs)
-	for _, k := range n.Kids {
-		v.Append(plainDoc(k))
-	}
-	return v
-}
-
-// TestDocSlabs checks that Doc's slab-cut values write the same JSON as
-// values built one by one, and that appending to one of its arrays or
-// objects later does not overwrite a neighbour.
-func TestDocSlabs(t *testing.T) {
-	n := El("div", "class", "a").Add(
-		Wrap("p", "one", "id", "x", "title", "t"),
-		El("ul").Add(Wrap("li", "two"), El("li"), Wrap("li", "three", "data-k", "3")),
-		Text("four"),
-		El("br"),
-	)
-	got, want := jsondoc.Marshal(Doc(n)), jsondoc.Marshal(plainDoc(n))
-	if string(got) != string(want) {
-		t.Fatalf("Doc wrote\n%s\nwant\n%s", got, want)
-	}
-	d := Doc(n)
-	d.Items[3].Append(jsondoc.Str("added"))
-	d.Items[1].Set("extra", jsondoc.Str("y"))
-	if got := string(jsondoc.Marshal(d.Items[4])); got != `"four"` {
-		t.Errorf("an append overwrote the next item: %s", got)
-	}
-	if got := string(jsondoc.Marshal(d.Items[2])); got != string(jsondoc.Marshal(plainDoc(n.Kids[0]))) {
-		t.Errorf("a member set overwrote a neighbour: %s", got)
-	}
-	if got := string(jsondoc.Marshal(Doc(Text("only")))); got != `"only"` {
-		t.Errorf("text alone: %s", got)
-	}
-}
-
 // TestJSON checks that JSON writes the same text as marshalling Doc, and
 // that FromDoc reads it back.
 func TestJSON(t *testing.T) {

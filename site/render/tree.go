@@ -2,66 +2,22 @@ package render
 
 import "seatsmith/engine/jsondoc"
 
-// Doc returns n in the JSON form described in the package documentation.
-// The values are cut from three slabs sized beforehand, so that a tree of
-// thousands of nodes costs a handful of allocations instead of several per
-// node (the browser asks for one after every edit).
+// Doc returns n in the JSON form described in the package documentation,
+// as a tree of values that a caller can inspect. [JSON] writes the same
+// text directly, which is what answers to the browser use.
 func Doc(n *Node) *jsondoc.Value {
-	var s docSlabs
-	s.size(n)
-	s.vals = make([]jsondoc.Value, 0, s.nv)
-	s.items = make([]*jsondoc.Value, 0, s.ni)
-	s.fields = make([]jsondoc.Field, 0, s.nf)
-	return s.doc(n)
-}
-
-// docSlabs holds the values, array items and object members of one Doc.
-type docSlabs struct {
-	nv, ni, nf int
-	vals       []jsondoc.Value
-	items      []*jsondoc.Value
-	fields     []jsondoc.Field
-}
-
-// size counts what the tree n needs.
-func (s *docSlabs) size(n *Node) {
 	if n.Tag == "" {
-		s.nv++
-		return
+		return jsondoc.Str(n.Text)
 	}
-	s.nv += 3 + len(n.Attrs) // the array, its tag, its attributes and their values
-	s.ni += 2 + len(n.Kids)
-	s.nf += len(n.Attrs)
-	for _, k := range n.Kids {
-		s.size(k)
-	}
-}
-
-func (s *docSlabs) value(v jsondoc.Value) *jsondoc.Value {
-	s.vals = append(s.vals, v)
-	return &s.vals[len(s.vals)-1]
-}
-
-func (s *docSlabs) doc(n *Node) *jsondoc.Value {
-	if n.Tag == "" {
-		return s.value(jsondoc.Value{Kind: jsondoc.String, Text: n.Text})
-	}
-	f0 := len(s.fields)
+	attrs := jsondoc.NewObject()
 	for _, a := range n.Attrs {
-		s.fields = append(s.fields, jsondoc.Field{Key: a.Key, Value: s.value(jsondoc.Value{Kind: jsondoc.String, Text: a.Val})})
+		attrs.Set(a.Key, jsondoc.Str(a.Val))
 	}
-	attrs := s.value(jsondoc.Value{Kind: jsondoc.Object, Fields: s.fields[f0:len(s.fields):len(s.fields)]})
-	i0 := len(s.items)
-	s.items = append(s.items, s.value(jsondoc.Value{Kind: jsondoc.String, Text: n.Tag}), attrs)
-	// Reserve the children's places first: their own items follow.
-	for range n.Kids {
-		s.items = append(s.items, nil)
+	v := jsondoc.NewArray(jsondoc.Str(n.Tag), attrs)
+	for _, k := range n.Kids {
+		v.Append(Doc(k))
 	}
-	items := s.items[i0:len(s.items):len(s.items)]
-	for k, kid := range n.Kids {
-		items[2+k] = s.doc(kid)
-	}
-	return s.value(jsondoc.Value{Kind: jsondoc.Array, Items: items})
+	return v
 }
 
 // JSON returns n in the JSON form as one raw JSON value (see
