@@ -295,13 +295,19 @@ class Calculator {
     this.scenario = null;
     this.timer = 0;
     this.marginTimer = 0;
+    // The folded sections the reader opened or closed, by class, kept
+    // through edits, errors included.
+    this.folds = new Map();
   }
 
   call(extra) {
     // The scenario goes as JSON text: one string crosses into the engine
     // far faster than an object it must read member by member.
     const text = this.scenario == null ? null : JSON.stringify(this.scenario);
-    const req = Object.assign({ block_text: this.blockText, id: this.id, mode: this.mode, scenario_text: text }, extra);
+    // The seat order is laid out only while its section is open: for a
+    // large house it is the longest part of the results.
+    const order = this.folds.get('sc-order') === true || !!this.root.querySelector('details.sc-order[open]');
+    const req = Object.assign({ block_text: this.blockText, id: this.id, mode: this.mode, scenario_text: text, order }, extra);
     let r;
     try {
       r = this.api.calculator(req);
@@ -369,7 +375,8 @@ class Calculator {
       return el;
     }
     // Folded sections stay as the reader left them.
-    const folds = [...old.querySelectorAll('details[class]')].map((d) => [d.classList[0], d.open]);
+    const folds = new Map([...old.querySelectorAll('details[class]')].map((d) => [d.classList[0], d.open]));
+    for (const [cls, open] of this.folds) folds.set(cls, open);
     let el;
     if (name === 'output') {
       checkTree(tree);
@@ -434,6 +441,14 @@ class Calculator {
       if (this.linkTimer) this.saveFragment();
     });
     root.addEventListener('submit', (e) => e.preventDefault());
+    // toggle does not bubble, so it is caught on its way down. An opened
+    // seat order that was left out is asked for.
+    root.addEventListener('toggle', (e) => {
+      const d = e.target;
+      if (!d.matches || !d.matches('details[class]')) return;
+      this.folds.set(d.classList[0], d.open);
+      if (d.open && d.matches('details.sc-order') && d.querySelector('[data-role="order-pending"]')) this.refresh(false);
+    }, true);
     root.addEventListener('input', (e) => this.onField(e, false));
     root.addEventListener('change', (e) => this.onField(e, true));
     root.addEventListener('click', (e) => {

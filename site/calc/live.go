@@ -34,6 +34,9 @@ import (
 //	            RunQuick); the answer then has margins_pending true, and
 //	            margins_auto true when they are quick enough to fill in
 //	            without being asked
+//	order       false to leave out the seat order (see Options.NoOrder)
+//	            unless export is asked for; the answer then has
+//	            order_pending true when a full calculator would show it
 //
 // The answer is an object:
 //
@@ -44,6 +47,8 @@ import (
 //	output      the results as a render tree (package render's JSON form)
 //	editor      the editor as a render tree, when asked for
 //	claims      [{id, holds, found}]
+//	margins_pending, margins_auto, order_pending
+//	            what was left out, as above
 //	load_error  {message, line, field} when load could not be read
 //	csv, json   the exports, when asked for and the scenario is valid
 //	timings     {compute_ms, layout_ms} when asked for: the milliseconds
@@ -95,15 +100,22 @@ func Live(req *jsondoc.Value) (resp *jsondoc.Value) {
 		}
 	}
 	doc = stringNumbers(doc)
-	var o *Outcome
-	started := time.Now()
+	var opt Options
 	if x := req.Get("margins"); x != nil && x.Kind == jsondoc.Bool && !x.Bool {
-		o = RunQuick(b, doc)
-	} else {
-		o = Run(b, doc)
+		opt.QuickMargins = true
 	}
+	export := false
+	if x := req.Get("export"); x != nil && x.Kind == jsondoc.Bool && x.Bool {
+		export = true
+	}
+	if x := req.Get("order"); x != nil && x.Kind == jsondoc.Bool && !x.Bool && !export {
+		opt.NoOrder = true
+	}
+	started := time.Now()
+	o := RunWith(b, doc, opt)
 	computed := time.Now()
 	resp.Set("margins_pending", jsondoc.Boolean(o.MarginsPending))
+	resp.Set("order_pending", jsondoc.Boolean(o.OrderPending))
 	resp.Set("margins_auto", jsondoc.Boolean(o.MarginsAuto()))
 	resp.Set("state", jsondoc.Str(o.State()))
 	if o.Problem != nil {
@@ -127,7 +139,7 @@ func Live(req *jsondoc.Value) (resp *jsondoc.Value) {
 		cl.Append(jsondoc.NewObject().Set("id", jsondoc.Str(v.Claim.ID)).Set("holds", jsondoc.Boolean(v.Holds)).Set("found", jsondoc.Str(v.Found)))
 	}
 	resp.Set("claims", cl)
-	if x := req.Get("export"); x != nil && x.Kind == jsondoc.Bool && x.Bool && o.Problem == nil && !o.MarginsPending {
+	if export && o.Problem == nil && !o.MarginsPending {
 		csv, js := Export(o)
 		resp.Set("csv", jsondoc.Str(csv)).Set("json", jsondoc.Str(js))
 	}

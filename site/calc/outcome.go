@@ -38,6 +38,10 @@ type Outcome struct {
 	// MarginsPending is set when the margins were left out to answer
 	// quickly (see [RunQuick]); the result has no Gain and Lose.
 	MarginsPending bool
+	// OrderPending is set when a full calculator's seat order was left
+	// out (see [Options]); the result has no Order, and the layout shows
+	// the order's folded section with a note in place of its table.
+	OrderPending bool
 
 	// The findings of a study block, by its mode; Result and Comparison
 	// are nil for these blocks.
@@ -67,20 +71,37 @@ func (o *Outcome) MarginsAuto() bool {
 
 // Run apportions doc (the block's own scenario when doc is nil) with every
 // explanation, compares the block's methods and checks its claims.
-func Run(b *Block, doc *jsondoc.Value) *Outcome { return run(b, doc, true) }
+func Run(b *Block, doc *jsondoc.Value) *Outcome { return RunWith(b, doc, Options{}) }
 
 // RunQuick is Run without the margins when they are costly: for
 // largest-remainder methods and with a threshold, where every margin comes
 // from a search of exact apportionments. The browser shows such a result
 // at once while the reader types and asks for the margins when they pause.
-func RunQuick(b *Block, doc *jsondoc.Value) *Outcome { return run(b, doc, false) }
+func RunQuick(b *Block, doc *jsondoc.Value) *Outcome {
+	return RunWith(b, doc, Options{QuickMargins: true})
+}
+
+// Options say what a run may leave out to answer a reader's edit quickly.
+// The zero Options leave out nothing.
+type Options struct {
+	// QuickMargins leaves out the margins where they are costly, as
+	// RunQuick does.
+	QuickMargins bool
+	// NoOrder leaves out the seat order of divisor methods, which only a
+	// full calculator shows, in a section folded away until the reader
+	// opens it, and which the JSON export holds.
+	NoOrder bool
+}
+
+// RunWith is Run leaving out what opt says.
+func RunWith(b *Block, doc *jsondoc.Value, opt Options) *Outcome { return run(b, doc, opt) }
 
 // costlyMargins reports whether s's margins need a search.
 func costlyMargins(s *engine.Scenario) bool {
 	return !s.Method.IsDivisor() || !s.Threshold.IsZero()
 }
 
-func run(b *Block, doc *jsondoc.Value, margins bool) *Outcome {
+func run(b *Block, doc *jsondoc.Value, opt Options) *Outcome {
 	if doc == nil {
 		doc = b.Doc
 	}
@@ -115,8 +136,12 @@ func run(b *Block, doc *jsondoc.Value, margins bool) *Outcome {
 		return o
 	}
 	detail := engine.Full
-	if !margins && costlyMargins(&src.Scenario) {
-		detail = engine.WithOrder
+	if opt.NoOrder {
+		detail &^= engine.WithOrder
+		o.OrderPending = b.Mode == Full && src.Scenario.Method.IsDivisor()
+	}
+	if opt.QuickMargins && costlyMargins(&src.Scenario) {
+		detail &^= engine.WithMargins
 		o.MarginsPending = true
 	}
 	res, err := engine.Allot(&src.Scenario, detail)

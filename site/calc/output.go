@@ -294,7 +294,7 @@ func explanation(o *Outcome) *Node {
 			}
 			sec.Add(Wrap("p", "If the house grew, the next seats would go in this order:"), ul)
 		}
-		if o.Block.Mode == Full && len(r.Order) > 0 {
+		if o.Block.Mode == Full && orderLen(r) > 0 {
 			sec.Add(orderTable(o))
 		}
 	} else if r.Quota != nil {
@@ -347,10 +347,27 @@ func signpostText(m engine.Method) string {
 	return ""
 }
 
+// orderLen is the number of seats in r's seat order, whether or not the
+// order was computed: every seat held beyond the unit's minimum.
+func orderLen(r *engine.Result) int {
+	n := 0
+	for i := range r.Units {
+		if u := &r.Units[i]; !u.Excluded {
+			n += u.Seats - u.Min
+		}
+	}
+	return n
+}
+
 func orderTable(o *Outcome) *Node {
 	r := o.Result
 	d := El("details", "class", "sc-order")
-	d.Add(Wrap("summary", "Seat order ("+plural(len(r.Order), "seat")+" beyond the minimums)"))
+	d.Add(Wrap("summary", "Seat order ("+plural(orderLen(r), "seat")+" beyond the minimums)"))
+	if o.OrderPending {
+		// Laid out when the reader opens the section (the bridge asks
+		// for it then): a long order is most of the work of an edit.
+		return d.Add(Wrap("p", "Listing the seats in order…", "class", "sc-hint", "data-role", "order-pending"))
+	}
 	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Seat order")
 	t := El("table")
 	t.Add(El("thead").Add(El("tr").Add(Wrap("th", "Seat", "scope", "col"), Wrap("th", "Unit", "scope", "col"), Wrap("th", "Its seat", "scope", "col"), Wrap("th", "Priority", "scope", "col"))))

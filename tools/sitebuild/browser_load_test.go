@@ -139,6 +139,27 @@ func TestBrowserLoading(t *testing.T) {
 		})
 	}
 
+	t.Run("the seat order is laid out when opened", func(t *testing.T) {
+		srv := httptest.NewServer(h)
+		defer srv.Close()
+		tb := newTab(t, bctx)
+		tb.do(chromedp.Navigate(srv.URL + "/calculator.html"))
+		tb.waitFor("live", allLive)
+		const order = `#workbench details.sc-order`
+		if !eval[bool](tb, `!!document.querySelector('`+order+` [data-role="order-pending"]') && !document.querySelector('`+order+` tbody')`) {
+			t.Fatal("the folded seat order is laid out while closed")
+		}
+		tb.do(chromedp.Click(chromedp.CSS(order + ` summary`)))
+		tb.waitFor("the order's rows", `document.querySelectorAll('`+order+` tbody tr').length > 0`)
+		got := eval[[]int](tb, `[document.querySelectorAll('`+order+` tbody tr').length,
+			+document.querySelector('`+order+` summary').textContent.match(/\((\d+) seat/)[1],
+			document.querySelectorAll('`+order+` [data-role="order-pending"]').length]`)
+		if len(got) != 3 || got[0] != got[1] || got[2] != 0 {
+			t.Errorf("opened seat order: rows, count in its summary, pending notes = %v", got)
+		}
+		tb.checkClean(srv.URL + "/")
+	})
+
 	t.Run("patched results are built results", func(t *testing.T) {
 		srv := httptest.NewServer(h)
 		defer srv.Close()
