@@ -20,10 +20,46 @@ type Attr struct {
 //
 //go:noinline
 func El(tag string, kv ...string) *Node {
-	n := &Node{Tag: tag}
-	if len(kv) > 0 {
-		n.Attrs = make([]Attr, 0, (len(kv)+1)/2)
+	n := newElement(len(kv))
+	n.Tag = tag
+	setPairs(n, kv)
+	return n
+}
+
+// newElement returns an empty element with room for the attributes of kv
+// of length k. A few attributes are allocated with the node, in one piece:
+// a page's answer to an edit lays out thousands of elements.
+func newElement(k int) *Node {
+	switch (k + 1) / 2 {
+	case 0:
+		return &Node{}
+	case 1:
+		x := &struct {
+			n Node
+			a [1]Attr
+		}{}
+		x.n.Attrs = x.a[:0:1]
+		return &x.n
+	case 2:
+		x := &struct {
+			n Node
+			a [2]Attr
+		}{}
+		x.n.Attrs = x.a[:0:2]
+		return &x.n
+	case 3:
+		x := &struct {
+			n Node
+			a [3]Attr
+		}{}
+		x.n.Attrs = x.a[:0:3]
+		return &x.n
 	}
+	return &Node{Attrs: make([]Attr, 0, (k+1)/2)}
+}
+
+// setPairs appends the attributes given as alternating keys and values.
+func setPairs(n *Node, kv []string) {
 	for i := 0; i < len(kv); i += 2 {
 		v := ""
 		if i+1 < len(kv) {
@@ -31,7 +67,6 @@ func El(tag string, kv ...string) *Node {
 		}
 		n.Attrs = append(n.Attrs, Attr{kv[i], v})
 	}
-	return n
 }
 
 // Text returns a text node.
@@ -93,7 +128,42 @@ func (n *Node) Attr(key string) (string, bool) {
 // Wrap returns an element holding the text s.
 //
 //go:noinline
-func Wrap(tag, s string, kv ...string) *Node { return El(tag, kv...).AddText(s) }
+func Wrap(tag, s string, kv ...string) *Node {
+	// The element, its text, the list of its one child and a few
+	// attributes in one piece.
+	var n *Node
+	switch (len(kv) + 1) / 2 {
+	case 0:
+		x := &struct {
+			n, text Node
+			kids    [1]*Node
+		}{}
+		x.n.Kids, x.kids[0] = x.kids[:1:1], &x.text
+		n = &x.n
+	case 1:
+		x := &struct {
+			n, text Node
+			kids    [1]*Node
+			a       [1]Attr
+		}{}
+		x.n.Kids, x.kids[0], x.n.Attrs = x.kids[:1:1], &x.text, x.a[:0:1]
+		n = &x.n
+	case 2:
+		x := &struct {
+			n, text Node
+			kids    [1]*Node
+			a       [2]Attr
+		}{}
+		x.n.Kids, x.kids[0], x.n.Attrs = x.kids[:1:1], &x.text, x.a[:0:2]
+		n = &x.n
+	default:
+		return El(tag, kv...).AddText(s)
+	}
+	n.Tag = tag
+	n.Kids[0].Text = s
+	setPairs(n, kv)
+	return n
+}
 
 // Walk calls f for n and every node below it, depth first.
 func (n *Node) Walk(f func(*Node)) {

@@ -1,6 +1,10 @@
 package render
 
-import "seatsmith/engine/jsondoc"
+import (
+	"sync"
+
+	"seatsmith/engine/jsondoc"
+)
 
 // Doc returns n in the JSON form described in the package documentation,
 // as a tree of values that a caller can inspect. [JSON] writes the same
@@ -24,7 +28,24 @@ func Doc(n *Node) *jsondoc.Value {
 // jsondoc.RawJSON), written directly from the tree: the same text as
 // jsondoc.Marshal(Doc(n)) at a fraction of the cost, for the answers the
 // browser asks for after every edit.
-func JSON(n *Node) *jsondoc.Value { return jsondoc.RawJSON(string(AppendJSON(nil, n))) }
+func JSON(n *Node) *jsondoc.Value {
+	bp := jsonBuffers.Get().(*[]byte)
+	b := AppendJSON((*bp)[:0], n)
+	v := jsondoc.RawJSON(string(b))
+	if cap(b) <= maxKeptJSON {
+		*bp = b
+		jsonBuffers.Put(bp)
+	}
+	return v
+}
+
+// jsonBuffers keeps the buffers JSON writes into: the answer to an edit
+// would otherwise grow a new one from nothing each time, several times
+// over the answer's length.
+var jsonBuffers = sync.Pool{New: func() any { return new([]byte) }}
+
+// maxKeptJSON is the largest buffer JSON keeps for reuse.
+const maxKeptJSON = 1 << 20
 
 // AppendJSON appends n in the JSON form to b.
 func AppendJSON(b []byte, n *Node) []byte {
