@@ -9,7 +9,8 @@ import (
 // chooses the costlier parts of the explanation: the seat order and the
 // margins. Allot returns an *[Error] for a scenario that is invalid or
 // cannot be apportioned (bounds that cannot be met, too few seats for
-// Adams, Dean or Huntington–Hill).
+// Adams, Dean or Huntington–Hill). [Prepare] splits it in two steps, for
+// callers that drop the scenario's units before apportioning.
 func Allot(s *Scenario, detail Detail) (*Result, error) {
 	pr, err := prepare(s)
 	if err != nil {
