@@ -95,13 +95,18 @@ func runAllot(e *env, args []string) int {
 	for _, n := range plan.notes {
 		io.WriteString(e.stderr, "seatsmith allot: "+n+"\n")
 	}
-	res, err := engine.Allot(&src.Scenario, plan.detail)
+	prep, err := engine.Prepare(&src.Scenario)
 	if err != nil {
 		return fail(e, "allot", src.Locate(err))
 	}
-	// The scenario's copy of the units is no longer needed; the result
-	// holds what the output shows.
+	// The scenario's copy of the units is no longer needed: the prepared
+	// problem holds what the procedure needs and the result will hold what
+	// the output shows, so the units need not take room beside them.
 	src.Scenario.Units = nil
+	res, err := prep.Allot(plan.detail)
+	if err != nil {
+		return fail(e, "allot", src.Locate(err))
+	}
 	err = of.stream(e, func(w *bufio.Writer) error {
 		switch of.format {
 		case "json":
