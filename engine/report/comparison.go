@@ -23,11 +23,8 @@ func Compare(s engine.Scenario, ms []engine.Method, detail engine.Detail) *Compa
 	if detail == 0 {
 		detail = engine.SeatsOnly
 	}
-	c := &Comparison{Methods: ms, Results: make([]*engine.Result, len(ms)), Errors: make([]error, len(ms))}
-	for i, m := range ms {
-		s.Method = m
-		c.Results[i], c.Errors[i] = engine.Allot(&s, detail)
-	}
+	c := &Comparison{Methods: ms}
+	c.Results, c.Errors = engine.AllotMethods(&s, ms, detail)
 	return c
 }
 
