@@ -109,6 +109,11 @@ func (pr *problem) gainClosed(i, a int, held topTwo) (uint64, bool) {
 		return 0, false // the weakest seat held by another is a first seat: never beaten outright
 	}
 	s := pr.m.signpost(a)
+	if s.n != 0 {
+		if q, ok := scaledFloor(w.p, s, sw); ok {
+			return pr.marginUp64(i, q+1)
+		}
+	}
 	var need *big.Int // the least population that wins the seat
 	if s.n == 0 {
 		need = bigU(pr.pops[i] + 1)
@@ -129,10 +134,18 @@ func (pr *problem) gainClosed(i, a int, held topTwo) (uint64, bool) {
 }
 
 func (pr *problem) marginUp(i int, need *big.Int) (uint64, bool) {
-	if !need.IsUint64() || need.Uint64() > MaxCoefficient {
+	if !need.IsUint64() {
 		return 0, false
 	}
-	p := need.Uint64()
+	return pr.marginUp64(i, need.Uint64())
+}
+
+// marginUp64 is the gain margin of unit i from the least population p that
+// wins it the seat.
+func (pr *problem) marginUp64(i int, p uint64) (uint64, bool) {
+	if p > MaxCoefficient {
+		return 0, false
+	}
 	if p <= pr.pops[i] {
 		return 1, true
 	}
@@ -165,6 +178,9 @@ func (pr *problem) loseClosed(i, a int, open topTwo) (uint64, bool) {
 	}
 	// The greatest population at which the a-th seat is no longer held
 	// outright: p''/s(a-1) <= best, a tie at equality.
+	if k, ok := scaledFloor(best.p, t, sb); ok {
+		return pr.loseFrom(i, k)
+	}
 	var keep *big.Int
 	if t.sq {
 		x := new(big.Int).Mul(bigU(best.p), bigU(best.p))
@@ -177,13 +193,53 @@ func (pr *problem) loseClosed(i, a int, open topTwo) (uint64, bool) {
 		den := new(big.Int).Mul(bigU(t.d), bigU(sb.n))
 		keep = num.Quo(num, den)
 	}
-	if !keep.IsUint64() || keep.Uint64() >= pr.pops[i] {
+	if !keep.IsUint64() {
 		return 1, true
 	}
-	if keep.Sign() == 0 && pr.withPop(i, 0) == nil {
+	return pr.loseFrom(i, keep.Uint64())
+}
+
+// loseFrom is the lose margin of unit i from the greatest population keep
+// at which it no longer holds its last seat outright.
+func (pr *problem) loseFrom(i int, keep uint64) (uint64, bool) {
+	if keep >= pr.pops[i] {
+		return 1, true
+	}
+	if keep == 0 && pr.withPop(i, 0) == nil {
 		return 0, false // emptied, the unit leaves seats no one can take
 	}
-	return pr.pops[i] - keep.Uint64(), true
+	return pr.pops[i] - keep, true
+}
+
+// scaledFloor returns floor(p·s/w) for signposts s and w (both nonzero),
+// the population at which a quotient over s equals p over w, in 128-bit
+// arithmetic; false when that does not fit, for the math/big path.
+func scaledFloor(p uint64, s, w signpost) (uint64, bool) {
+	if forceBig {
+		return 0, false
+	}
+	if s.sq {
+		// floor(sqrt(floor(p²·s.n/w.n))) = floor(sqrt(p²·s.n/w.n)).
+		x, ok := mul128(p, p).mulSmall(s.n)
+		if !ok {
+			return 0, false
+		}
+		q, _ := x.div64(w.n)
+		if q.hi >= 1<<62 {
+			return 0, false
+		}
+		return isqrt128(q), true
+	}
+	num, ok := mul128(p, w.d).mulSmall(s.n)
+	dhi, den := mulWide(s.d, w.n)
+	if !ok || dhi != 0 {
+		return 0, false
+	}
+	q, _ := num.div64(den)
+	if q.hi != 0 {
+		return 0, false
+	}
+	return q.lo, true
 }
 
 // withPop returns a copy of the problem with unit i's population set to p,
