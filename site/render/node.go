@@ -27,27 +27,13 @@ func El(tag string, kv ...string) *Node {
 }
 
 // newElement returns an empty element with room for the attributes of kv
-// of length k. A few attributes are allocated with the node, in one piece:
-// a page's answer to an edit lays out thousands of elements.
+// of length k. Up to three attributes are allocated with the node, in one
+// piece: a page's answer to an edit lays out thousands of elements.
 func newElement(k int) *Node {
-	switch (k + 1) / 2 {
-	case 0:
+	switch {
+	case k == 0:
 		return &Node{}
-	case 1:
-		x := &struct {
-			n Node
-			a [1]Attr
-		}{}
-		x.n.Attrs = x.a[:0:1]
-		return &x.n
-	case 2:
-		x := &struct {
-			n Node
-			a [2]Attr
-		}{}
-		x.n.Attrs = x.a[:0:2]
-		return &x.n
-	case 3:
+	case k <= 6:
 		x := &struct {
 			n Node
 			a [3]Attr
@@ -129,40 +115,21 @@ func (n *Node) Attr(key string) (string, bool) {
 //
 //go:noinline
 func Wrap(tag, s string, kv ...string) *Node {
-	// The element, its text, the list of its one child and a few
-	// attributes in one piece.
-	var n *Node
-	switch (len(kv) + 1) / 2 {
-	case 0:
-		x := &struct {
-			n, text Node
-			kids    [1]*Node
-		}{}
-		x.n.Kids, x.kids[0] = x.kids[:1:1], &x.text
-		n = &x.n
-	case 1:
-		x := &struct {
-			n, text Node
-			kids    [1]*Node
-			a       [1]Attr
-		}{}
-		x.n.Kids, x.kids[0], x.n.Attrs = x.kids[:1:1], &x.text, x.a[:0:1]
-		n = &x.n
-	case 2:
-		x := &struct {
-			n, text Node
-			kids    [1]*Node
-			a       [2]Attr
-		}{}
-		x.n.Kids, x.kids[0], x.n.Attrs = x.kids[:1:1], &x.text, x.a[:0:2]
-		n = &x.n
-	default:
+	if len(kv) > 4 {
 		return El(tag, kv...).AddText(s)
 	}
-	n.Tag = tag
-	n.Kids[0].Text = s
-	setPairs(n, kv)
-	return n
+	// The element, its text, the list of its one child and up to two
+	// attributes in one piece.
+	x := &struct {
+		n, text Node
+		kids    [1]*Node
+		a       [2]Attr
+	}{}
+	x.n.Tag, x.text.Text = tag, s
+	x.kids[0] = &x.text
+	x.n.Kids, x.n.Attrs = x.kids[:1:1], x.a[:0:2]
+	setPairs(&x.n, kv)
+	return &x.n
 }
 
 // Walk calls f for n and every node below it, depth first.
