@@ -3,6 +3,8 @@ package engine
 import (
 	"math"
 	"math/big"
+	"strconv"
+	"strings"
 )
 
 // Allot apportions the scenario's seats and explains the result. detail
@@ -48,26 +50,37 @@ func (pr *problem) allot(detail Detail) (*Result, error) {
 	if err != nil {
 		return nil, err
 	}
+	res := &Result{Method: pr.m, Seats: pr.h, Tie: pr.tie}
+	sum := 0
+	for _, a := range o.seats {
+		sum += a
+	}
+	res.Unassigned = pr.h - sum
+	if o.div != nil && detail != SeatsOnly {
+		// The divisor range, the seat order and the next seats first: what
+		// they use of their own (a copy of the seats and a heap over the
+		// units, the awards in order) is garbage by the time the units'
+		// results take their room, the largest part of the result.
+		pr.explainDivisorRange(o, res, detail)
+	}
 	n := pr.n()
-	res := &Result{Method: pr.m, Seats: pr.h, Units: make([]UnitResult, n), Tie: pr.tie}
+	res.Units = make([]UnitResult, n)
 	total := pr.eligibleTotal()
 	res.Total = scaledText(total, pr.places)
-	sum := 0
 	var dens lastText
+	sl := new(slabs)
 	for i := range res.Units {
 		u := &res.Units[i]
 		u.Name = pr.names[i]
 		u.Population = Decimal{Coef: pr.pops[i], Places: uint8(pr.places)}.trim()
 		u.Seats = o.seats[i]
-		sum += u.Seats
 		u.Min, u.Max = pr.min[i], pr.max[i]
 		if u.Max == noCap {
 			u.Max = -1
 		}
 		u.Excluded = !pr.eligible[i]
-		pr.quota(i, total, u, &dens, detail != SeatsOnly)
+		pr.quota(i, total, u, &dens, &sl.text, detail != SeatsOnly)
 	}
-	res.Unassigned = pr.h - sum
 	if o.lr != nil {
 		res.Ties = append(res.Ties, o.lr.early...)
 	}
@@ -85,9 +98,9 @@ func (pr *problem) allot(detail Detail) (*Result, error) {
 			pr.boundsHeld(o.lr, res)
 		}
 	case o.div != nil:
-		pr.explainDivisor(o, res, detail)
+		pr.explainDivisor(o, res, sl)
 	default:
-		pr.explainRemainder(o.lr, res)
+		pr.explainRemainder(o.lr, res, sl)
 	}
 	if detail&WithMargins != 0 {
 		pr.margins(o, res)
@@ -122,17 +135,89 @@ type lastText struct {
 	text string
 }
 
-func (c *lastText) of(n uint64) string {
+func (c *lastText) of(n uint64, t *textSlab) string {
 	if c.text == "" || c.n != n {
-		c.n, c.text = n, strconvU(n)
+		c.n, c.text = n, t.uint(n)
 	}
 	return c.text
 }
 
+// slabs hold the many small parts of a result in shared blocks: a million
+// units' quotas and priority values are a few hundred blocks, not millions
+// of small objects each rounded up to its size class.
+type slabs struct {
+	text textSlab
+	val  valueSlab
+}
+
+// A textSlab writes short texts end to end into shared blocks, each text
+// a substring of its block. The nil *textSlab gives every text a string of
+// its own.
+type textSlab struct {
+	b    strings.Builder
+	size int // of the current block
+}
+
+// Blocks grow from textSlabMin to textSlabMax bytes; a text longer than
+// textSlabLong gets its own string.
+const (
+	textSlabMin  = 256
+	textSlabMax  = 64 << 10
+	textSlabLong = 64
+)
+
+// add returns p as a string.
+func (t *textSlab) add(p []byte) string {
+	if t == nil || len(p) > textSlabLong {
+		return string(p)
+	}
+	if t.b.Cap()-t.b.Len() < len(p) {
+		t.size = min(max(2*t.size, textSlabMin), textSlabMax)
+		// A new block: the strings already returned keep the old one.
+		t.b = strings.Builder{}
+		t.b.Grow(t.size)
+	}
+	k := t.b.Len()
+	t.b.Write(p)
+	// The block never moves once grown, and bytes written are never
+	// changed, so the substring stays valid as the block fills.
+	return t.b.String()[k:]
+}
+
+// uint writes n in decimal.
+func (t *textSlab) uint(n uint64) string {
+	var buf [20]byte
+	return t.add(strconv.AppendUint(buf[:0], n, 10))
+}
+
+// A valueSlab hands out Values from shared blocks of valueSlabMin up to
+// valueSlabMax Values.
+type valueSlab struct {
+	block []Value
+	used  int
+}
+
+const (
+	valueSlabMin = 8
+	valueSlabMax = 2048
+)
+
+// put stores v and returns a pointer to its copy.
+func (s *valueSlab) put(v Value) *Value {
+	if s.used == len(s.block) {
+		s.block = make([]Value, min(max(2*len(s.block), valueSlabMin), valueSlabMax))
+		s.used = 0
+	}
+	p := &s.block[s.used]
+	s.used++
+	*p = v
+	return p
+}
+
 // quota fills the standard quota p·H/P of unit i, in integer arithmetic
 // when the total fits in 64 bits; without exact it may leave out the
-// fraction in lowest terms (Num and Den).
-func (pr *problem) quota(i int, total u128, u *UnitResult, dens *lastText, exact bool) {
+// fraction in lowest terms (Num and Den). Short texts are written into t.
+func (pr *problem) quota(i int, total u128, u *UnitResult, dens *lastText, t *textSlab, exact bool) {
 	if !pr.eligible[i] {
 		u.Quota = Fraction{Num: "0", Den: "1", Text: "0"}
 		u.MeetsQuota = u.Seats == 0
@@ -152,7 +237,7 @@ func (pr *problem) quota(i int, total u128, u *UnitResult, dens *lastText, exact
 	}
 	u.MeetsQuota = u.Seats == u.Lower || u.Seats == u.Upper
 	if total.hi == 0 && !forceBig {
-		u.Quota.Text = quotaText(q, rem, total.lo)
+		u.Quota.Text = quotaTextIn(t, q, rem, total.lo)
 		u.Quota.Approx = ratFloat(num, total.lo)
 		if !exact {
 			return // SeatsOnly: the fraction in lowest terms is not shown
@@ -160,7 +245,12 @@ func (pr *problem) quota(i int, total u128, u *UnitResult, dens *lastText, exact
 		// gcd(num, total) = gcd(num mod total, total).
 		g := gcd64(rem, total.lo)
 		n, _ := num.div64(g)
-		u.Quota.Num, u.Quota.Den = n.text(), dens.of(total.lo/g)
+		if n.hi == 0 {
+			u.Quota.Num = t.uint(n.lo)
+		} else {
+			u.Quota.Num = n.text()
+		}
+		u.Quota.Den = dens.of(total.lo/g, t)
 		return
 	}
 	r := new(big.Rat).SetFrac(num.big(), total.big())
@@ -175,7 +265,10 @@ func (pr *problem) quota(i int, total u128, u *UnitResult, dens *lastText, exact
 
 // quotaText writes q + rem/den with six decimal places, rounded half up, or
 // fewer when that is exact.
-func quotaText(q, rem, den uint64) string {
+func quotaText(q, rem, den uint64) string { return quotaTextIn(nil, q, rem, den) }
+
+// quotaTextIn is quotaText written into t.
+func quotaTextIn(t *textSlab, q, rem, den uint64) string {
 	var digits [6]byte
 	n := 0
 	if rem <= math.MaxUint64/1_000_000 {
@@ -216,45 +309,25 @@ func quotaText(q, rem, den uint64) string {
 			q++
 		}
 	}
-	s := strconvU(q)
-	if n == 0 {
-		return s
+	var buf [32]byte
+	b := strconv.AppendUint(buf[:0], q, 10)
+	if n > 0 {
+		b = append(b, '.')
+		for i := 0; i < n; i++ {
+			b = append(b, '0'+digits[i])
+		}
 	}
-	b := []byte(s + ".")
-	for i := 0; i < n; i++ {
-		b = append(b, '0'+digits[i])
-	}
-	return string(b)
+	return t.add(b)
 }
 
-// explainDivisor adds the divisor range, seat order and priority values.
-func (pr *problem) explainDivisor(o *outcome, res *Result, detail Detail) {
+// explainDivisorRange adds the divisor range, the seat order and the
+// seats beyond the house size; res.Unassigned must be set.
+func (pr *problem) explainDivisorRange(o *outcome, res *Result, detail Detail) {
 	d := o.div
 	res.Divisor = pr.divisorRange(d.full)
 	if o.tie != nil && pr.tie.Kind != TieReport {
 		// The settled result has its own (single-point) range.
 		res.Divisor = pr.divisorRange(o.seats)
-	}
-	low, lowOK, high, highOK := pr.divisorBounds(o.seats)
-	for i := range res.Units {
-		u := &res.Units[i]
-		a := o.seats[i]
-		if !pr.eligible[i] || pr.pops[i] == 0 {
-			continue
-		}
-		if a > pr.min[i] {
-			v := pr.m.value(prio{pr.pops[i], a - 1}, pr.places)
-			u.Last = &v
-		}
-		if a < pr.max[i] {
-			v := pr.m.value(prio{pr.pops[i], a}, pr.places)
-			u.Next = &v
-		}
-		// Held up by the minimum: its min-th seat ranks at or below every
-		// divisor in range. Held down by the cap: its next seat ranks at or
-		// above every divisor in range.
-		u.AtMin = a == pr.min[i] && a > 0 && lowOK && pr.m.cmpPrio(prio{pr.pops[i], a - 1}, low) <= 0
-		u.AtMax = a == pr.max[i] && highOK && pr.m.cmpPrio(prio{pr.pops[i], a}, high) >= 0
 	}
 	first := pr.h - d.free // seats given as minimums
 	if detail&WithOrder != 0 {
@@ -273,8 +346,33 @@ func (pr *problem) explainDivisor(o *outcome, res *Result, detail Detail) {
 		for k, w := range order {
 			res.Order[k] = pr.seatAward(first+k+1, w)
 		}
+		d.order = nil // shown now in res.Order
 	}
 	res.Beyond = pr.beyond(o.seats, pr.h-res.Unassigned, 5)
+}
+
+// explainDivisor adds each unit's priority values and whether a bound
+// holds it.
+func (pr *problem) explainDivisor(o *outcome, res *Result, sl *slabs) {
+	low, lowOK, high, highOK := pr.divisorBounds(o.seats)
+	for i := range res.Units {
+		u := &res.Units[i]
+		a := o.seats[i]
+		if !pr.eligible[i] || pr.pops[i] == 0 {
+			continue
+		}
+		if a > pr.min[i] {
+			u.Last = sl.val.put(pr.m.valueIn(&sl.text, prio{pr.pops[i], a - 1}, pr.places))
+		}
+		if a < pr.max[i] {
+			u.Next = sl.val.put(pr.m.valueIn(&sl.text, prio{pr.pops[i], a}, pr.places))
+		}
+		// Held up by the minimum: its min-th seat ranks at or below every
+		// divisor in range. Held down by the cap: its next seat ranks at or
+		// above every divisor in range.
+		u.AtMin = a == pr.min[i] && a > 0 && lowOK && pr.m.cmpPrio(prio{pr.pops[i], a - 1}, low) <= 0
+		u.AtMax = a == pr.max[i] && highOK && pr.m.cmpPrio(prio{pr.pops[i], a}, high) >= 0
+	}
 }
 
 func (pr *problem) seatAward(seat int, w award) SeatAward {
@@ -318,12 +416,13 @@ func (pr *problem) boundsHeld(l *lrOutcome, res *Result) {
 	}
 }
 
-func (pr *problem) explainRemainder(l *lrOutcome, res *Result) {
+func (pr *problem) explainRemainder(l *lrOutcome, res *Result, sl *slabs) {
 	r := l.final
 	if r != nil {
 		r.rankAll() // the explanation shows every remainder's rank
 	}
 	pr.boundsHeld(l, res)
+	l.pinned = nil // shown now in res.Units
 	if r == nil {
 		return
 	}
@@ -331,23 +430,19 @@ func (pr *problem) explainRemainder(l *lrOutcome, res *Result) {
 		q := ratValue(r.quota)
 		res.Quota = &q
 	}
-	rank := make([]int, len(r.units))
+	// In rank order: the k-th of r.ranked has rank k+1.
 	for k, j := range r.ranked {
-		rank[j] = k + 1
-	}
-	for j, u := range r.units {
-		v := pr.remainderValue(r, j)
-		ur := &res.Units[u]
-		ur.Remainder = &v
-		ur.RemainderRank = rank[j]
-		ur.RemainderSeat = rank[j] <= r.extra
+		ur := &res.Units[r.units[j]]
+		ur.Remainder = sl.val.put(pr.remainderValue(r, j, &sl.text))
+		ur.RemainderRank = k + 1
+		ur.RemainderSeat = k+1 <= r.extra
 	}
 }
 
 // remainderValue is r.remValue(pr, j) in integer arithmetic where the
 // denominator fits in 64 bits: a fraction of a seat for Hamilton, people
-// for Droop.
-func (pr *problem) remainderValue(r *lrRound, j int) Value {
+// for Droop. Its text is written into t.
+func (pr *problem) remainderValue(r *lrRound, j int, t *textSlab) Value {
 	den := pow10(pr.places)
 	if pr.m == Hamilton {
 		den = r.total.lo
@@ -358,7 +453,7 @@ func (pr *problem) remainderValue(r *lrRound, j int) Value {
 	if forceBig {
 		return r.remValue(pr, j)
 	}
-	if v, ok := fracValue(r.rem(j), den); ok {
+	if v, ok := fracValueIn(t, r.rem(j), den); ok {
 		return v
 	}
 	return r.remValue(pr, j)

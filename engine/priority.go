@@ -105,11 +105,14 @@ type Value struct {
 	Infinite bool    // the value is p/0: the unit's first seat under Adams, Dean or Huntington–Hill
 }
 
-func (m Method) value(x prio, places int) Value {
+func (m Method) value(x prio, places int) Value { return m.valueIn(nil, x, places) }
+
+// valueIn is value with its text written into t (nil: a string of its own).
+func (m Method) valueIn(t *textSlab, x prio, places int) Value {
 	if m.infinite(x) {
 		return Value{Text: "inf", Infinite: true}
 	}
-	if v, ok := m.valueInt(x, places); ok {
+	if v, ok := m.valueIntIn(t, x, places); ok {
 		return v
 	}
 	if r := m.prioRat(x, places); r != nil {
@@ -124,7 +127,10 @@ func (m Method) value(x prio, places int) Value {
 // text; false when the numbers do not fit, and value falls back to
 // math/big. The priority is p·d/(n·10^places), or for Huntington–Hill
 // p/(10^places·sqrt(n)).
-func (m Method) valueInt(x prio, places int) (Value, bool) {
+func (m Method) valueInt(x prio, places int) (Value, bool) { return m.valueIntIn(nil, x, places) }
+
+// valueIntIn is valueInt with the text written into t.
+func (m Method) valueIntIn(t *textSlab, x prio, places int) (Value, bool) {
 	s := m.signpost(x.a)
 	if x.p == 0 {
 		if s.sq {
@@ -137,7 +143,7 @@ func (m Method) valueInt(x prio, places int) (Value, bool) {
 		return Value{}, false
 	}
 	if !s.sq {
-		return fracValue(mul128(x.p, s.d), den)
+		return fracValueIn(t, mul128(x.p, s.d), den)
 	}
 	// Huntington–Hill: sqrt(n) is irrational (n = a(a+1), a >= 1), so the
 	// value is never a short decimal. With y = 1000p/(10^places·sqrt(n)),
@@ -159,25 +165,28 @@ func (m Method) valueInt(x prio, places int) (Value, bool) {
 		k++
 	}
 	approx := float64(x.p) / float64(pow10(places)) / math.Sqrt(float64(s.n))
-	return Value{Text: pointText(k, ValueDigits), Approx: approx}, true
+	return Value{Text: pointText(t, k, ValueDigits), Approx: approx}, true
 }
 
 // fracValue is ratValue for num/den with a 64-bit denominator den > 0:
 // exact when num/den has at most ValueDigits decimals, otherwise rounded
 // half up to ValueDigits places (as big.Rat.FloatString rounds); false when
 // the scaled quotient does not fit in 64 bits.
-func fracValue(num u128, den uint64) (Value, bool) {
+func fracValue(num u128, den uint64) (Value, bool) { return fracValueIn(nil, num, den) }
+
+// fracValueIn is fracValue with the text written into t.
+func fracValueIn(t *textSlab, num u128, den uint64) (Value, bool) {
 	var q, r uint64
 	for i := 0; i <= ValueDigits; i++ {
-		t, ok := num.mulSmall(pow10(i))
+		x, ok := num.mulSmall(pow10(i))
 		if !ok {
 			return Value{}, false
 		}
-		if q, r, ok = divmod128(t, den); !ok {
+		if q, r, ok = divmod128(x, den); !ok {
 			return Value{}, false
 		}
 		if r == 0 {
-			return Value{Text: pointText(q, i), Approx: ratFloat(num, den), Exact: true}, true
+			return Value{Text: pointText(t, q, i), Approx: ratFloat(num, den), Exact: true}, true
 		}
 	}
 	if r >= den-r {
@@ -186,24 +195,32 @@ func fracValue(num u128, den uint64) (Value, bool) {
 		}
 		q++
 	}
-	return Value{Text: pointText(q, ValueDigits), Approx: ratFloat(num, den)}, true
+	return Value{Text: pointText(t, q, ValueDigits), Approx: ratFloat(num, den)}, true
 }
 
-// pointText writes q/10^places with exactly places decimals.
-func pointText(q uint64, places int) string {
-	var buf [24]byte
-	b := strconv.AppendUint(buf[:0], q, 10)
+// pointText writes q/10^places with exactly places decimals, into t.
+func pointText(t *textSlab, q uint64, places int) string {
+	var buf [32]byte
+	return t.add(appendPoint(buf[:0], q, places))
+}
+
+// appendPoint appends q/10^places with exactly places decimals to b.
+func appendPoint(b []byte, q uint64, places int) []byte {
 	if places == 0 {
-		return string(b)
+		return strconv.AppendUint(b, q, 10)
 	}
-	for len(b) <= places {
-		b = append(b[:0], append([]byte{'0'}, b...)...)
+	var digits [20]byte
+	d := strconv.AppendUint(digits[:0], q, 10)
+	if len(d) > places {
+		b = append(b, d[:len(d)-places]...)
+		b = append(b, '.')
+		return append(b, d[len(d)-places:]...)
 	}
-	n := len(b) - places
-	out := make([]byte, 0, len(b)+1)
-	out = append(out, b[:n]...)
-	out = append(out, '.')
-	return string(append(out, b[n:]...))
+	b = append(b, '0', '.')
+	for k := len(d); k < places; k++ {
+		b = append(b, '0')
+	}
+	return append(b, d...)
 }
 
 // ratValue shows a rational exactly when it has a short decimal expansion,

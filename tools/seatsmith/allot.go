@@ -88,13 +88,13 @@ func runAllot(e *env, args []string) int {
 	if !src.Scenario.Method.Valid() {
 		return fail(e, "allot", usageError("no method: give -method (or \"method\" in a JSON scenario)"))
 	}
-	limitMemory(len(src.Scenario.Units))
 	set := map[string]bool{}
 	fs.Visit(func(f *flag.Flag) { set[f.Name] = true })
 	plan := planDetail(&src.Scenario, of.format, set["margins"], *margins, set["order"], *order)
 	for _, n := range plan.notes {
 		io.WriteString(e.stderr, "seatsmith allot: "+n+"\n")
 	}
+	limitMemory(&src.Scenario, plan.detail)
 	prep, err := engine.Prepare(&src.Scenario)
 	if err != nil {
 		return fail(e, "allot", src.Locate(err))
