@@ -69,6 +69,8 @@ func (pr *problem) allot(detail Detail) (*Result, error) {
 	res.Total = scaledText(total, pr.places)
 	var dens lastText
 	sl := new(slabs)
+	exact := detail != SeatsOnly
+	quotas := pr.quotas.of(pr, total, exact, sl)
 	for i := range res.Units {
 		u := &res.Units[i]
 		u.Name = pr.names[i]
@@ -79,7 +81,18 @@ func (pr *problem) allot(detail Detail) (*Result, error) {
 			u.Max = -1
 		}
 		u.Excluded = !pr.eligible[i]
-		pr.quota(i, total, u, &dens, &sl.text, detail != SeatsOnly)
+		var qp quotaPart
+		if quotas != nil {
+			qp = quotas[i]
+		} else {
+			qp = pr.quota(i, total, &dens, &sl.text, exact)
+		}
+		u.Quota, u.Lower, u.Upper = qp.q, qp.lower, qp.upper
+		if pr.eligible[i] {
+			u.MeetsQuota = u.Seats == u.Lower || u.Seats == u.Upper
+		} else {
+			u.MeetsQuota = u.Seats == 0
+		}
 	}
 	if o.lr != nil {
 		res.Ties = append(res.Ties, o.lr.early...)
@@ -214,14 +227,56 @@ func (s *valueSlab) put(v Value) *Value {
 	return p
 }
 
-// quota fills the standard quota p·H/P of unit i, in integer arithmetic
-// when the total fits in 64 bits; without exact it may leave out the
-// fraction in lowest terms (Num and Den). Short texts are written into t.
-func (pr *problem) quota(i int, total u128, u *UnitResult, dens *lastText, t *textSlab, exact bool) {
+// A quotaPart is what a unit's result shows of its standard quota p·H/P,
+// the same under every method.
+type quotaPart struct {
+	q            Fraction
+	lower, upper int
+}
+
+// A quotaMemo keeps the units' quota parts for a problem apportioned by
+// several methods in turn (AllotMethods), so that they are worked out once.
+// The nil *quotaMemo keeps nothing.
+type quotaMemo struct {
+	parts []quotaPart
+	exact bool // the parts have the fraction in lowest terms
+	// What they are for: a copy of the problem with other populations or
+	// another house size (a margin's probe, say) works its own out.
+	pops     *uint64
+	eligible *bool
+	h        int
+}
+
+// of returns the units' quota parts, worked out on first use (and again
+// when exact is asked for the first time); nil when m is nil or was made
+// for other populations, eligibility or house size.
+func (m *quotaMemo) of(pr *problem, total u128, exact bool, sl *slabs) []quotaPart {
+	if m == nil || pr.n() == 0 {
+		return nil
+	}
+	if m.parts == nil {
+		m.pops, m.eligible, m.h = &pr.pops[0], &pr.eligible[0], pr.h
+	} else if m.pops != &pr.pops[0] || m.eligible != &pr.eligible[0] || m.h != pr.h {
+		return nil
+	}
+	if m.parts == nil || (exact && !m.exact) {
+		var dens lastText
+		m.parts = make([]quotaPart, pr.n())
+		for i := range m.parts {
+			m.parts[i] = pr.quota(i, total, &dens, &sl.text, exact)
+		}
+		m.exact = exact
+	}
+	return m.parts
+}
+
+// quota works out the standard quota p·H/P of unit i, in integer
+// arithmetic when the total fits in 64 bits; without exact it may leave out
+// the fraction in lowest terms (Num and Den). Short texts are written into
+// t.
+func (pr *problem) quota(i int, total u128, dens *lastText, t *textSlab, exact bool) quotaPart {
 	if !pr.eligible[i] {
-		u.Quota = Fraction{Num: "0", Den: "1", Text: "0"}
-		u.MeetsQuota = u.Seats == 0
-		return
+		return quotaPart{q: Fraction{Num: "0", Den: "1", Text: "0"}}
 	}
 	num := mul128(pr.pops[i], uint64(pr.h))
 	var q, rem uint64
@@ -231,36 +286,36 @@ func (pr *problem) quota(i int, total u128, u *UnitResult, dens *lastText, t *te
 		qq, rr := new(big.Int).QuoRem(num.big(), total.big(), new(big.Int))
 		q, rem = qq.Uint64(), uint64(rr.Sign())
 	}
-	u.Lower, u.Upper = int(q), int(q)
+	qp := quotaPart{lower: int(q), upper: int(q)}
 	if rem != 0 {
-		u.Upper++
+		qp.upper++
 	}
-	u.MeetsQuota = u.Seats == u.Lower || u.Seats == u.Upper
 	if total.hi == 0 && !forceBig {
-		u.Quota.Text = quotaTextIn(t, q, rem, total.lo)
-		u.Quota.Approx = ratFloat(num, total.lo)
+		qp.q.Text = quotaTextIn(t, q, rem, total.lo)
+		qp.q.Approx = ratFloat(num, total.lo)
 		if !exact {
-			return // SeatsOnly: the fraction in lowest terms is not shown
+			return qp // SeatsOnly: the fraction in lowest terms is not shown
 		}
 		// gcd(num, total) = gcd(num mod total, total).
 		g := gcd64(rem, total.lo)
 		n, _ := num.div64(g)
 		if n.hi == 0 {
-			u.Quota.Num = t.uint(n.lo)
+			qp.q.Num = t.uint(n.lo)
 		} else {
-			u.Quota.Num = n.text()
+			qp.q.Num = n.text()
 		}
-		u.Quota.Den = dens.of(total.lo/g, t)
-		return
+		qp.q.Den = dens.of(total.lo/g, t)
+		return qp
 	}
 	r := new(big.Rat).SetFrac(num.big(), total.big())
-	u.Quota.Approx, _ = r.Float64()
-	u.Quota.Num, u.Quota.Den = r.Num().String(), r.Denom().String()
+	qp.q.Approx, _ = r.Float64()
+	qp.q.Num, qp.q.Den = r.Num().String(), r.Denom().String()
 	if s, ok := exactDecimal(r, 6); ok {
-		u.Quota.Text = s
+		qp.q.Text = s
 	} else {
-		u.Quota.Text = r.FloatString(6)
+		qp.q.Text = r.FloatString(6)
 	}
+	return qp
 }
 
 // quotaText writes q + rem/den with six decimal places, rounded half up, or

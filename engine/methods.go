@@ -14,6 +14,9 @@ func AllotMethods(s *Scenario, methods []Method, detail Detail) ([]*Result, []er
 	base := *s
 	base.Method = Jefferson
 	pr, perr := prepare(&base)
+	if perr == nil {
+		pr.quotas = new(quotaMemo) // the quotas do not depend on the method
+	}
 	for k, m := range methods {
 		if !m.Valid() {
 			// The error Allot gives, which comes before any other.

@@ -91,6 +91,7 @@ type problem struct {
 	eligible  []bool // false when excluded by the threshold
 	tie       TieRule
 	threshold Decimal
+	quotas    *quotaMemo // nil but in AllotMethods
 }
 
 func (pr *problem) n() int { return len(pr.pops) }

@@ -55,6 +55,19 @@ func BenchmarkLiveFifty(b *testing.B) {
 			}
 		}
 	})
+	b.Run("compute", func(b *testing.B) {
+		// What the live request spends apportioning, comparing and
+		// checking claims, before any of the results is laid out.
+		blk, msg := parseBlock("fifty", Full, block)
+		if blk == nil {
+			b.Fatal(msg)
+		}
+		for b.Loop() {
+			if o := RunWith(blk, nil, Options{QuickMargins: true, NoOrder: true}); o.Problem != nil {
+				b.Fatal(o.Problem.Msg)
+			}
+		}
+	})
 	b.Run("allot", func(b *testing.B) {
 		for b.Loop() {
 			if _, err := engine.Allot(&src.Scenario, engine.Full); err != nil {
