@@ -71,68 +71,6 @@ func (pr *problem) divisorRange(seats []int) *DivisorRange {
 		dr.Single = true
 		return dr
 	}
-	if c := pr.certificate(low, lowOK, high, highOK); c != nil {
-		dr.Certificate = decimalText(c)
-	}
+	dr.Certificate = pr.certificateText(low, lowOK, high, highOK)
 	return dr
-}
-
-// certificate finds the shortest decimal strictly between the bounds.
-func (pr *problem) certificate(low prio, lowOK bool, high prio, highOK bool) *big.Rat {
-	const prec = 256
-	inside := func(d *big.Rat) bool {
-		if d.Sign() <= 0 {
-			return false
-		}
-		if lowOK && pr.cmpRatPrio(d, low) <= 0 {
-			return false
-		}
-		if highOK && pr.cmpRatPrio(d, high) >= 0 {
-			return false
-		}
-		return true
-	}
-	var lo, hi *big.Float
-	if lowOK {
-		lo = pr.m.prioFloat(low, pr.places, prec)
-	} else {
-		lo = new(big.Float).SetPrec(prec)
-	}
-	if highOK && !pr.m.infinite(high) {
-		hi = pr.m.prioFloat(high, pr.places, prec)
-	} else {
-		hi = new(big.Float).SetPrec(prec).Mul(lo, big.NewFloat(2))
-		hi.Add(hi, big.NewFloat(1))
-	}
-	// Try multiples of 10^e from coarse to fine.
-	e := hi.MantExp(nil)/3 + 2 // a power of ten above hi (2^k < 10^(k/3+1))
-	ten := big.NewRat(10, 1)
-	step := new(big.Rat).SetInt(new(big.Int).Exp(big.NewInt(10), big.NewInt(int64(max(e, 0))), nil))
-	if e < 0 {
-		step.SetFrac(big.NewInt(1), new(big.Int).Exp(big.NewInt(10), big.NewInt(int64(-e)), nil))
-	}
-	loR, _ := lo.Rat(nil)
-	for i := 0; i < 400; i++ {
-		// c = (floor(lo/step)+1)·step, the first multiple above lo.
-		q := new(big.Rat).Quo(loR, step)
-		f := new(big.Int).Quo(q.Num(), q.Denom())
-		f.Add(f, big.NewInt(1))
-		c := new(big.Rat).Mul(new(big.Rat).SetInt(f), step)
-		for k := 0; k < 3; k++ { // the float bound may sit a hair off the exact one
-			if inside(c) {
-				return c
-			}
-			c.Add(c, step)
-		}
-		step.Quo(step, ten)
-	}
-	return nil
-}
-
-// decimalText writes a rational with a terminating decimal expansion.
-func decimalText(r *big.Rat) string {
-	if s, ok := exactDecimal(r, 80); ok {
-		return s
-	}
-	return r.FloatString(12)
 }
