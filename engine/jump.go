@@ -310,11 +310,7 @@ func (j *jumper) collect(d, w float64, limit int) (diff int, slope, e float64, o
 	if len(seats) < need || len(seats) > limit {
 		return diff, slope, 0, false
 	}
-	if gain {
-		slices.SortFunc(seats, func(x, y jumpSeat) int { return cmpFloat(y.v, x.v) })
-	} else {
-		slices.SortFunc(seats, func(x, y jumpSeat) int { return cmpFloat(x.v, y.v) })
-	}
+	firstSeats(seats, need+1, gain)
 	for _, s := range seats[:need] {
 		if gain {
 			a[s.u]++
@@ -856,3 +852,45 @@ func (pr *problem) jumpTie(out *divisorOutcome) {
 	out.tail = tail
 	out.tie, out.seats = pr.settleTie(a, tail, tied[seats:], pr.m.value(tail[0].pr, pr.places))
 }
+
+// firstSeats puts the m seats that come first (highest value first when
+// desc, lowest first otherwise), or all of them if there are fewer, at the
+// front of seats in that order. Few are wanted after a good estimate, and
+// picking them costs less than sorting the window.
+func firstSeats(seats []jumpSeat, m int, desc bool) {
+	before := func(x, y jumpSeat) bool { return x.v < y.v }
+	if desc {
+		before = func(x, y jumpSeat) bool { return x.v > y.v }
+	}
+	if m > firstSeatsByInsertion {
+		slices.SortFunc(seats, func(x, y jumpSeat) int {
+			if desc {
+				return cmpFloat(y.v, x.v)
+			}
+			return cmpFloat(x.v, y.v)
+		})
+		return
+	}
+	m = min(m, len(seats))
+	for i := range seats {
+		// seats[:min(i, m)] holds the first of seats[:i], in order.
+		var x jumpSeat
+		var j int
+		switch {
+		case i < m:
+			x, j = seats[i], i
+		case before(seats[i], seats[m-1]):
+			x, j = seats[i], m-1
+			seats[i] = seats[m-1] // no longer among the first m
+		default:
+			continue
+		}
+		for ; j > 0 && before(x, seats[j-1]); j-- {
+			seats[j] = seats[j-1]
+		}
+		seats[j] = x
+	}
+}
+
+// Up to this many seats, firstSeats picks by insertion; beyond, it sorts.
+const firstSeatsByInsertion = 32

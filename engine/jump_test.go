@@ -329,3 +329,36 @@ func TestJumpRandomLarge(t *testing.T) {
 		}
 	}
 }
+
+// firstSeats leaves at the front the values a full sort would.
+func TestFirstSeats(t *testing.T) {
+	rapid.Check(t, func(t *rapid.T) {
+		n := rapid.IntRange(0, 80).Draw(t, "n")
+		seats := make([]jumpSeat, n)
+		for i := range seats {
+			seats[i] = jumpSeat{float64(rapid.IntRange(0, 20).Draw(t, "v")), int32(i)}
+		}
+		m := rapid.IntRange(1, 40).Draw(t, "m")
+		desc := rapid.Bool().Draw(t, "desc")
+		want := slices.Clone(seats)
+		slices.SortFunc(want, func(x, y jumpSeat) int {
+			if desc {
+				return cmpFloat(y.v, x.v)
+			}
+			return cmpFloat(x.v, y.v)
+		})
+		got := slices.Clone(seats)
+		firstSeats(got, m, desc)
+		for k := 0; k < min(m, n); k++ {
+			if got[k].v != want[k].v {
+				t.Fatalf("seat %d of the first %d: %v, want %v (all %v)", k, m, got[k].v, want[k].v, got)
+			}
+		}
+		sortByUnit := func(s []jumpSeat) { slices.SortFunc(s, func(x, y jumpSeat) int { return int(x.u - y.u) }) }
+		sortByUnit(got)
+		sortByUnit(seats)
+		if !slices.Equal(got, seats) {
+			t.Fatal("firstSeats lost or changed a seat")
+		}
+	})
+}
