@@ -6,11 +6,15 @@
 // inlined page would send them, and the ratio of the compressed sizes is
 // the figure to watch (the target is at most 1.5).
 //
-// A second baseline, the floor, is the minimal program that also uses the
-// two libraries the engine is built on (hack-pad/safejs and math/big; see
-// package seatsmith/tools/wasmsize/floor). The floor over the minimal
-// program is what those libraries cost before any of seatsmith's own code;
-// the engine over the floor is what seatsmith's own code costs.
+// Two more baselines split what the engine is built on from what seatsmith
+// adds. The interop program is the minimal program reaching the page
+// through hack-pad/safejs (package seatsmith/tools/wasmsize/interop); the
+// floor also uses math/big for exact arithmetic (package
+// seatsmith/tools/wasmsize/floor). The interop program over the minimal
+// one is what safejs costs by itself, and the target's room beside it is
+// all that is left for math/big and seatsmith's code; the floor over the
+// minimal program is what both libraries cost before any of seatsmith's
+// own code; the engine over the floor is what seatsmith's own code costs.
 //
 // Usage:
 //
@@ -89,16 +93,16 @@ func run(args []string, stdout, stderr io.Writer) int {
 		io.WriteString(stderr, "wasmsize: no arguments expected\n")
 		return 2
 	}
-	engine, minimal, floor, err := measure(*top > 0 || *funcs > 0)
+	bs, err := measure(*top > 0 || *funcs > 0)
 	if err != nil {
 		io.WriteString(stderr, "wasmsize: "+err.Error()+"\n")
 		return 1
 	}
-	ratio := float64(engine.Gzip) / float64(minimal.Gzip)
+	ratio := float64(bs.engine.Gzip) / float64(bs.minimal.Gzip)
 	if *asJSON {
-		stdout.Write(jsondoc.MarshalIndent(report(engine, minimal, floor, ratio, *top, *funcs), "  "))
+		stdout.Write(jsondoc.MarshalIndent(report(bs, ratio, *top, *funcs), "  "))
 	} else {
-		writeTable(stdout, engine, minimal, floor, ratio, *top, *funcs)
+		writeTable(stdout, bs, ratio, *top, *funcs)
 	}
 	if *check && ratio > Target {
 		return 1
@@ -106,58 +110,73 @@ func run(args []string, stdout, stderr io.Writer) int {
 	return 0
 }
 
-// floorPackage is the import path of the floor baseline.
-const floorPackage = "seatsmith/tools/wasmsize/floor"
+// The import paths of the baselines built from the module's own packages.
+const (
+	interopPackage = "seatsmith/tools/wasmsize/interop"
+	floorPackage   = "seatsmith/tools/wasmsize/floor"
+)
 
-// measure builds and measures the engine, the minimal program and the
-// floor; with names it also attributes the engine's and the minimal
-// program's code to packages.
-func measure(names bool) (engine, minimal, floor *build, err error) {
+// builds are the modules wasmsize measures: the engine and its baselines.
+type builds struct {
+	engine, minimal *build
+	interop         *build // the minimal program with safejs
+	floor           *build // ... and with math/big
+}
+
+// measure builds and measures the engine and the baselines; with names it
+// also attributes the engine's and the minimal program's code to packages.
+func measure(names bool) (*builds, error) {
 	dir, err := os.MkdirTemp("", "wasmsize-")
 	if err != nil {
-		return nil, nil, nil, err
+		return nil, err
 	}
 	defer os.RemoveAll(dir)
 	wasm, _, err := wasmbuild.Build(filepath.Join(dir, "engine"))
 	if err != nil {
-		return nil, nil, nil, err
+		return nil, err
 	}
 	src := filepath.Join(dir, "minimal")
 	if err := os.MkdirAll(src, 0o755); err != nil {
-		return nil, nil, nil, err
+		return nil, err
 	}
 	if err := os.WriteFile(filepath.Join(src, "main.go"), []byte(minimalProgram), 0o644); err != nil {
-		return nil, nil, nil, err
+		return nil, err
 	}
 	if err := os.WriteFile(filepath.Join(src, "go.mod"), []byte("module minimal\n\ngo 1.21\n"), 0o644); err != nil {
-		return nil, nil, nil, err
+		return nil, err
 	}
 	minWasm := filepath.Join(dir, "minimal.wasm")
 	if err := wasmbuild.Compile(src, ".", minWasm); err != nil {
-		return nil, nil, nil, err
+		return nil, err
 	}
-	floorWasm := filepath.Join(dir, "floor.wasm")
-	if err := wasmbuild.Compile("", floorPackage, floorWasm); err != nil {
-		return nil, nil, nil, err
+	bs := &builds{}
+	for _, x := range []struct {
+		dst       **build
+		name, pkg string
+	}{{&bs.interop, "interop", interopPackage}, {&bs.floor, "floor", floorPackage}} {
+		out := filepath.Join(dir, x.name+".wasm")
+		if err := wasmbuild.Compile("", x.pkg, out); err != nil {
+			return nil, err
+		}
+		if *x.dst, err = measureFile(x.name, out); err != nil {
+			return nil, err
+		}
 	}
-	if engine, err = measureFile("engine", wasm); err != nil {
-		return nil, nil, nil, err
+	if bs.engine, err = measureFile("engine", wasm); err != nil {
+		return nil, err
 	}
-	if minimal, err = measureFile("minimal", minWasm); err != nil {
-		return nil, nil, nil, err
-	}
-	if floor, err = measureFile("floor", floorWasm); err != nil {
-		return nil, nil, nil, err
+	if bs.minimal, err = measureFile("minimal", minWasm); err != nil {
+		return nil, err
 	}
 	if names {
-		if err := attribute(engine, "", wasmbuild.Package, filepath.Join(dir, "engine-named.wasm")); err != nil {
-			return nil, nil, nil, err
+		if err := attribute(bs.engine, "", wasmbuild.Package, filepath.Join(dir, "engine-named.wasm")); err != nil {
+			return nil, err
 		}
-		if err := attribute(minimal, src, ".", filepath.Join(dir, "minimal-named.wasm")); err != nil {
-			return nil, nil, nil, err
+		if err := attribute(bs.minimal, src, ".", filepath.Join(dir, "minimal-named.wasm")); err != nil {
+			return nil, err
 		}
 	}
-	return engine, minimal, floor, nil
+	return bs, nil
 }
 
 func measureFile(name, path string) (*build, error) {
@@ -303,7 +322,8 @@ func topPackages(engine, minimal *build, n int) []pkgSize {
 	return ps
 }
 
-func writeTable(w io.Writer, engine, minimal, floor *build, ratio float64, top, funcs int) {
+func writeTable(w io.Writer, bs *builds, ratio float64, top, funcs int) {
+	engine, minimal := bs.engine, bs.minimal
 	var b strings.Builder
 	row := func(cells ...string) {
 		b.WriteString(pad(cells[0], 16, false))
@@ -313,7 +333,7 @@ func writeTable(w io.Writer, engine, minimal, floor *build, ratio float64, top, 
 		b.WriteString("\n")
 	}
 	row("", "bytes", "gzip -9", "code", "data")
-	for _, x := range []*build{engine, minimal, floor} {
+	for _, x := range []*build{engine, minimal, bs.interop, bs.floor} {
 		row(x.Name, itoa(x.Bytes), itoa(x.Gzip), itoa(x.Code), itoa(x.Data))
 	}
 	row("ratio", ftoa(float64(engine.Bytes)/float64(minimal.Bytes)), ftoa(ratio),
@@ -322,9 +342,12 @@ func writeTable(w io.Writer, engine, minimal, floor *build, ratio float64, top, 
 	if ratio > Target {
 		verdict = "ABOVE"
 	}
+	over := func(x *build) string { return ftoa(float64(x.Gzip) / float64(minimal.Gzip)) }
 	b.WriteString("\ngzipped engine / gzipped minimal = " + ftoa(ratio) + ": " + verdict + " the target of " + ftoa(Target) + "\n")
-	b.WriteString("gzipped floor / gzipped minimal = " + ftoa(float64(floor.Gzip)/float64(minimal.Gzip)) + " (safejs and math/big alone)\n")
-	b.WriteString("(engine - floor) / minimal, gzipped = " + ftoa(float64(engine.Gzip-floor.Gzip)/float64(minimal.Gzip)) + " (seatsmith's own code)\n")
+	b.WriteString("gzipped interop / gzipped minimal = " + over(bs.interop) + " (safejs alone); the target leaves " +
+		itoa(room(bs)) + " bytes gzipped beside it for math/big and seatsmith's code\n")
+	b.WriteString("gzipped floor / gzipped minimal = " + over(bs.floor) + " (safejs and math/big alone)\n")
+	b.WriteString("(engine - floor) / minimal, gzipped = " + ftoa(float64(engine.Gzip-bs.floor.Gzip)/float64(minimal.Gzip)) + " (seatsmith's own code)\n")
 	if top > 0 {
 		b.WriteString("\ncode by package (function bodies, bytes)\n")
 		b.WriteString(pad("package", 44, false) + pad("engine", 10, true) + pad("minimal", 10, true) + pad("added", 10, true) + "\n")
@@ -341,12 +364,19 @@ func writeTable(w io.Writer, engine, minimal, floor *build, ratio float64, top, 
 	io.WriteString(w, b.String())
 }
 
-func report(engine, minimal, floor *build, ratio float64, top, funcs int) *jsondoc.Value {
+// room is what the target leaves, in gzipped bytes, beside safejs: the
+// target's size less the interop baseline's.
+func room(bs *builds) int { return int(Target*float64(bs.minimal.Gzip)) - bs.interop.Gzip }
+
+func report(bs *builds, ratio float64, top, funcs int) *jsondoc.Value {
+	engine, minimal, floor := bs.engine, bs.minimal, bs.floor
 	one := func(x *build) *jsondoc.Value {
 		return jsondoc.NewObject().Set("bytes", jsondoc.Int(x.Bytes)).Set("gzip", jsondoc.Int(x.Gzip)).
 			Set("code", jsondoc.Int(x.Code)).Set("data", jsondoc.Int(x.Data))
 	}
-	v := jsondoc.NewObject().Set("engine", one(engine)).Set("minimal", one(minimal)).Set("floor", one(floor))
+	v := jsondoc.NewObject().Set("engine", one(engine)).Set("minimal", one(minimal)).Set("interop", one(bs.interop)).Set("floor", one(floor))
+	v.Set("interop_ratio", jsondoc.Num(ftoa(float64(bs.interop.Gzip)/float64(minimal.Gzip))))
+	v.Set("room_beside_interop", jsondoc.Int(room(bs)))
 	v.Set("floor_ratio", jsondoc.Num(ftoa(float64(floor.Gzip)/float64(minimal.Gzip))))
 	v.Set("own_ratio", jsondoc.Num(ftoa(float64(engine.Gzip-floor.Gzip)/float64(minimal.Gzip))))
 	v.Set("ratio", jsondoc.Num(ftoa(ratio))).Set("raw_ratio", jsondoc.Num(ftoa(float64(engine.Bytes)/float64(minimal.Bytes))))

@@ -125,6 +125,12 @@ func TestRun(t *testing.T) {
 	if f := num("floor", "gzip"); f <= m || f >= e {
 		t.Errorf("floor gzip %v: want between the minimal program's %v and the engine's %v", f, m, e)
 	}
+	if i, f := num("interop", "gzip"), num("floor", "gzip"); i <= m || i >= f {
+		t.Errorf("interop gzip %v: want between the minimal program's %v and the floor's %v", i, m, f)
+	}
+	if r, i := num("room_beside_interop"), num("interop", "gzip"); r < 1.5*m-i-1 || r > 1.5*m-i+1 {
+		t.Errorf("room_beside_interop %v, want %v", r, 1.5*m-i)
+	}
 	if r, f := num("own_ratio"), num("floor", "gzip"); r < (e-f)/m-0.01 || r > (e-f)/m+0.01 {
 		t.Errorf("own_ratio %v, want %v", r, (e-f)/m)
 	}
