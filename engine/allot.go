@@ -460,17 +460,17 @@ func (pr *problem) beyond(seats []int, filled, k int) []SeatAward {
 	return out
 }
 
-// explainRemainder adds the quota, remainders and ranks.
 // boundsHeld records the largest-remainder passes and the units they fixed
 // at a bound.
 func (pr *problem) boundsHeld(l *lrOutcome, res *Result) {
 	res.Passes = l.rounds
-	for i := range res.Units {
-		res.Units[i].AtMin = l.pinned[i] < 0
-		res.Units[i].AtMax = l.pinned[i] > 0
+	for i, p := range l.pinned {
+		res.Units[i].AtMin = p < 0
+		res.Units[i].AtMax = p > 0
 	}
 }
 
+// explainRemainder adds the quota, remainders and ranks.
 func (pr *problem) explainRemainder(l *lrOutcome, res *Result, sl *slabs) {
 	r := l.final
 	if r != nil {

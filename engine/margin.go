@@ -719,6 +719,9 @@ func (pr *problem) pinnedAt(i int, p uint64) []int {
 	if err != nil {
 		return nil
 	}
+	if o.pinned == nil {
+		return make([]int, q.n()) // none fixed
+	}
 	return o.pinned
 }
 

@@ -49,7 +49,7 @@ type lrRound struct {
 type lrOutcome struct {
 	seats  []int // after the tie rule
 	full   []int // as handed out, tie included
-	pinned []int // +1 fixed at maximum, -1 fixed at minimum, 0 free
+	pinned []int // +1 fixed at maximum, -1 fixed at minimum, 0 free; nil when none is fixed
 	final  *lrRound
 	rounds int
 	tie    *Tie
@@ -299,7 +299,7 @@ func (pr *problem) remainderSeats() (*lrOutcome, error) {
 // grouped but not ranked (see lrRound.ranked).
 func (pr *problem) remainderCut() (*lrOutcome, error) {
 	n := pr.n()
-	out := &lrOutcome{full: make([]int, n), pinned: make([]int, n)}
+	out := &lrOutcome{full: make([]int, n)}
 	active := make([]int, 0, n)
 	bounded := false // some unit has a minimum or a maximum
 	var total u128   // the population of the active units
@@ -340,7 +340,11 @@ func (pr *problem) remainderCut() (*lrOutcome, error) {
 			if !bounded {
 				break
 			}
-			switch g := out.full[u]; {
+			g := out.full[u]
+			if (g < pr.min[u] || g > pr.max[u]) && out.pinned == nil {
+				out.pinned = make([]int, n)
+			}
+			switch {
 			case g < pr.min[u]:
 				out.full[u], out.pinned[u] = pr.min[u], -1
 				left -= pr.min[u]
