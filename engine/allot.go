@@ -318,11 +318,8 @@ func (pr *problem) quota(i int, total u128, dens *lastText, t *textSlab, exact b
 	return qp
 }
 
-// quotaText writes q + rem/den with six decimal places, rounded half up, or
-// fewer when that is exact.
-func quotaText(q, rem, den uint64) string { return quotaTextIn(nil, q, rem, den) }
-
-// quotaTextIn is quotaText written into t.
+// quotaTextIn writes q + rem/den with six decimal places, rounded half up,
+// or fewer when that is exact, into t (nil: a string of its own).
 func quotaTextIn(t *textSlab, q, rem, den uint64) string {
 	var digits [6]byte
 	n := 0

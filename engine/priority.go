@@ -123,13 +123,11 @@ func (m Method) valueIn(t *textSlab, x prio, places int) Value {
 	return Value{Text: f.Text('f', ValueDigits), Approx: a}
 }
 
-// valueInt is value in 64- and 128-bit integer arithmetic, with the same
+// valueIntIn is value in 64- and 128-bit integer arithmetic, with the same
 // text; false when the numbers do not fit, and value falls back to
 // math/big. The priority is p·d/(n·10^places), or for Huntington–Hill
 // p/(10^places·sqrt(n)).
-func (m Method) valueInt(x prio, places int) (Value, bool) { return m.valueIntIn(nil, x, places) }
-
-// valueIntIn is valueInt with the text written into t.
+// The text is written into t (nil: a string of its own).
 func (m Method) valueIntIn(t *textSlab, x prio, places int) (Value, bool) {
 	s := m.signpost(x.a)
 	if x.p == 0 {
@@ -168,13 +166,11 @@ func (m Method) valueIntIn(t *textSlab, x prio, places int) (Value, bool) {
 	return Value{Text: pointText(t, k, ValueDigits), Approx: approx}, true
 }
 
-// fracValue is ratValue for num/den with a 64-bit denominator den > 0:
+// fracValueIn is ratValue for num/den with a 64-bit denominator den > 0:
 // exact when num/den has at most ValueDigits decimals, otherwise rounded
 // half up to ValueDigits places (as big.Rat.FloatString rounds); false when
 // the scaled quotient does not fit in 64 bits.
-func fracValue(num u128, den uint64) (Value, bool) { return fracValueIn(nil, num, den) }
-
-// fracValueIn is fracValue with the text written into t.
+// The text is written into t (nil: a string of its own).
 func fracValueIn(t *textSlab, num u128, den uint64) (Value, bool) {
 	var q, r uint64
 	for i := 0; i <= ValueDigits; i++ {

@@ -45,7 +45,7 @@ func TestValueIntMatchesBig(t *testing.T) {
 			x.a = r.IntN(MaxSeats)
 		}
 		places := r.IntN(MaxPlaces + 1)
-		got, ok := m.valueInt(x, places)
+		got, ok := m.valueIntIn(nil, x, places)
 		if !ok {
 			continue
 		}
@@ -84,7 +84,7 @@ func TestValueHalves(t *testing.T) {
 		{1, 2000, "0.001"}, {3, 2000, "0.002"}, {2001, 2000, "1.001"}, {1, 3, "0.333"}, {2, 3, "0.667"},
 		{5, 2, "2.5"}, {0, 7, "0"}, {7, 1, "7"}, {1, 8, "0.125"}, {1, 16, "0.063"}, {999999, 1000000, "1.000"},
 	} {
-		v, ok := fracValue(u128{0, c.num}, c.den)
+		v, ok := fracValueIn(nil, u128{0, c.num}, c.den)
 		want := ratValue(new(big.Rat).SetFrac(bigU(c.num), bigU(c.den)))
 		if !ok || v.Text != c.want || v != want {
 			t.Errorf("%d/%d: %+v, want %q (math/big %+v)", c.num, c.den, v, c.want, want)

@@ -21,8 +21,8 @@ func TestQuotaText(t *testing.T) {
 		if !ok {
 			want = r.FloatString(6)
 		}
-		if got := quotaText(q, rem, den); got != want {
-			t.Fatalf("quotaText(%d, %d, %d) = %s, want %s", q, rem, den, got, want)
+		if got := quotaTextIn(nil, q, rem, den); got != want {
+			t.Fatalf("quotaTextIn(%d, %d, %d) = %s, want %s", q, rem, den, got, want)
 		}
 	})
 }

@@ -46,7 +46,7 @@ func TestSlabTexts(t *testing.T) {
 	for i := 0; i < 20_000; i++ {
 		q, den := r.Uint64N(1<<40), r.Uint64N(1<<50)+1
 		rem := r.Uint64N(den)
-		if a, b := quotaTextIn(ts, q, rem, den), quotaText(q, rem, den); a != b {
+		if a, b := quotaTextIn(ts, q, rem, den), quotaTextIn(nil, q, rem, den); a != b {
 			t.Fatalf("quota %d+%d/%d: %q in a slab, %q alone", q, rem, den, a, b)
 		}
 		x := prio{p: r.Uint64() >> r.IntN(64), a: r.IntN(1000)}
