@@ -10,7 +10,7 @@ import (
 	"seatsmith/engine/projection"
 	"seatsmith/engine/report"
 	"seatsmith/site/forecast"
-	"seatsmith/site/render"
+	"seatsmith/engine/render"
 )
 
 // The projection functions run a study in chunks, so that a page's worker

@@ -7,7 +7,7 @@ import (
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
 	"seatsmith/site/claim"
-	. "seatsmith/site/render"
+	. "seatsmith/engine/render"
 )
 
 // An AdmitOutcome is an admit block's scenario apportioned, then again

@@ -8,7 +8,7 @@ import (
 	"testing"
 
 	"seatsmith/engine/jsondoc"
-	"seatsmith/site/render"
+	"seatsmith/engine/render"
 )
 
 func vessaria(t *testing.T) string {

@@ -5,7 +5,7 @@ import (
 	"strconv"
 
 	"seatsmith/engine"
-	. "seatsmith/site/render"
+	. "seatsmith/engine/render"
 )
 
 // maxChartUnits is the most units the chart draws; beyond it the table

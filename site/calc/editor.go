@@ -6,7 +6,7 @@ import (
 
 	"seatsmith/engine"
 	"seatsmith/engine/jsondoc"
-	. "seatsmith/site/render"
+	. "seatsmith/engine/render"
 )
 
 // docText returns the text of a scalar member of doc, or "".

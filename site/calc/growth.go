@@ -9,7 +9,7 @@ import (
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
 	"seatsmith/site/claim"
-	. "seatsmith/site/render"
+	. "seatsmith/engine/render"
 )
 
 // A GrowthOutcome is a growth block's scenario apportioned with its first

@@ -10,7 +10,7 @@ import (
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
 	"seatsmith/engine/report"
-	"seatsmith/site/render"
+	"seatsmith/engine/render"
 )
 
 // Live answers one request from the browser and never panics. The request

@@ -8,7 +8,7 @@ import (
 
 	"seatsmith/engine"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/site/render"
+	"seatsmith/engine/render"
 )
 
 // withoutOrder is the output tree of resp with the seat order's folded

@@ -6,7 +6,7 @@ import (
 
 	"seatsmith/engine"
 	"seatsmith/engine/report"
-	. "seatsmith/site/render"
+	. "seatsmith/engine/render"
 )
 
 // State is the calculator's data-state for an outcome rendered live:

@@ -6,7 +6,7 @@ import (
 	"testing"
 
 	"seatsmith/engine/jsondoc"
-	"seatsmith/site/render"
+	"seatsmith/engine/render"
 )
 
 // The study blocks use the invented Federation of Vessaria of the site's

@@ -9,7 +9,7 @@ import (
 	"seatsmith/engine/analysis"
 	"seatsmith/engine/report"
 	"seatsmith/site/claim"
-	. "seatsmith/site/render"
+	. "seatsmith/engine/render"
 )
 
 // A SweepOutcome is a sweep block's scenario apportioned at every house

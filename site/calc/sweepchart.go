@@ -6,7 +6,7 @@ import (
 
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
-	. "seatsmith/site/render"
+	. "seatsmith/engine/render"
 )
 
 // The sweep chart draws, for each method, a small panel with one step line

@@ -6,7 +6,7 @@ import (
 
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
-	"seatsmith/site/render"
+	"seatsmith/engine/render"
 )
 
 // A Verdict says whether a claim holds for a scenario.

@@ -4,7 +4,7 @@ import (
 	"strings"
 
 	"seatsmith/engine/projection"
-	. "seatsmith/site/render"
+	. "seatsmith/engine/render"
 )
 
 // Prerender writes a block as a page carries it before the engine runs:

@@ -6,7 +6,7 @@ import (
 
 	"seatsmith/engine/projection"
 	"seatsmith/engine/report"
-	. "seatsmith/site/render"
+	. "seatsmith/engine/render"
 )
 
 // Form is the block's controls: the target date, growth model, error

@@ -11,9 +11,9 @@ import (
 	"sort"
 	"strings"
 
+	"seatsmith/engine/render"
 	"seatsmith/engine/report"
 	"seatsmith/site/calc"
-	"seatsmith/site/render"
 )
 
 // Options say what to build and where.

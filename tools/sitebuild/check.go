@@ -259,7 +259,7 @@ func check(src, golden string, update bool, w io.Writer) ([]string, error) {
 
 func cmdCheck(args []string, stdout, stderr io.Writer) error {
 	fs := flag.NewFlagSet("check", flag.ContinueOnError)
-	src := fs.String("src", "site", "the site sources")
+	src := fs.String("src", filepath.Join("site", "content"), "the site sources")
 	golden := fs.String("golden", filepath.Join("testdata", "site"), "the folder of golden files")
 	update := fs.Bool("update", false, "rewrite the golden files from the current results")
 	if err := parseFlags(fs, args, stderr); err != nil {

@@ -4,9 +4,9 @@
 //
 // Usage:
 //
-//	sitebuild build [-src site] [-out DIR] [-wasm FILE]
-//	sitebuild check [-src site] [-golden testdata/site] [-update]
-//	sitebuild serve [-src site] [-addr 127.0.0.1:8080] [-wasm FILE]
+//	sitebuild build [-src site/content] [-out DIR] [-wasm FILE]
+//	sitebuild check [-src site/content] [-golden testdata/site] [-update]
+//	sitebuild serve [-src site/content] [-addr 127.0.0.1:8080] [-wasm FILE]
 //
 // build renders every page of the site sources with html/template,
 // computes every calculator's results with the native engine (so that the
@@ -35,6 +35,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"path/filepath"
 )
 
 func main() {
@@ -110,7 +111,7 @@ func parseFlags(fs *flag.FlagSet, args []string, stderr io.Writer) error {
 
 func cmdBuild(args []string, stdout, stderr io.Writer) error {
 	fs := flag.NewFlagSet("build", flag.ContinueOnError)
-	src := fs.String("src", "site", "the site sources")
+	src := fs.String("src", filepath.Join("site", "content"), "the site sources")
 	out := fs.String("out", "dist", "the folder to write the site into")
 	wasm := fs.String("wasm", "", "use this prebuilt engine (.wasm) instead of building it")
 	if err := parseFlags(fs, args, stderr); err != nil {

@@ -84,7 +84,7 @@ func siteHandler(dir string) (http.Handler, error) {
 
 func cmdServe(args []string, stdout, stderr io.Writer) error {
 	fs := flag.NewFlagSet("serve", flag.ContinueOnError)
-	src := fs.String("src", "site", "the site sources")
+	src := fs.String("src", filepath.Join("site", "content"), "the site sources")
 	addr := fs.String("addr", "127.0.0.1:8080", "the address to listen on")
 	wasm := fs.String("wasm", "", "use this prebuilt engine (.wasm) instead of building it")
 	if err := parseFlags(fs, args, stderr); err != nil {

@@ -11,12 +11,12 @@ import (
 	"testing"
 
 	"seatsmith/engine/jsondoc"
+	"seatsmith/engine/render"
 	"seatsmith/site/calc"
-	"seatsmith/site/render"
 )
 
 const (
-	siteSrc   = "../../site"
+	siteSrc   = "../../site/content"
 	goldenDir = "../../testdata/site"
 )
 

@@ -22,7 +22,7 @@ import (
 // counts) with the given error model, draws and seed.
 func projectConfig(t testing.TB, errModel, rse string, draws int, seed uint64) *jsondoc.Value {
 	t.Helper()
-	counts, err := os.ReadFile(filepath.Join("..", "..", "site", "scenarios", "vessaria-counts.csv"))
+	counts, err := os.ReadFile(filepath.Join("..", "..", "site", "content", "scenarios", "vessaria-counts.csv"))
 	if err != nil {
 		t.Fatal(err)
 	}
