@@ -6,8 +6,8 @@ import (
 
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
-	"seatsmith/site/claim"
 	. "seatsmith/engine/render"
+	"seatsmith/site/claim"
 )
 
 // An AdmitOutcome is an admit block's scenario apportioned, then again
@@ -121,7 +121,7 @@ func admitOutput(o *Outcome, out *Node) {
 		Wrap("td", "–", "class", "num"), Wrap("td", strconv.Itoa(nu.Seats), "class", "num sc-seats"),
 		Wrap("td", seatDelta(0, nu.Seats), "class", "num sc-delta"), Wrap("td", Group(nu.Population.String()), "class", "num")))
 	t.Add(body)
-	wrap.Add(t)
+	wrap.Add(Stackable(t))
 	out.Add(wrap)
 
 	sec := El("section", "class", "sc-findings", "data-role", "new-states", "aria-label", "What admitting the unit does")
@@ -144,7 +144,7 @@ func admitMethods(o *Outcome) *Node {
 	a := o.Admit
 	sec := El("section", "class", "sc-compare", "data-role", "admit-compare", "aria-label", "Every method with the new unit")
 	sec.Add(Wrap("h3", "Every method with the new unit"))
-	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "The new unit under each method (scrolls sideways)")
+	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "The new unit under each method")
 	t := El("table", "class", "sc-method-summary")
 	t.Add(El("thead").Add(El("tr").Add(Wrap("th", "Method", "scope", "col"), Wrap("th", "New unit's seats", "scope", "col"),
 		Wrap("th", "Other units' seats that change", "scope", "col"))))
@@ -164,7 +164,7 @@ func admitMethods(o *Outcome) *Node {
 		body.Add(row)
 	}
 	t.Add(body)
-	wrap.Add(t)
+	wrap.Add(Stackable(t))
 	sec.Add(wrap)
 	sec.Add(Wrap("p", "Under a divisor method, a new unit that receives exactly the seats added for it leaves every other unit's seats as they were: the divisor that worked for them before still works. Largest-remainder methods make no such promise.", "class", "sc-hint"))
 	return sec

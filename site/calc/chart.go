@@ -13,21 +13,26 @@ import (
 const maxChartUnits = 60
 
 // chart draws each unit's seats as a bar against its quota (a mark) and
-// the band from its lower to its upper quota. Floating-point numbers only
-// place the marks; they decide nothing.
+// the band from its lower to its upper quota. Each unit's name and seats
+// stand on a line above its bar, so the bars take the chart's whole width
+// and every label stays inside it however narrow the page: the chart is
+// drawn about as wide as a phone and scales with its box. Floating-point
+// numbers only place the marks; they decide nothing.
 func chart(r *engine.Result) *Node {
 	n := len(r.Units)
 	if n == 0 || n > maxChartUnits {
 		return nil
 	}
 	const (
-		width  = 540.0
-		labelW = 140.0
-		left   = labelW + 8
-		right  = 30.0
-		top    = 30.0
-		rowH   = 26.0
-		barH   = 16.0
+		width = 360.0
+		left  = 8.0
+		right = 12.0
+		top   = 24.0
+		rowH  = 42.0
+		// Within a row: the baseline of the name and seats, then the bar.
+		labelY = 13.0
+		barY   = 20.0
+		barH   = 14.0
 	)
 	top1 := 1.0
 	for _, u := range r.Units {
@@ -37,51 +42,57 @@ func chart(r *engine.Result) *Node {
 	scaleMax := math.Ceil(top1/step) * step
 	plotW := width - left - right
 	x := func(v float64) float64 { return left + v/scaleMax*plotW }
-	height := top + float64(n)*rowH + 10
+	height := top + float64(n)*rowH + 4
 
-	fig := El("figure", "class", "sc-chart", "data-role", "chart", "tabindex", "0", "aria-label", "Chart of seats against quota (scrolls sideways on narrow screens)")
-	svg := El("svg", "viewBox", "0 0 "+f1(width)+" "+f1(height), "role", "img", "class", "sc-svg",
+	fig := El("figure", "class", "sc-chart", "data-role", "chart", "tabindex", "0", "aria-label", "Chart of seats against quota")
+	svg := El("svg", "viewBox", "0 0 "+f1(width)+" "+f1(height), "role", "img", "class", "sc-svg sc-bars",
 		"aria-label", "Bar chart: seats of each unit under "+r.Method.Name()+", with each unit's quota marked", "focusable", "false")
 	svg.Add(Wrap("title", "Seats against quota, "+r.Method.Name()))
 	axis := El("g", "class", "sc-axis")
 	for v := 0.0; v <= scaleMax+1e-9; v += step {
 		xx := f1(x(v))
-		axis.Add(El("line", "x1", xx, "x2", xx, "y1", f1(top-6), "y2", f1(height-10), "class", "sc-grid-line"))
-		axis.Add(Wrap("text", strconv.Itoa(int(v)), "x", xx, "y", f1(top-12), "text-anchor", "middle", "class", "sc-tick"))
+		axis.Add(El("line", "x1", xx, "x2", xx, "y1", f1(top-4), "y2", f1(height-2), "class", "sc-grid-line"))
+		// The end ticks are anchored inward so that they stay inside.
+		anchor := "middle"
+		switch {
+		case v == 0:
+			anchor = "start"
+		case v+step > scaleMax+1e-9:
+			anchor = "end"
+		}
+		axis.Add(Wrap("text", strconv.Itoa(int(v)), "x", xx, "y", f1(top-9), "text-anchor", anchor, "class", "sc-tick"))
 	}
 	svg.Add(axis)
 	for i := range r.Units {
 		u := &r.Units[i]
 		y := top + float64(i)*rowH
 		g := El("g", "class", "sc-bar-row", "data-chart-unit", u.Name)
-		g.Add(Wrap("text", shortName(u.Name), "x", f1(labelW), "y", f1(y+barH-2), "text-anchor", "end", "class", "sc-label"))
+		// Labels keep 2 units from the edges: their halo is that wide.
+		g.Add(Wrap("text", shortName(u.Name), "x", "2", "y", f1(y+labelY), "class", "sc-label"))
+		g.Add(Wrap("text", strconv.Itoa(u.Seats), "x", f1(width-2), "y", f1(y+labelY), "text-anchor", "end", "class", "sc-value"))
+		by := y + barY
 		if !u.Excluded {
 			lo, hi := x(float64(u.Lower)), x(float64(u.Upper))
 			if hi-lo < 2 {
 				hi = lo + 2
 			}
-			g.Add(El("rect", "x", f1(lo), "y", f1(y-3), "width", f1(hi-lo), "height", f1(barH+6), "class", "sc-band"))
+			g.Add(El("rect", "x", f1(lo), "y", f1(by-3), "width", f1(hi-lo), "height", f1(barH+6), "class", "sc-band"))
 		}
 		cls := "sc-bar"
 		if !u.MeetsQuota && !u.Excluded {
 			cls = "sc-bar sc-bar-off"
 		}
 		if u.Seats > 0 {
-			g.Add(El("rect", "x", f1(left), "y", f1(y), "width", f1(x(float64(u.Seats))-left), "height", f1(barH), "class", cls))
+			g.Add(El("rect", "x", f1(left), "y", f1(by), "width", f1(x(float64(u.Seats))-left), "height", f1(barH), "class", cls))
 		}
 		if !u.Excluded {
 			qx := f1(x(u.Quota.Approx))
-			g.Add(El("line", "x1", qx, "x2", qx, "y1", f1(y-4), "y2", f1(y+barH+4), "class", "sc-quota-mark"))
+			g.Add(El("line", "x1", qx, "x2", qx, "y1", f1(by-4), "y2", f1(by+barH+4), "class", "sc-quota-mark"))
 		}
-		vx := x(float64(u.Seats))
-		if !u.Excluded {
-			vx = math.Max(vx, math.Max(x(float64(u.Upper)), x(u.Quota.Approx)+2))
-		}
-		g.Add(Wrap("text", strconv.Itoa(u.Seats), "x", f1(vx+6), "y", f1(y+barH-2), "class", "sc-value"))
 		svg.Add(g)
 	}
 	fig.Add(svg)
-	fig.Add(Wrap("figcaption", "Bars: seats. Dark mark: the unit's quota. Pale band: from its lower to its upper quota; a bar that ends outside its band breaks quota."))
+	fig.Add(Wrap("figcaption", "Bars: seats (the number at the right). Dark mark: the unit's quota. Pale band: from its lower to its upper quota; a bar that ends outside its band breaks quota."))
 	return fig
 }
 

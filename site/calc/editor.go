@@ -99,7 +99,7 @@ func advancedFields(b *Block, doc *jsondoc.Value, id func(string) string) *Node 
 	tf := El("div", "class", "sc-field")
 	tf.Add(Wrap("label", "When units tie for the last seat", "for", id("tie-kind")))
 	sel := El("select", "id", id("tie-kind"), "data-field", "tie-kind")
-	for _, o := range [][2]string{{"none", "Report the tie, leave the seat open"}, {"order", "Give it to the unit listed first"}, {"lot", "Draw lots (seeded, repeatable)"}} {
+	for _, o := range [][2]string{{"none", "Report it, leave it open"}, {"order", "The unit listed first"}, {"lot", "Draw lots (seeded)"}} {
 		sel.Add(Wrap("option", o[1], "value", o[0]).SetIf(o[0] == kind, "selected", ""))
 	}
 	tf.Add(sel)
@@ -188,7 +188,7 @@ func growthControls(fs *Node, b *Block, doc *jsondoc.Value, id func(string) stri
 	grid.Add(numberField(id("min"), "Minimum seats per unit", "min", docText(doc, "min"), "0"))
 	fs.Add(grid)
 	fs.Add(advancedFields(b, doc, id))
-	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Units (scrolls sideways)")
+	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Units")
 	t := El("table", "class", "sc-units sc-units-growth")
 	t.Add(Wrap("caption", "Units and their two counts. A blank later population keeps the first."))
 	t.Add(El("thead").Add(El("tr").Add(
@@ -218,7 +218,7 @@ func growthControls(fs *Node, b *Block, doc *jsondoc.Value, id func(string) stri
 		}
 	}
 	t.Add(body)
-	wrap.Add(t)
+	wrap.Add(Stackable(t))
 	fs.Add(wrap)
 	fs.Add(unitActions())
 	fs.Add(El("div", "class", "sc-actions sc-export").Add(linkButton()))
@@ -315,7 +315,7 @@ func methodField(id, val string) *Node {
 }
 
 func unitsTable(b *Block, doc *jsondoc.Value) *Node {
-	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Units (scrolls sideways)")
+	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Units")
 	t := El("table", "class", "sc-units")
 	t.Add(Wrap("caption", "Units: names and populations. A blank minimum or maximum uses the default above."))
 	t.Add(El("thead").Add(El("tr").Add(
@@ -348,6 +348,6 @@ func unitsTable(b *Block, doc *jsondoc.Value) *Node {
 		}
 	}
 	t.Add(body)
-	wrap.Add(t)
+	wrap.Add(Stackable(t))
 	return wrap
 }

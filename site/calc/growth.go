@@ -8,8 +8,8 @@ import (
 
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
-	"seatsmith/site/claim"
 	. "seatsmith/engine/render"
+	"seatsmith/site/claim"
 )
 
 // A GrowthOutcome is a growth block's scenario apportioned with its first
@@ -134,7 +134,7 @@ func growthOutput(o *Outcome, out *Node) {
 	t.Add(El("tfoot").Add(El("tr").Add(Wrap("th", "Total", "scope", "row"),
 		Wrap("td", strconv.Itoa(r.Before.Seats-r.Before.Unassigned), "class", "num"), Wrap("td", strconv.Itoa(r.After.Seats-r.After.Unassigned), "class", "num"), El("td"),
 		Wrap("td", growthText(r.Before.Total, r.After.Total), "class", "num"), Wrap("td", Group(r.Before.Total), "class", "num"), Wrap("td", Group(r.After.Total), "class", "num"))))
-	wrap.Add(t)
+	wrap.Add(Stackable(t))
 	out.Add(wrap)
 	out.Add(Wrap("p", "Growth: the later population divided by the first, less one, compared between units exactly (the percentages are rounded for display).", "class", "sc-hint"))
 
@@ -163,7 +163,7 @@ func growthMethods(o *Outcome) *Node {
 	g := o.Growth
 	sec := El("section", "class", "sc-compare", "data-role", "growth-compare", "aria-label", "Every method with these populations")
 	sec.Add(Wrap("h3", "Every method with these two population sets"))
-	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Population paradoxes by method (scrolls sideways)")
+	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Population paradoxes by method")
 	t := El("table", "class", "sc-method-summary")
 	t.Add(El("thead").Add(El("tr").Add(Wrap("th", "Method", "scope", "col"), Wrap("th", "Paradoxes", "scope", "col"),
 		Wrap("th", "Seats that change", "scope", "col"))))
@@ -183,7 +183,7 @@ func growthMethods(o *Outcome) *Node {
 		body.Add(row)
 	}
 	t.Add(body)
-	wrap.Add(t)
+	wrap.Add(Stackable(t))
 	sec.Add(wrap)
 	sec.Add(Wrap("p", "Divisor methods never show the population paradox: with one divisor for everybody, a unit that grows faster than another cannot lose a seat to it. Largest-remainder methods can.", "class", "sc-hint"))
 	return sec

@@ -5,8 +5,8 @@ import (
 	"strings"
 
 	"seatsmith/engine"
-	"seatsmith/engine/report"
 	. "seatsmith/engine/render"
+	"seatsmith/engine/report"
 )
 
 // State is the calculator's data-state for an outcome rendered live:
@@ -249,7 +249,7 @@ func resultsTable(o *Outcome) *Node {
 		foot.Add(El("td"))
 	}
 	t.Add(El("tfoot").Add(foot))
-	wrap.Add(t)
+	wrap.Add(Stackable(t))
 	legend := El("p", "class", "sc-hint")
 	if o.MarginsAuto() {
 		legend.Add(Wrap("strong", "Margins are computed when you pause typing. ", "data-role", "margins-pending"))
@@ -369,14 +369,14 @@ func orderTable(o *Outcome) *Node {
 		return d.Add(Wrap("p", "Listing the seats in order…", "class", "sc-hint", "data-role", "order-pending"))
 	}
 	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Seat order")
-	t := El("table")
+	t := El("table", "class", "sc-seat-order")
 	t.Add(El("thead").Add(El("tr").Add(Wrap("th", "Seat", "scope", "col"), Wrap("th", "Unit", "scope", "col"), Wrap("th", "Its seat", "scope", "col"), Wrap("th", "Priority", "scope", "col"))))
 	body := El("tbody")
 	for _, a := range r.Order {
 		body.Add(El("tr").Add(Wrap("td", strconv.Itoa(a.Seat), "class", "num"), Wrap("td", a.Name), Wrap("td", strconv.Itoa(a.Nth), "class", "num"), Wrap("td", valueText(&a.Priority), "class", "num")))
 	}
 	t.Add(body)
-	wrap.Add(t)
+	wrap.Add(Stackable(t))
 	return d.Add(wrap)
 }
 
@@ -386,9 +386,15 @@ func comparisonView(o *Outcome) *Node {
 	if first == nil {
 		return nil
 	}
-	sec := El("section", "class", "sc-compare", "data-role", "compare", "aria-label", "The methods compared")
+	cls := "sc-compare"
+	if len(c.Methods) > 5 {
+		// Too wide for a tablet: the picker takes over sooner.
+		cls += " sc-compare-many"
+	}
+	sec := El("section", "class", cls, "data-role", "compare", "aria-label", "The methods compared")
 	sec.Add(Wrap("h3", "The methods compared"))
-	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Seats by each method (scrolls sideways)")
+	sec.Add(methodPicker(o.Block.ID, c.Methods, o.Result.Method))
+	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Seats by each method")
 	t := El("table", "class", "sc-comparison")
 	head := El("tr").Add(Wrap("th", "Unit", "scope", "col"), Wrap("th", "Quota", "scope", "col"))
 	for _, m := range c.Methods {
@@ -396,7 +402,7 @@ func comparisonView(o *Outcome) *Node {
 		th.SetIf(m == o.Result.Method, "class", "sc-current")
 		head.Add(th)
 	}
-	head.Add(Wrap("th", "Methods differ", "scope", "col"))
+	head.Add(Wrap("th", "Methods differ", "scope", "col", "class", "sc-differs-cell"))
 	t.Add(El("thead").Add(head))
 	body := El("tbody")
 	for i := range first.Units {
@@ -404,7 +410,13 @@ func comparisonView(o *Outcome) *Node {
 		row := El("tr", "data-compare-unit", u.Name)
 		differs := c.Differs(i)
 		row.SetIf(differs, "class", "sc-differs")
-		row.Add(Wrap("th", u.Name, "scope", "row"), Wrap("td", u.Quota.Text, "class", "num"))
+		name := Wrap("th", u.Name, "scope", "row")
+		if differs {
+			// Where the picker shows one method, this note stands in
+			// for the last column.
+			name.Add(Wrap("small", " methods differ", "class", "sc-differs-note"))
+		}
+		row.Add(name, Wrap("td", u.Quota.Text, "class", "num"))
 		for k, m := range c.Methods {
 			res := c.Results[k]
 			if res == nil {
@@ -424,19 +436,20 @@ func comparisonView(o *Outcome) *Node {
 			}
 			row.Add(td)
 		}
-		row.Add(Wrap("td", yesNo(differs)))
+		row.Add(Wrap("td", yesNo(differs), "class", "sc-differs-cell"))
 		body.Add(row)
 	}
 	t.Add(body)
 	foot := El("tr").Add(Wrap("th", "Units outside quota", "scope", "row"), El("td"))
 	for k := range c.Methods {
+		m := c.Methods[k].String()
 		if c.Results[k] == nil {
-			foot.Add(Wrap("td", "cannot apportion", "class", "sc-cannot"))
+			foot.Add(Wrap("td", "cannot apportion", "class", "sc-cannot", "data-method", m))
 			continue
 		}
-		foot.Add(Wrap("td", strconv.Itoa(c.QuotaViolations(k)), "class", "num"))
+		foot.Add(Wrap("td", strconv.Itoa(c.QuotaViolations(k)), "class", "num", "data-method", m))
 	}
-	foot.Add(El("td"))
+	foot.Add(El("td", "class", "sc-differs-cell"))
 	t.Add(El("tfoot").Add(foot))
 	wrap.Add(t)
 	sec.Add(wrap)
@@ -454,6 +467,27 @@ func comparisonView(o *Outcome) *Node {
 		sec.Add(Wrap("p", "Some methods cannot apportion these numbers:", "class", "sc-hint"), ul)
 	}
 	return sec
+}
+
+// methodPicker lets a reader on a narrow screen choose which method's
+// column the comparison shows: radio buttons that the stylesheet alone
+// obeys (no script), shown only where the whole table would not fit. The
+// calculator's own method is chosen first.
+func methodPicker(id string, ms []engine.Method, cur engine.Method) *Node {
+	shown := ms[0]
+	for _, m := range ms {
+		if m == cur {
+			shown = m
+		}
+	}
+	f := El("fieldset", "class", "sc-picker", "data-role", "method-picker")
+	f.Add(Wrap("legend", "Method shown"))
+	for _, m := range ms {
+		rid := id + "-shown-" + m.String()
+		in := El("input", "type", "radio", "name", id+"-shown", "id", rid, "value", m.String()).SetIf(m == shown, "checked", "")
+		f.Add(El("label", "class", "sc-check", "for", rid).Add(in, Text(m.Name())))
+	}
+	return f
 }
 
 func yesNo(b bool) string {

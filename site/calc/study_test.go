@@ -147,7 +147,7 @@ func TestLiveGrowth(t *testing.T) {
 	for _, w := range []string{
 		`<tr data-growth-unit="Sarrow" data-before="2" data-after="1" class="sc-lost">`, `<tr data-growth-unit="Caldmoor" data-before="4" data-after="5" class="sc-won">`,
 		"+3.01%", "+2.00%", `data-paradox="population" data-unit="Sarrow" data-gainer="Caldmoor"`, "8,230,425 (+0.36%)",
-		`<tr data-method="webster"><th scope="row">Webster (Sainte-Laguë)</th><td class="num" data-paradoxes="0">0</td>`,
+		`<tr data-method="webster"><th scope="row" data-label="Method">Webster (Sainte-Laguë)</th><td class="num" data-paradoxes="0" data-label="Paradoxes">0</td>`,
 	} {
 		if !strings.Contains(h, w) {
 			t.Errorf("growth output lacks %s", w)

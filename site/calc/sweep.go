@@ -7,9 +7,9 @@ import (
 
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
+	. "seatsmith/engine/render"
 	"seatsmith/engine/report"
 	"seatsmith/site/claim"
-	. "seatsmith/engine/render"
 )
 
 // A SweepOutcome is a sweep block's scenario apportioned at every house
@@ -267,7 +267,7 @@ func sweepTables(so *SweepOutcome) *Node {
 				off[[2]int{v.House - set.From, v.Unit}] = "below quota"
 			}
 		}
-		wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Seats by "+m.Name()+" at each house size (scrolls sideways)")
+		wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Seats by "+m.Name()+" at each house size")
 		t := El("table", "class", "sc-sweep-table", "data-method", m.String())
 		t.Add(Wrap("caption", m.Name()))
 		head := El("tr").Add(Wrap("th", "House size", "scope", "col"))
@@ -313,7 +313,7 @@ func sweepTables(so *SweepOutcome) *Node {
 			prev = z.Seats
 		}
 		t.Add(body)
-		wrap.Add(t)
+		wrap.Add(Stackable(t))
 		d.Add(wrap)
 	}
 	return d

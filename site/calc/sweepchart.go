@@ -23,7 +23,7 @@ import (
 const (
 	panelW      = 340.0
 	panelH      = 214.0
-	panelLeft   = 34.0
+	panelLeft   = 36.0
 	panelRight  = 10.0
 	panelTop    = 12.0
 	panelBottom = 38.0
@@ -126,8 +126,10 @@ func sweepPanel(m engine.Method, sw *engine.SweepResult, ps []analysis.Alabama, 
 		axis.Add(Wrap("text", strconv.Itoa(int(v)), "x", x, "y", f1(panelTop+plotH+15), "text-anchor", "middle", "class", "sc-tick"))
 	}
 	axis.Add(Wrap("text", "house size", "x", f1(panelLeft+plotW/2), "y", f1(panelH-6), "text-anchor", "middle", "class", "sc-axis-label"))
-	axis.Add(Wrap("text", "seats", "x", "10", "y", f1(panelTop+plotH/2), "text-anchor", "middle", "class", "sc-axis-label",
-		"transform", "rotate(-90 10 "+f1(panelTop+plotH/2)+")"))
+	// Turned upright, the label's ascent reaches left of its x: 13 keeps
+	// it inside at the larger text of a narrow page.
+	axis.Add(Wrap("text", "seats", "x", "13", "y", f1(panelTop+plotH/2), "text-anchor", "middle", "class", "sc-axis-label",
+		"transform", "rotate(-90 13 "+f1(panelTop+plotH/2)+")"))
 	svg.Add(axis)
 	// A short mark at the top of each size with a tie.
 	for k := range sw.Sizes {

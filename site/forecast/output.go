@@ -5,8 +5,8 @@ import (
 	"strconv"
 
 	"seatsmith/engine/projection"
-	"seatsmith/engine/report"
 	. "seatsmith/engine/render"
+	"seatsmith/engine/report"
 )
 
 // Form is the block's controls: the target date, growth model, error
@@ -207,7 +207,7 @@ func table(s *projection.Summary, id string) *Node {
 		tr.Add(dist)
 		body.Add(tr)
 	}
-	return t.Add(body)
+	return Stackable(t.Add(body))
 }
 
 // Chart geometry, in SVG user units: about a phone's width, so that its
@@ -262,7 +262,7 @@ func chart(s *projection.Summary, id string) *Node {
 			}
 			x += w
 		}
-		g.Add(Wrap("text", shareText(u.Lose, n)+" / "+shareText(u.Gain, n), "x", num(chartW), "y", num(y+rowH/2+4), "text-anchor", "end", "class", "fc-odds"))
+		g.Add(Wrap("text", shareText(u.Lose, n)+" / "+shareText(u.Gain, n), "x", num(chartW-2), "y", num(y+rowH/2+4), "text-anchor", "end", "class", "fc-odds"))
 		svg.Add(g)
 	}
 	ly := chartTop + rowH*float64(len(s.Units)) + 10
