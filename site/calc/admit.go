@@ -45,7 +45,7 @@ func runAdmit(o *Outcome, st *study) {
 		return
 	}
 	o.Admit = a
-	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, st.context())
+	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, o.Block.Count.claimWords(st.context()))
 }
 
 // admitProblem places an error about the admitted unit (unit n of the
@@ -76,9 +76,9 @@ func admitOutput(o *Outcome, out *Node) {
 	p.Add(Wrap("strong", m.Name()))
 	p.AddText(": admitting ")
 	p.Add(Wrap("strong", r.Name))
-	p.AddText(" (population " + Group(r.People.String()) + ") with ")
+	p.AddText(" (" + o.Block.Count.Of(Group(r.People.String())) + ") with ")
 	p.Add(Wrap("strong", plural(r.Added, "added seat")))
-	p.AddText(" raises the house from " + strconv.Itoa(r.House) + " to " + strconv.Itoa(r.NewHouse) + ". Its fair share, its population × " +
+	p.AddText(" raises the house from " + strconv.Itoa(r.House) + " to " + strconv.Itoa(r.NewHouse) + ". Its fair share, its " + o.Block.Count.Noun() + " × " +
 		strconv.Itoa(r.House) + " ÷ " + Group(unitsTotal(o.Scenario.Units)) + ", is " + analysis.Decimal(r.FairShare) + " seats")
 	if a.Added < 0 {
 		p.AddText(", which rounds to " + strconv.Itoa(r.Added) + ".")
@@ -95,7 +95,7 @@ func admitOutput(o *Outcome, out *Node) {
 	t := El("table", "class", "sc-admit", "data-role", "admit", "data-method", m.String())
 	t.Add(Wrap("caption", "Seats by "+m.Name()+" before and after admitting "+r.Name, "id", o.Block.ID+"-admit-caption"))
 	head := El("tr")
-	for _, c := range []string{"Unit", "Seats in " + strconv.Itoa(r.House), "Seats in " + strconv.Itoa(r.NewHouse), "Change", "Population"} {
+	for _, c := range []string{"Unit", "Seats in " + strconv.Itoa(r.House), "Seats in " + strconv.Itoa(r.NewHouse), "Change", o.Block.Count.Head()} {
 		head.Add(Wrap("th", c, "scope", "col"))
 	}
 	t.Add(El("thead").Add(head))

@@ -76,6 +76,10 @@ type Block struct {
 	// Compare lists the methods the comparison shows; for growth and
 	// admit blocks, the methods whose findings are summarised.
 	Compare []engine.Method
+	// Count is what the units' numbers count (the block's count member):
+	// the calculator speaks of votes, students or applications instead of
+	// population where the block says so.
+	Count Count
 }
 
 // ParseBlock reads a calculator block from its JSON document. Errors are
@@ -89,12 +93,17 @@ func ParseBlock(file, id string, mode Mode, v *jsondoc.Value) (*Block, error) {
 	doc.Line = v.Line
 	for _, f := range v.Fields {
 		switch f.Key {
-		case "claims", "compare":
+		case "claims", "compare", "count":
 		default:
 			doc.Fields = append(doc.Fields, f)
 		}
 	}
 	b.Doc = doc
+	c, err := readCount(file, v.Get("count"))
+	if err != nil {
+		return nil, err
+	}
+	b.Count = c
 	sdoc, st, ierr := readStudy(file, doc, mode)
 	if ierr != nil {
 		return nil, ierr

@@ -72,7 +72,7 @@ func runGrowth(o *Outcome, st *study) {
 		return
 	}
 	o.Growth = g
-	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, st.context())
+	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, o.Block.Count.claimWords(st.context()))
 }
 
 // laterProblem places an error about the later populations at their
@@ -84,7 +84,7 @@ func laterProblem(err error) *Problem {
 		return &Problem{Field: f, Msg: placeLabel(f) + ee.Msg}
 	}
 	p := problemOf(err)
-	p.Msg = "With the later populations: " + p.Msg
+	p.Msg = "With the later counts: " + p.Msg
 	return p
 }
 
@@ -101,15 +101,15 @@ func growthOutput(o *Outcome, out *Node) {
 	p.Add(Wrap("strong", m.Name()))
 	p.AddText(" divides ")
 	p.Add(Wrap("strong", plural(r.Before.Seats, "seat")))
-	p.AddText(" among " + plural(len(r.Before.Units), "unit") + " twice: with the first populations, totalling " + Group(r.Before.Total) +
+	p.AddText(" among " + plural(len(r.Before.Units), "unit") + " twice: with the first " + o.Block.Count.Nouns() + ", totalling " + Group(r.Before.Total) +
 		", and with the later ones, totalling " + Group(r.After.Total) + " (" + growthText(r.Before.Total, r.After.Total) + ").")
 	out.Add(p)
 
 	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-labelledby", o.Block.ID+"-growth-caption")
 	t := El("table", "class", "sc-growth", "data-role", "growth", "data-method", m.String())
-	t.Add(Wrap("caption", "Seats by "+m.Name()+" with the first and the later populations, "+plural(r.Before.Seats, "seat"), "id", o.Block.ID+"-growth-caption"))
+	t.Add(Wrap("caption", "Seats by "+m.Name()+" with the first and the later "+o.Block.Count.Nouns()+", "+plural(r.Before.Seats, "seat"), "id", o.Block.ID+"-growth-caption"))
 	head := El("tr")
-	for _, c := range []string{"Unit", "Seats, first", "Seats, later", "Change", "Growth", "First population", "Later population"} {
+	for _, c := range []string{"Unit", "Seats, first", "Seats, later", "Change", "Growth", o.Block.Count.Head() + ", first", o.Block.Count.Head() + ", later"} {
 		head.Add(Wrap("th", c, "scope", "col"))
 	}
 	t.Add(El("thead").Add(head))
@@ -136,7 +136,7 @@ func growthOutput(o *Outcome, out *Node) {
 		Wrap("td", growthText(r.Before.Total, r.After.Total), "class", "num"), Wrap("td", Group(r.Before.Total), "class", "num"), Wrap("td", Group(r.After.Total), "class", "num"))))
 	wrap.Add(Stackable(t))
 	out.Add(wrap)
-	out.Add(Wrap("p", "Growth: the later population divided by the first, less one, compared between units exactly (the percentages are rounded for display).", "class", "sc-hint"))
+	out.Add(Wrap("p", "Growth: the later "+o.Block.Count.Noun()+" divided by the first, less one, compared between units exactly (the percentages are rounded for display).", "class", "sc-hint"))
 
 	sec := El("section", "class", "sc-findings", "data-role", "population", "aria-label", "Population paradoxes found")
 	if len(r.Findings) == 0 {
@@ -161,8 +161,8 @@ func growthOutput(o *Outcome, out *Node) {
 // growthMethods summarises every method's findings.
 func growthMethods(o *Outcome) *Node {
 	g := o.Growth
-	sec := El("section", "class", "sc-compare", "data-role", "growth-compare", "aria-label", "Every method with these populations")
-	sec.Add(Wrap("h3", "Every method with these two population sets"))
+	sec := El("section", "class", "sc-compare", "data-role", "growth-compare", "aria-label", "Every method with these "+o.Block.Count.Nouns())
+	sec.Add(Wrap("h3", "Every method with these two sets of "+o.Block.Count.Nouns()))
 	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Population paradoxes by method")
 	t := El("table", "class", "sc-method-summary")
 	t.Add(El("thead").Add(El("tr").Add(Wrap("th", "Method", "scope", "col"), Wrap("th", "Paradoxes", "scope", "col"),

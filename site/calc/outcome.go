@@ -94,7 +94,11 @@ type Options struct {
 }
 
 // RunWith is Run leaving out what opt says.
-func RunWith(b *Block, doc *jsondoc.Value, opt Options) *Outcome { return run(b, doc, opt) }
+func RunWith(b *Block, doc *jsondoc.Value, opt Options) *Outcome {
+	o := run(b, doc, opt)
+	o.Problem = b.Count.relabel(o.Problem)
+	return o
+}
 
 // costlyMargins reports whether s's margins need a search.
 func costlyMargins(s *engine.Scenario) bool {
@@ -151,7 +155,7 @@ func run(b *Block, doc *jsondoc.Value, opt Options) *Outcome {
 	}
 	o.Result = res
 	o.Comparison = report.Compare(src.Scenario, b.Compare, 0)
-	o.Verdicts = claim.Check(src.Scenario, b.Claims)
+	o.Verdicts = claim.CheckIn(src.Scenario, b.Claims, b.Count.claimWords(claim.Context{}))
 	return o
 }
 

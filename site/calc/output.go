@@ -7,6 +7,7 @@ import (
 	"seatsmith/engine"
 	. "seatsmith/engine/render"
 	"seatsmith/engine/report"
+	"seatsmith/site/claim"
 )
 
 // State is the calculator's data-state for an outcome rendered live:
@@ -80,7 +81,7 @@ func summary(o *Outcome) *Node {
 	p.Add(Wrap("strong", r.Method.Name()))
 	p.AddText(" divides ")
 	p.Add(Wrap("strong", plural(r.Seats, "seat")))
-	p.AddText(" among " + plural(len(r.Units), "unit") + " with a total population of " + Group(r.Total) + ".")
+	p.AddText(" among " + plural(len(r.Units), "unit") + " with " + o.Block.Count.Total(Group(r.Total)) + ".")
 	excluded := 0
 	for _, u := range r.Units {
 		if u.Excluded {
@@ -196,7 +197,7 @@ func resultsTable(o *Outcome) *Node {
 	t := El("table", "class", "sc-results", "data-role", "results", "data-method", r.Method.String(), "data-house", strconv.Itoa(r.Seats))
 	t.Add(Wrap("caption", "Seats by "+r.Method.Name()+", "+plural(r.Seats, "seat"), "id", o.Block.ID+"-results-caption"))
 	head := El("tr")
-	cols := []string{"Unit", "Seats", "Quota", "Quota check", "Population"}
+	cols := []string{"Unit", "Seats", "Quota", "Quota check", o.Block.Count.Head()}
 	// Remainders are the heart of a largest-remainder result, so every
 	// calculator shows them; divisor priorities only the full one.
 	extra := full || !div
@@ -260,7 +261,10 @@ func resultsTable(o *Outcome) *Node {
 		ask.AddText("This method's margins take a search of many exact apportionments, which can take a while for these numbers. ")
 		ask.Add(Wrap("button", "Compute the margins", "type", "button", "data-action", "margins"))
 	}
-	legend.AddText("Quota: the unit's exact share of the seats, population × seats ÷ total. Gain margin: the fewest extra people who would win the unit one more seat outright, all others fixed; lose margin: the fewest people whose loss, all others fixed, would cost it a seat or leave its last seat tied. A dash means no change of its population alone does it.")
+	c := o.Block.Count
+	legend.AddText("Quota: the unit's exact share of the seats, " + c.Noun() + " × seats ÷ total. Gain margin: the fewest extra " + c.People() +
+		" " + c.who() + " would win the unit one more seat outright, all others fixed; lose margin: the fewest " + c.People() +
+		" whose loss, all others fixed, would cost it a seat or leave its last seat tied. A dash means no change of its " + c.Noun() + " alone does it.")
 	return El("div", "class", "sc-results-wrap").Add(wrap, ask, legend)
 }
 
@@ -277,7 +281,7 @@ func explanation(o *Outcome) *Node {
 			if !d.High.Infinite {
 				hi = valueText(&d.High)
 			}
-			p.AddText("Divide each population by any divisor D between ")
+			p.AddText("Divide each unit's " + o.Block.Count.Noun() + " by any divisor D between ")
 			p.Add(Wrap("strong", valueText(&d.Low), "data-role", "divisor-low"))
 			p.AddText(" and ")
 			p.Add(Wrap("strong", hi, "data-role", "divisor-high"))
@@ -286,7 +290,7 @@ func explanation(o *Outcome) *Node {
 			p.AddText(", checked exactly.")
 		}
 		sec.Add(p)
-		sec.Add(Wrap("p", signpostText(r.Method), "class", "sc-hint"))
+		sec.Add(Wrap("p", signpostText(r.Method, o.Block.Count), "class", "sc-hint"))
 		if len(r.Beyond) > 0 {
 			ul := El("ul", "class", "sc-beyond", "data-role", "beyond")
 			for _, a := range r.Beyond {
@@ -305,7 +309,7 @@ func explanation(o *Outcome) *Node {
 		p := El("p", "data-role", "lr-quota")
 		p.AddText("The " + name + " is ")
 		p.Add(Wrap("strong", valueText(r.Quota)))
-		p.AddText(" people per seat. Every unit first gets the whole part of its population divided by the quota; the seats left over go to the largest remainders.")
+		p.AddText(" " + o.Block.Count.People() + " per seat. Every unit first gets the whole part of its " + o.Block.Count.Noun() + " divided by the quota; the seats left over go to the largest remainders.")
 		if r.Passes > 1 {
 			p.AddText(" Units whose result broke a minimum or maximum were fixed at that bound and set aside; this took " + plural(r.Passes, "pass") + ".")
 		}
@@ -329,18 +333,18 @@ func explanation(o *Outcome) *Node {
 	return sec
 }
 
-func signpostText(m engine.Method) string {
+func signpostText(m engine.Method, c Count) string {
 	switch m {
 	case engine.Jefferson:
 		return "Jefferson (D'Hondt) rounds down: a unit's quotient must reach a + 1 before it gets a + 1 seats."
 	case engine.Webster:
 		return "Webster (Sainte-Laguë) rounds at one half: a unit gets a + 1 seats once its quotient passes a + ½."
 	case engine.Adams:
-		return "Adams rounds up: any quotient above a gives a + 1 seats, so every unit with people gets a seat first."
+		return "Adams rounds up: any quotient above a gives a + 1 seats, so every unit with " + c.People() + " gets a seat first."
 	case engine.Dean:
 		return "Dean rounds at the harmonic mean 2a(a+1)/(2a+1) of a and a + 1."
 	case engine.HuntingtonHill:
-		return "Huntington–Hill rounds at the geometric mean √(a(a+1)) of a and a + 1, so every unit with people gets a seat first."
+		return "Huntington–Hill rounds at the geometric mean √(a(a+1)) of a and a + 1, so every unit with " + c.People() + " gets a seat first."
 	case engine.ModifiedSainteLague:
 		return "Modified Sainte-Laguë is Webster with the first signpost raised from ½ to 0.7, which makes a first seat harder to win."
 	}
@@ -509,7 +513,7 @@ func claimsView(o *Outcome) *Node {
 		c := &b.Claims[i]
 		text := c.Text
 		if text == "" {
-			text = c.Statement(b.Source.Scenario.Method, b.Source.Scenario.Seats) + "."
+			text = c.StatementIn(b.Source.Scenario.Method, b.Source.Scenario.Seats, b.Count.claimWords(claim.Context{})) + "."
 		}
 		li := El("li", "data-claim", c.ID, "id", b.ID+"-claim-"+c.ID)
 		if o.Verdicts == nil {

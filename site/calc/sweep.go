@@ -40,7 +40,7 @@ func runSweep(o *Outcome, st *study) {
 		}
 	}
 	o.Sweep = so
-	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, st.context())
+	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, o.Block.Count.claimWords(st.context()))
 }
 
 // sweepProblem places a sweep's error at the range's fields: a sweep has
@@ -87,7 +87,7 @@ func sweepSummary(o *Outcome) *Node {
 	p.Add(Wrap("strong", plural(len(set.Methods), "method")))
 	p.AddText(" at every house size from ")
 	p.Add(Wrap("strong", strconv.Itoa(set.From)+" to "+strconv.Itoa(set.To)))
-	p.AddText(": " + plural(len(f.Names), "unit") + " with a total population of " + Group(totalText(f)) + ".")
+	p.AddText(": " + plural(len(f.Names), "unit") + " with " + o.Block.Count.Total(Group(totalText(f))) + ".")
 	al, qv := o.Sweep.SweepCount()
 	p.AddText(" Found: " + plural(al, "Alabama paradox") + " and " + plural(qv, "quota violation") + ".")
 	if ok < len(set.Methods) {
