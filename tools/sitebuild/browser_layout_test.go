@@ -4,9 +4,9 @@ package main
 // calculators prerendered (JavaScript off) and live. Nothing a calculator
 // shows may reach past the calculator's box, and nothing drawn in a chart
 // past the chart: a reader on a phone must never scroll sideways or miss a
-// label. Screenshots of every page at every width are written to the folder
-// SEATSMITH_ARTIFACTS names (a fresh temporary folder otherwise; the test
-// logs which).
+// label. Screenshots of every page at every width (JPEG, live, as the page
+// opens; prerendered at 390 px) are written to the folder SEATSMITH_ARTIFACTS names (a fresh temporary
+// folder otherwise; the test logs which).
 
 import (
 	"context"
@@ -24,6 +24,7 @@ import (
 
 	"github.com/chromedp/cdproto/emulation"
 	"github.com/chromedp/chromedp"
+	"github.com/chromedp/chromedp/kb"
 )
 
 // layoutWidths are the viewport widths every page is held to: a small
@@ -204,11 +205,33 @@ func offenderReport(found []offender) string {
 // opening.
 func (tb *tab) openFolds(live bool) {
 	tb.t.Helper()
-	tb.do(chromedp.Evaluate[chromedp.Void](`for (const d of document.querySelectorAll('` + calcRoots + `')) for (const s of d.querySelectorAll('details')) s.open = true`))
+	tb.do(chromedp.Evaluate[chromedp.Void](`{
+  const ds = [...document.querySelectorAll('` + calcRoots + `')].flatMap(r => [...r.querySelectorAll('details')]);
+  window.__scFolds = window.__scFolds || ds.map(d => d.open);
+  for (const d of ds) d.open = true;
+}`))
 	if live {
 		tb.waitFor("every seat order", `!document.querySelector('[data-role="order-pending"]')`)
 	}
-	time.Sleep(100 * time.Millisecond)
+	tb.settle()
+}
+
+// closeFolds puts every folded section back as the page opened it.
+func (tb *tab) closeFolds() {
+	tb.t.Helper()
+	tb.do(chromedp.Evaluate[chromedp.Void](`{
+  const ds = [...document.querySelectorAll('` + calcRoots + `')].flatMap(r => [...r.querySelectorAll('details')]);
+  (window.__scFolds || []).forEach((open, i) => { if (ds[i]) ds[i].open = open; });
+}`))
+	tb.settle()
+}
+
+// settle lays the page out again after a change and gives it a moment to
+// paint. (Animation frames would be neater, but a page without scripts
+// runs none.)
+func (tb *tab) settle() {
+	tb.t.Helper()
+	tb.do(chromedp.Evaluate[chromedp.Void](`document.documentElement.getBoundingClientRect()`), chromedp.Sleep(100*time.Millisecond))
 }
 
 // setWidth emulates a viewport of width CSS pixels: a phone (touch, mobile
@@ -282,12 +305,28 @@ func TestBrowserLayout(t *testing.T) {
 		live := state == "live"
 		for _, name := range sitePages(t) {
 			t.Run(state+"/"+name, func(t *testing.T) {
-				for _, w := range widthsToTest(t) {
-					tb := openPage(t, bctx, origin, name, w, live)
-					if n := eval[int](tb, `document.querySelectorAll('`+calcRoots+`').length`); n == 0 {
-						t.Fatalf("no calculator on %s", name)
+				ws := widthsToTest(t)
+				// One page at each width in turn: the calculator's layout
+				// goes by its width alone, so the page need not load again.
+				tb := openPage(t, bctx, origin, name, ws[0], live)
+				if n := eval[int](tb, `document.querySelectorAll('`+calcRoots+`').length`); n == 0 {
+					t.Fatalf("no calculator on %s", name)
+				}
+				for i, w := range ws {
+					if i > 0 {
+						tb.setWidth(w)
+						tb.closeFolds()
 					}
 					first := tb.overflowing()
+					if live || w == 390 {
+						// The prerendered page differs from the live one only
+						// in its disabled controls: one width shows it.
+						shot, err := chromedp.Run(tb.ctx, chromedp.FullScreenshot(85))
+						if err != nil {
+							t.Fatalf("screenshot: %v", err)
+						}
+						saveArtifact(t, fmt.Sprintf("%s-%s-%d.jpg", name, state, w), shot)
+					}
 					tb.openFolds(live)
 					opened := tb.overflowing()
 					mu.Lock()
@@ -301,11 +340,6 @@ func TestBrowserLayout(t *testing.T) {
 					if len(opened) > 0 {
 						t.Errorf("%d px: %d calculator elements reach past their box with every folded section open:%s", w, len(opened), offenderReport(opened))
 					}
-					png, err := chromedp.Run(tb.ctx, chromedp.FullScreenshot(100))
-					if err != nil {
-						t.Fatalf("screenshot: %v", err)
-					}
-					saveArtifact(t, fmt.Sprintf("%s-%s-%d.png", name, state, w), png)
 				}
 			})
 		}
@@ -318,4 +352,60 @@ func TestBrowserLayout(t *testing.T) {
 	for _, k := range keys {
 		t.Logf("elements past their box, %s: %d", k, totals[k])
 	}
+}
+
+// shownMethodsJS lists the methods whose column the comparison of calculator
+// id shows.
+const shownMethodsJS = `[...document.querySelectorAll('#%s .sc-comparison thead th[data-method]')].filter(th => getComputedStyle(th).display !== 'none').map(th => th.dataset.method)`
+
+// TestBrowserMethodPicker chooses the method a phone's comparison shows,
+// by keyboard with the calculator live and by a tap with JavaScript off;
+// at desktop width the picker is out of sight and every method shows.
+func TestBrowserMethodPicker(t *testing.T) {
+	chromiumPath(t)
+	dir := builtSite(t)
+	h, err := siteHandler(dir)
+	if err != nil {
+		t.Fatal(err)
+	}
+	srv := httptest.NewServer(h)
+	defer srv.Close()
+	bctx := browser(t)
+	origin := srv.URL + "/"
+	shown := func(tb *tab) []string { return eval[[]string](tb, fmt.Sprintf(shownMethodsJS, "assembly")) }
+	same := func(got []string, want ...string) bool { return strings.Join(got, " ") == strings.Join(want, " ") }
+
+	t.Run("keyboard", func(t *testing.T) {
+		tb := openPage(t, bctx, origin, "assembly", 390, true)
+		if got := shown(tb); !same(got, "huntington-hill") {
+			t.Fatalf("the comparison shows %v, want the calculator's own method alone", got)
+		}
+		tb.do(chromedp.Focus(chromedp.CSS(`#assembly-shown-huntington-hill`)), chromedp.KeyEvent(kb.ArrowDown))
+		if got := shown(tb); !same(got, "modified-sainte-lague") {
+			t.Errorf("after the arrow key the comparison shows %v", got)
+		}
+		// An edit keeps the reader's choice.
+		tb.typeInto(`#assembly [data-field="seats"]`, "41")
+		tb.waitFor("41 seats", `document.querySelector('#assembly table.sc-results').dataset.house === '41'`)
+		if got := shown(tb); !same(got, "modified-sainte-lague") {
+			t.Errorf("after an edit the comparison shows %v", got)
+		}
+		tb.checkClean(origin)
+	})
+	t.Run("without JavaScript", func(t *testing.T) {
+		tb := openPage(t, bctx, origin, "assembly", 320, false)
+		tb.do(chromedp.Click(chromedp.CSS(`label[for="assembly-shown-jefferson"]`)))
+		if got := shown(tb); !same(got, "jefferson") {
+			t.Errorf("after a tap the comparison shows %v", got)
+		}
+	})
+	t.Run("desktop", func(t *testing.T) {
+		tb := openPage(t, bctx, origin, "assembly", 1280, true)
+		if got := shown(tb); len(got) != 8 {
+			t.Errorf("the desktop comparison shows %v", got)
+		}
+		if eval[bool](tb, `document.querySelector('#assembly [data-role="method-picker"]').checkVisibility()`) {
+			t.Error("the picker shows at desktop width")
+		}
+	})
 }
