@@ -11,7 +11,6 @@ package main
 import (
 	"encoding/json"
 	"fmt"
-	"net/http/httptest"
 	"os"
 	"path/filepath"
 	"strings"
@@ -84,15 +83,7 @@ func axeReport(vs []axeViolation) string {
 func TestBrowserAxe(t *testing.T) {
 	chromiumPath(t)
 	src := axeSource(t)
-	dir := builtSite(t)
-	h, err := siteHandler(dir)
-	if err != nil {
-		t.Fatal(err)
-	}
-	srv := httptest.NewServer(h)
-	defer srv.Close()
-	bctx := browser(t)
-	origin := srv.URL + "/"
+	bctx, origin := servedSite(t)
 	runs := []struct {
 		state  string
 		widths []int64

@@ -245,6 +245,20 @@ func (tb *tab) setWidth(w int64) {
 	}
 }
 
+// servedSite builds the site, serves it and starts a browser for t; it
+// returns the browser's context and the site's origin.
+func servedSite(t *testing.T) (context.Context, string) {
+	t.Helper()
+	chromiumPath(t)
+	h, err := siteHandler(builtSite(t))
+	if err != nil {
+		t.Fatal(err)
+	}
+	srv := httptest.NewServer(h)
+	t.Cleanup(srv.Close)
+	return browser(t), srv.URL + "/"
+}
+
 // sitePages lists the site's pages by name.
 func sitePages(t testing.TB) []string {
 	t.Helper()
@@ -287,16 +301,7 @@ func openPage(t *testing.T, bctx context.Context, origin, name string, w int64, 
 // their chart), with the calculators prerendered and live, as the page
 // opens and with every folded section open.
 func TestBrowserLayout(t *testing.T) {
-	chromiumPath(t)
-	dir := builtSite(t)
-	h, err := siteHandler(dir)
-	if err != nil {
-		t.Fatal(err)
-	}
-	srv := httptest.NewServer(h)
-	defer srv.Close()
-	bctx := browser(t)
-	origin := srv.URL + "/"
+	bctx, origin := servedSite(t)
 	art := artifactsDir(t)
 	t.Logf("screenshots: %s", art)
 	totals := map[string]int{}
@@ -362,16 +367,7 @@ const shownMethodsJS = `[...document.querySelectorAll('#%s .sc-comparison thead 
 // by keyboard with the calculator live and by a tap with JavaScript off;
 // at desktop width the picker is out of sight and every method shows.
 func TestBrowserMethodPicker(t *testing.T) {
-	chromiumPath(t)
-	dir := builtSite(t)
-	h, err := siteHandler(dir)
-	if err != nil {
-		t.Fatal(err)
-	}
-	srv := httptest.NewServer(h)
-	defer srv.Close()
-	bctx := browser(t)
-	origin := srv.URL + "/"
+	bctx, origin := servedSite(t)
 	shown := func(tb *tab) []string { return eval[[]string](tb, fmt.Sprintf(shownMethodsJS, "assembly")) }
 	same := func(got []string, want ...string) bool { return strings.Join(got, " ") == strings.Join(want, " ") }
 
