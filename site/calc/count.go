@@ -86,9 +86,10 @@ func (c Count) People() string {
 	return c.id
 }
 
-// who is the relative pronoun for People: "people who", "votes that".
+// who is the relative pronoun for People: "people who", "students
+// who", "votes that".
 func (c Count) who() string {
-	if c.people() {
+	if c.people() || c.id == "students" {
 		return "who"
 	}
 	return "that"
