@@ -130,7 +130,7 @@ func admitOutput(o *Outcome, out *Node) {
 	} else {
 		sec.Add(Wrap("h3", "No paradox under "+m.Name()))
 	}
-	f := Wrap("p", r.Text(), "data-paradox", "new-states", "data-holds", strconv.FormatBool(r.Paradox()))
+	f := Wrap("p", o.Block.Count.claimWords(claim.Context{}).NewStatesText(r), "data-paradox", "new-states", "data-holds", strconv.FormatBool(r.Paradox()))
 	sec.Add(f)
 	if r.Paradox() && r.NewSeats != r.Added {
 		sec.Add(Wrap("p", r.Name+" itself receives "+plural(r.NewSeats, "seat")+", not the "+strconv.Itoa(r.Added)+" added for it, so the others must make up the difference. The paradox in its pure form is when the new unit receives exactly the seats added for it and the old units' seats still change.", "class", "sc-hint"))

@@ -83,9 +83,11 @@ type Block struct {
 }
 
 // ParseBlock reads a calculator block from its JSON document. Errors are
-// *input.Error values naming file, line and field.
-func ParseBlock(file, id string, mode Mode, v *jsondoc.Value) (*Block, error) {
+// *input.Error values naming file, line and field, in the block's words
+// once its count is known.
+func ParseBlock(file, id string, mode Mode, v *jsondoc.Value) (_ *Block, err error) {
 	b := &Block{File: file, ID: id, Mode: mode}
+	defer func() { err = b.Count.speakErr(err) }()
 	if v == nil || v.Kind != jsondoc.Object {
 		return nil, &input.Error{File: file, Line: line(v), Msg: "a calculator block holds one JSON object: a scenario with seats, method and units"}
 	}

@@ -1,6 +1,7 @@
 package calc
 
 import (
+	"errors"
 	"strings"
 
 	"seatsmith/engine/input"
@@ -115,21 +116,62 @@ func (c Count) Of(n string) string {
 
 // claimWords are the words claims use for this count.
 func (c Count) claimWords(ctx claim.Context) claim.Context {
-	ctx.Noun, ctx.People = c.Noun(), c.People()
+	ctx.Noun, ctx.Nouns, ctx.People = c.Noun(), c.Nouns(), c.People()
 	return ctx
 }
 
-// relabel names the count in a problem placed at a unit's count:
-// "Unit 3, votes: …" rather than "Unit 3, population: …".
+// Statement returns claim c in standard wording, in the block's words
+// (a margin in votes for a block that counts votes), for the block's own
+// method and house size.
+func (b *Block) Statement(c *claim.Claim) string {
+	return c.StatementIn(b.Source.Scenario.Method, b.Source.Scenario.Seats, b.Count.claimWords(claim.Context{}))
+}
+
+// speak rewrites the phrases of the scenario readers' and the engine's
+// messages that speak of population in the count's words: "\"x\" is not a
+// number of votes" rather than "\"x\" is not a population".
+func (c Count) speak(msg string) string {
+	if c.people() {
+		return msg
+	}
+	return strings.NewReplacer(
+		"is not a population", "is not a number of "+c.id,
+		"populations cannot be negative", c.id+" cannot be negative",
+		"every unit has a population of zero", "every unit has zero "+c.id,
+		"every unit taking part has a population of zero", "every unit taking part has zero "+c.id,
+		"have no population", "have no "+c.id,
+		"every population is written", "every count is written",
+		"the later population", "the later count",
+		"too few people", "too few "+c.id,
+		"units with people", "units with "+c.id,
+	).Replace(msg)
+}
+
+// speakErr is speak for an error of the scenario readers, which keeps its
+// file, line and field.
+func (c Count) speakErr(err error) error {
+	var ie *input.Error
+	if c.people() || !errors.As(err, &ie) {
+		return err
+	}
+	e := *ie
+	e.Msg = c.speak(e.Msg)
+	return &e
+}
+
+// relabel names the count in a problem: "Unit 3, votes: \"x\" is not a
+// number of votes" rather than "Unit 3, population: \"x\" is not a
+// population".
 func (c Count) relabel(p *Problem) *Problem {
 	if p == nil || c.people() {
 		return p
 	}
-	from := placeLabel(p.Field)
-	if !strings.Contains(from, "population") || !strings.HasPrefix(p.Msg, from) {
-		return p
-	}
 	q := *p
-	q.Msg = strings.Replace(from, "population", c.Noun(), 1) + strings.TrimPrefix(p.Msg, from)
+	msg, label := p.Msg, ""
+	if from := placeLabel(p.Field); from != "" && strings.HasPrefix(msg, from) {
+		label = strings.NewReplacer("later population", "later count", "population", c.Noun()).Replace(from)
+		msg = strings.TrimPrefix(msg, from)
+	}
+	q.Msg = label + c.speak(msg)
 	return &q
 }

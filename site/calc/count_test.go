@@ -162,3 +162,81 @@ func TestCountInStudies(t *testing.T) {
 		}
 	}
 }
+
+// A study block that counts students speaks of students in its findings
+// and in its claims' verdicts, not only in its own sentences.
+func TestCountInStudyFindings(t *testing.T) {
+	withCount := func(block string) string { return strings.Replace(block, "{", `{"count": "students", `, 1) }
+	cases := []struct {
+		mode, block string
+		want        []string
+	}{
+		{"admit", admitBlock, []string{"admitting Ostry Fen (350000 students, fair share 1.707199 seats"}},
+		{"growth", strings.Replace(growthBlock, `"unit": "Sarrow", "gainer": "Caldmoor"`, `"unit": "Orlen"`, 1),
+			[]string{"Orlen gets 13 seats with the first students and 13 with the later ones"}},
+	}
+	for _, c := range cases {
+		resp := Live(studyRequest(c.mode, withCount(c.block)))
+		if resp.Get("state").Text != "live" {
+			t.Fatalf("%s: %s", c.mode, jsondoc.Marshal(resp.Get("error")))
+		}
+		n, _ := render.FromDoc(resp.Get("output"))
+		text := visibleText(n)
+		for _, w := range c.want {
+			if !strings.Contains(text, w) {
+				t.Errorf("%s: the calculator never says %q", c.mode, w)
+			}
+		}
+		if m := regexp.MustCompile(`[^\n]*\b(population \d|populations|people)\b[^\n]*`).FindString(text); m != "" {
+			t.Errorf("%s: the calculator still speaks of population: %q", c.mode, m)
+		}
+	}
+}
+
+// Messages about a unit's count, from the calculator's own readers and
+// from the scenario reader and the engine, speak of the block's count,
+// whether the block itself is wrong or the reader's edit.
+func TestCountInProblems(t *testing.T) {
+	cases := []struct {
+		mode, block, from, to string
+		want                  string
+	}{
+		{"compact", countBlock, `"population": 5200`, `"population": "lots"`, `"lots" is not a number of votes: write a whole number`},
+		{"compact", countBlock, `"population": 5200`, `"population": -5`, `"-5" is not a number of votes: votes cannot be negative`},
+		{"compact", countBlock, `"population": 5200}, {"name": "South", "population": 3900}, {"name": "East", "population": 900}`,
+			`"population": 0}, {"name": "South", "population": 0}, {"name": "East", "population": 0}`, "every unit has zero votes"},
+		{"growth", growthBlock, `"later": 997000`, `"later": "lots"`, `"Caldmoor": "lots" is not a number of votes`},
+		{"growth", growthBlock, `"later": 997000`, `"later": true`, `"Caldmoor": the later count must be a number`},
+		{"admit", admitBlock, `"population": 350000`, `"population": -4`, `"-4" is not a number of votes: votes cannot be negative`},
+	}
+	for _, c := range cases {
+		good := c.block
+		if !strings.Contains(good, `"count"`) {
+			good = strings.Replace(good, "{", `{"count": "votes", `, 1)
+		}
+		bad := strings.Replace(good, c.from, c.to, 1)
+		if bad == good {
+			t.Fatalf("%s: %s not in the block", c.mode, c.from)
+		}
+		// The block itself is wrong: the page shows why.
+		msg := Live(studyRequest(c.mode, bad)).Get("error").Get("message").Text
+		// The reader's edit is wrong: the message is placed at its field.
+		doc, err := jsondoc.Parse([]byte(bad))
+		if err != nil {
+			t.Fatal(err)
+		}
+		var keep []jsondoc.Field
+		for _, f := range doc.Fields {
+			if f.Key != "claims" && f.Key != "compare" && f.Key != "count" {
+				keep = append(keep, f)
+			}
+		}
+		doc.Fields = keep
+		edited := Live(studyRequest(c.mode, good, "scenario", doc)).Get("error").Get("message").Text
+		for _, m := range []string{msg, edited} {
+			if !strings.Contains(m, c.want) || strings.Contains(m, "is not a population") || strings.Contains(m, "population of zero") {
+				t.Errorf("%s %s: message %q, want %q", c.mode, c.to, m, c.want)
+			}
+		}
+	}
+}

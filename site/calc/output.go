@@ -7,7 +7,6 @@ import (
 	"seatsmith/engine"
 	. "seatsmith/engine/render"
 	"seatsmith/engine/report"
-	"seatsmith/site/claim"
 )
 
 // State is the calculator's data-state for an outcome rendered live:
@@ -513,7 +512,7 @@ func claimsView(o *Outcome) *Node {
 		c := &b.Claims[i]
 		text := c.Text
 		if text == "" {
-			text = c.StatementIn(b.Source.Scenario.Method, b.Source.Scenario.Seats, b.Count.claimWords(claim.Context{})) + "."
+			text = b.Statement(c) + "."
 		}
 		li := El("li", "data-claim", c.ID, "id", b.ID+"-claim-"+c.ID)
 		if o.Verdicts == nil {

@@ -35,11 +35,12 @@ type Context struct {
 	// the block admits none.
 	Admit *engine.Unit
 	Added int
-	// Noun and People are the words for what the units' numbers count: a
-	// unit's count after "its" ("population", "votes") and what a margin
-	// measures ("people", "votes"). Empty, they are "population" and
-	// "people".
-	Noun, People string
+	// Noun, Nouns and People are the words for what the units' numbers
+	// count: a unit's count after "its" ("population", "votes"), the
+	// counts of several units ("populations", "votes") and what a margin
+	// measures ("people", "votes"). Empty, they are "population",
+	// "populations" and "people".
+	Noun, Nouns, People string
 }
 
 func (ctx Context) noun() string {
@@ -47,6 +48,13 @@ func (ctx Context) noun() string {
 		return "population"
 	}
 	return ctx.Noun
+}
+
+func (ctx Context) nouns() string {
+	if ctx.Nouns == "" {
+		return "populations"
+	}
+	return ctx.Nouns
 }
 
 func (ctx Context) people() string {
@@ -230,7 +238,7 @@ func (c *Claim) StatementIn(m engine.Method, h int, ctx Context) string {
 		}
 		return "Under " + m.Name() + ", " + c.Unit + " gets its lower or upper quota at every house size" + span
 	case PopulationParadox:
-		who := "a unit that grew more slowly"
+		who := "another unit"
 		if c.Gainer != "" {
 			who = c.Gainer
 		}
@@ -449,7 +457,7 @@ func (ch *checker) checkGrowth(c *Claim, m engine.Method, h int) Verdict {
 	t.Method, t.Seats = m, h
 	pr, err := analysis.FindPopulation(&s, &t)
 	if err != nil {
-		return Verdict{Found: "the two population sets cannot both be apportioned by " + m.Name() + " at " + plural(h, "seat") + ": " + errText(err)}
+		return Verdict{Found: "the first and the later " + ch.ctx.nouns() + " cannot both be apportioned by " + m.Name() + " at " + plural(h, "seat") + ": " + errText(err)}
 	}
 	var hits []analysis.Population
 	for _, f := range pr.Findings {
@@ -461,7 +469,7 @@ func (ch *checker) checkGrowth(c *Claim, m engine.Method, h int) Verdict {
 		if len(hits) > 0 {
 			return Verdict{Holds: true, Found: strings.TrimSuffix(hits[0].Text(), ".")}
 		}
-		found := c.Unit + " gets " + plural(seatsOf(pr.Before, c.Unit), "seat") + " with the first populations and " +
+		found := c.Unit + " gets " + plural(seatsOf(pr.Before, c.Unit), "seat") + " with the first " + ch.ctx.nouns() + " and " +
 			strconv.Itoa(seatsOf(pr.After, c.Unit)) + " with the later ones under " + m.Name() + " at " + plural(h, "seat")
 		if c.Gainer != "" {
 			found += ", and " + c.Gainer + " gets " + strconv.Itoa(seatsOf(pr.Before, c.Gainer)) + " and " + strconv.Itoa(seatsOf(pr.After, c.Gainer))
@@ -493,7 +501,18 @@ func (ch *checker) checkAdmit(c *Claim, m engine.Method, h int) Verdict {
 			changed = true
 		}
 	}
-	return Verdict{Holds: changed == (c.Kind == NewStates), Found: strings.TrimSuffix(r.Text(), ".")}
+	return Verdict{Holds: changed == (c.Kind == NewStates), Found: strings.TrimSuffix(ch.ctx.NewStatesText(r), ".")}
+}
+
+// NewStatesText is [analysis.NewStates.Text] in the words of the context:
+// the unit admitted with its votes rather than its population where the
+// block counts votes.
+func (ctx Context) NewStatesText(r *analysis.NewStates) string {
+	s := r.Text()
+	if ctx.noun() == "population" {
+		return s
+	}
+	return strings.Replace(s, "(population "+r.People.String()+",", "("+r.People.String()+" "+ctx.people()+",", 1)
 }
 
 func seatsOf(r *engine.Result, name string) int {
