@@ -101,7 +101,7 @@ func wideBars(r *engine.Result) *Node {
 		u := &r.Units[i]
 		y := top + float64(i)*rowH
 		g := El("g", "class", "sc-bar-row", "data-chart-unit", u.Name)
-		g.Add(Wrap("text", shortName(u.Name), "x", f1(labelW), "y", f1(y+barH-2), "text-anchor", "end", "class", "sc-label"))
+		g.Add(Wrap("text", shortName(u.Name, 17), "x", f1(labelW), "y", f1(y+barH-2), "text-anchor", "end", "class", "sc-label"))
 		barMarks(g, u, x, left, y, barH)
 		vx := x(float64(u.Seats))
 		if !u.Excluded {
@@ -152,7 +152,7 @@ func narrowBars(r *engine.Result) *Node {
 		y := top + float64(i)*rowH
 		g := El("g", "class", "sc-bar-row", "data-chart-unit", u.Name)
 		// Labels keep 2 units from the edges: their halo is that wide.
-		g.Add(Wrap("text", shortName(u.Name), "x", "2", "y", f1(y+labelY), "class", "sc-label"))
+		g.Add(Wrap("text", shortName(u.Name, 28), "x", "2", "y", f1(y+labelY), "class", "sc-label"))
 		g.Add(Wrap("text", strconv.Itoa(u.Seats), "x", f1(width-2), "y", f1(y+labelY), "text-anchor", "end", "class", "sc-value"))
 		barMarks(g, u, x, left, y+barY, barH)
 		svg.Add(g)
@@ -171,10 +171,12 @@ func tickStep(max, n float64) float64 {
 	return math.Pow(10, math.Ceil(math.Log10(max/n)))
 }
 
-func shortName(s string) string {
+// shortName cuts a unit's name to at most n characters, the last an
+// ellipsis when it is cut.
+func shortName(s string, n int) string {
 	r := []rune(s)
-	if len(r) > 17 {
-		return string(r[:16]) + "…"
+	if len(r) > n {
+		return string(r[:n-1]) + "…"
 	}
 	return s
 }
