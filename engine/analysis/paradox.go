@@ -115,10 +115,11 @@ type QuotaViolation struct {
 	Quota  *big.Rat
 	// Lower and Upper are floor and ceiling of Quota.
 	Lower, Upper int
-	// Bounds is set when minimums or maximums bind at this house size:
-	// some unit sits at its minimum above its quota, or at its maximum
-	// below it, so the bounds and not the method alone may cause the
-	// violation.
+	// Bounds is set when the minimums or maximums cause the violation:
+	// apportioned by the same method at the same size without them, the
+	// unit's seats would lie within its quota. A bound that holds a unit
+	// where the method alone would put it (Adams's first seat for every
+	// unit, say, against a minimum of one) does not count.
 	Bounds bool
 }
 
@@ -136,7 +137,7 @@ func (v *QuotaViolation) Text() string {
 	}
 	s += " (quota " + Decimal(v.Quota) + ")"
 	if v.Bounds {
-		s += "; minimums or maximums bind at this size"
+		s += "; the minimums or maximums cause it: without them it would be within quota"
 	}
 	return s + "."
 }
@@ -145,54 +146,73 @@ func (v *QuotaViolation) Text() string {
 // break quota. Jefferson can exceed the upper quota of large units and
 // Adams fall below the lower quota of large units; Webster, Dean and
 // Huntington–Hill can break it either way; Hamilton never does without
-// bounds. s is the swept scenario: its units' minimums and maximums tell
-// at which sizes the bounds bind.
+// bounds. s is the swept scenario: when it has minimums or maximums, the
+// sizes with a violation are apportioned again without them, to tell
+// which violations the bounds cause (see [QuotaViolation.Bounds]).
 func FindQuotaViolations(sw *engine.SweepResult, s *engine.Scenario) []QuotaViolation {
 	var out []QuotaViolation
 	total := totalOf(sw.Populations, sw.Excluded)
-	lo, hi := unitBounds(s)
 	for k := range sw.Sizes {
 		z := &sw.Sizes[k]
 		if z.Err != nil {
 			continue
 		}
-		qs := make([]*big.Rat, len(z.Seats))
-		bind := false
 		for i, a := range z.Seats {
-			qs[i] = quotaOf(sw.Populations[i], total, z.House, sw.Excluded[i])
-			if sw.Excluded[i] {
-				continue
-			}
-			c := qs[i].Cmp(big.NewRat(int64(a), 1))
-			bind = bind || (a == lo[i] && c < 0) || (hi[i] >= 0 && a == hi[i] && c > 0)
-		}
-		for i, a := range z.Seats {
-			l, u := floorCeil(qs[i])
+			q := quotaOf(sw.Populations[i], total, z.House, sw.Excluded[i])
+			l, u := floorCeil(q)
 			if a >= l && a <= u {
 				continue
 			}
-			out = append(out, QuotaViolation{sw.Method, z.House, i, sw.Names[i], a, qs[i], l, u, bind})
+			out = append(out, QuotaViolation{sw.Method, z.House, i, sw.Names[i], a, q, l, u, false})
 		}
+	}
+	if len(out) > 0 && hasBounds(s) {
+		markBounds(out, sw, s)
 	}
 	return out
 }
 
-// unitBounds returns each unit's minimum and maximum (-1 for none).
-func unitBounds(s *engine.Scenario) (lo, hi []int) {
-	lo, hi = make([]int, len(s.Units)), make([]int, len(s.Units))
-	for i, u := range s.Units {
-		lo[i], hi[i] = s.Min, -1
-		if s.Max > 0 {
-			hi[i] = s.Max
-		}
-		if u.Min != nil {
-			lo[i] = *u.Min
-		}
-		if u.Max != nil {
-			hi[i] = *u.Max
+// hasBounds reports whether any unit of s has a minimum or a maximum.
+func hasBounds(s *engine.Scenario) bool {
+	if s.Min > 0 || s.Max > 0 {
+		return true
+	}
+	for _, u := range s.Units {
+		if (u.Min != nil && *u.Min > 0) || u.Max != nil {
+			return true
 		}
 	}
-	return lo, hi
+	return false
+}
+
+// markBounds sets Bounds on the violations that the bounds of s cause:
+// those whose unit, apportioned without bounds at the same size, is within
+// its quota (a unit in a tie there counts as within when either way of
+// settling it is).
+func markBounds(vs []QuotaViolation, sw *engine.SweepResult, s *engine.Scenario) {
+	t := *s
+	t.Method, t.Min, t.Max = sw.Method, 0, 0
+	t.Units = make([]engine.Unit, len(s.Units))
+	for i, u := range s.Units {
+		t.Units[i] = engine.Unit{Name: u.Name, Population: u.Population}
+	}
+	free, err := engine.Sweep(&t, vs[0].House, vs[len(vs)-1].House)
+	if err != nil {
+		return
+	}
+	for j := range vs {
+		v := &vs[j]
+		z := &free.Sizes[v.House-free.From]
+		if z.Err != nil {
+			continue
+		}
+		a := z.Seats[v.Unit]
+		within := a >= v.Lower && a <= v.Upper
+		if tiedAt(z, v.Unit) {
+			within = within || (a+1 >= v.Lower && a+1 <= v.Upper)
+		}
+		v.Bounds = within
+	}
 }
 
 // A Population finding is one occurrence of the population paradox between

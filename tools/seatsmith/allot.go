@@ -72,11 +72,8 @@ func runAllot(e *env, args []string) int {
 	order := fs.Bool("order", false, "compute the seat order at any house size and list all of it, not just the last\nand next seats (text format)")
 	margins := fs.Bool("margins", false, "compute every unit's gain and lose margins at any size (default: on small\ninputs only)")
 	fs.Usage = helpFunc(fs, e.stdout, allotHelp)
-	if err := fs.Parse(args); err != nil {
-		if err == flag.ErrHelp {
-			return exitOK
-		}
-		return exitUsage
+	if code, done := parseArgs(fs, args); done {
+		return code
 	}
 	if err := of.check("text", "csv", "json", "markdown"); err != nil {
 		return fail(e, "allot", err)
@@ -90,6 +87,10 @@ func runAllot(e *env, args []string) int {
 	}
 	set := map[string]bool{}
 	fs.Visit(func(f *flag.Flag) { set[f.Name] = true })
+	if *order && src.Scenario.Seats > maxOrderSeats && src.Scenario.Method.IsDivisor() && of.format != "csv" {
+		return fail(e, "allot", usageError("-order: the seat order lists every seat and is held in memory, so it is listed for at most "+
+			strconv.Itoa(maxOrderSeats)+" seats, not "+strconv.Itoa(src.Scenario.Seats)+"; leave out -order for the last and next seats"))
+	}
 	plan := planDetail(&src.Scenario, of.format, set["margins"], *margins, set["order"], *order)
 	for _, n := range plan.notes {
 		io.WriteString(e.stderr, "seatsmith allot: "+n+"\n")
@@ -136,11 +137,8 @@ func runCompare(e *env, args []string) int {
 	sf.bind(fs, false)
 	of.bind(fs, "text", "csv", "json", "markdown")
 	fs.Usage = helpFunc(fs, e.stdout, compareHelp)
-	if err := fs.Parse(args); err != nil {
-		if err == flag.ErrHelp {
-			return exitOK
-		}
-		return exitUsage
+	if code, done := parseArgs(fs, args); done {
+		return code
 	}
 	if err := of.check("text", "csv", "json", "markdown"); err != nil {
 		return fail(e, "compare", err)
@@ -192,6 +190,9 @@ const (
 	autoSearchUnits = 1_000
 	// autoOrderSeats: the seat order holds one entry per seat.
 	autoOrderSeats = 100_000
+	// maxOrderSeats: the most seats -order lists (about 128 bytes a seat
+	// in memory).
+	maxOrderSeats = 1_000_000
 )
 
 // detailPlan is what allot computes and what it leaves out.

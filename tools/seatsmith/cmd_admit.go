@@ -5,6 +5,8 @@ import (
 	"flag"
 	"strings"
 
+	"golang.org/x/text/unicode/norm"
+
 	"seatsmith/engine"
 	"seatsmith/engine/jsondoc"
 	"seatsmith/engine/report"
@@ -74,12 +76,16 @@ func runAdmit(e *env, args []string) int {
 	if err != nil {
 		return fail(e, "admit", err)
 	}
+	newName := norm.NFC.String(strings.TrimSpace(*name))
+	if msg := nameProblem(newName); msg != "" {
+		return fail(e, "admit", usageError("-name: "+msg))
+	}
 	for _, u := range src.Scenario.Units {
-		if strings.TrimSpace(u.Name) == strings.TrimSpace(*name) {
-			return fail(e, "admit", usageError("-name: "+quote(*name)+" is already a unit of "+src.File))
+		if u.Name == newName {
+			return fail(e, "admit", usageError("-name: "+quote(newName)+" is already a unit of "+src.File))
 		}
 	}
-	a := report.Admit(src.Scenario, engine.Unit{Name: *name, Population: p}, *added, ms)
+	a := report.Admit(src.Scenario, engine.Unit{Name: newName, Population: p}, *added, ms)
 	if a.First() == nil {
 		return fail(e, "admit", src.Locate(a.Errors[0]))
 	}

@@ -105,12 +105,12 @@ func runGrowth(e *env, args []string) int {
 // applying any option.
 func readSource(e *env, name string) (*input.Source, error) {
 	if name == "-" {
-		return input.Read("stdin", e.stdin)
+		return readOptions.Read("stdin", e.stdin)
 	}
 	f, err := os.Open(name)
 	if err != nil {
 		return nil, &input.Error{File: name, Msg: "cannot read: " + strings.TrimPrefix(err.Error(), "open "+name+": ")}
 	}
 	defer f.Close()
-	return input.Read(name, f)
+	return readOptions.Read(name, f)
 }

@@ -6,7 +6,6 @@ import (
 	"flag"
 	"io"
 	"os"
-	"os/signal"
 	"strconv"
 	"strings"
 
@@ -81,11 +80,8 @@ func runProject(e *env, args []string) int {
 	workers := fs.Int("workers", 0, "goroutines making draws (0: one per CPU); the numbers do not depend on it")
 	contest := fs.Int("contest", projection.DefaultContest, "seats tracked on each side of the cut: the last seats held and the first beyond")
 	fs.Usage = helpFunc(fs, e.stdout, projectHelp)
-	if err := fs.Parse(args); err != nil {
-		if err == flag.ErrHelp {
-			return exitOK
-		}
-		return exitUsage
+	if code, done := parseArgs(fs, args); done {
+		return code
 	}
 	if err := of.check("text", "csv", "json"); err != nil {
 		return fail(e, "project", err)
@@ -98,16 +94,14 @@ func runProject(e *env, args []string) int {
 	if err != nil {
 		return fail(e, "project", err)
 	}
-	if err := applyScenarioFlags(fs, &sf, c); err != nil {
+	if err := applyScenarioFlags(e, fs, &sf, c); err != nil {
 		return fail(e, "project", err)
 	}
 	st, err := projection.New(c, opt)
 	if err != nil {
 		return fail(e, "project", err)
 	}
-	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
-	defer stop()
-	if err := st.RunAll(ctx); err != nil {
+	if err := st.RunAll(context.Background()); err != nil {
 		return fail(e, "project", err)
 	}
 	s := st.Summary()
@@ -176,26 +170,27 @@ func readCounts(e *env, fs *flag.FlagSet) (*projection.Counts, error) {
 	}
 	name := fs.Arg(0)
 	if name == "-" {
-		return projection.ReadCounts("stdin", e.stdin)
+		return projection.ReadCountsWith("stdin", e.stdin, readOptions)
 	}
 	f, err := os.Open(name)
 	if err != nil {
 		return nil, &input.Error{File: name, Msg: "cannot read: " + strings.TrimPrefix(err.Error(), "open "+name+": ")}
 	}
 	defer f.Close()
-	return projection.ReadCounts(name, f)
+	return projection.ReadCountsWith(name, f, readOptions)
 }
 
 // applyScenarioFlags lets the scenario options override the file's own
 // settings, as scenarioFlags.load does for scenario files.
-func applyScenarioFlags(fs *flag.FlagSet, f *scenarioFlags, c *projection.Counts) error {
+func applyScenarioFlags(e *env, fs *flag.FlagSet, f *scenarioFlags, c *projection.Counts) error {
 	over, err := f.overrides(fs)
 	if err != nil {
 		return err
 	}
-	if err := f.apply(over, &c.Scenario); err != nil {
+	if err := f.apply(over, &c.Scenario, c.Given); err != nil {
 		return err
 	}
+	f.note(e, f.boundsNote(c.File, func(i int) (bool, bool) { return c.Series[i].Min != nil, c.Series[i].Max != nil }, len(c.Series)))
 	if !c.Scenario.Method.Valid() {
 		return usageError("no method: give -method (or \"method\" in a JSON file)")
 	}
