@@ -358,15 +358,31 @@ type NewStates struct {
 // seats.
 func (r *NewStates) Paradox() bool { return len(r.Changes) > 0 }
 
-// Text says what happened, in numbers.
+// Text says what happened, in numbers. When a tie leaves seats
+// unassigned in either house, the seats compared are those held outright
+// and the text says so: settling the tie may change the finding.
 func (r *NewStates) Text() string {
 	s := r.Method.Name() + ": admitting " + r.Name + " (population " + r.People.String() + ", fair share " +
 		Decimal(r.FairShare) + " seats at the old standard divisor) with " + plural(r.Added, "added seat") +
 		" raises the house from " + itoa(r.House) + " to " + itoa(r.NewHouse) + "; " + r.Name + " receives " + plural(r.NewSeats, "seat")
-	if !r.Paradox() {
-		return s + ", and no other unit's seats change."
+	var tie []string
+	if r.Before.Unassigned > 0 {
+		tie = append(tie, plural(r.Before.Unassigned, "seat")+" in the house of "+itoa(r.House))
 	}
-	return s + ", and the other units' seats change: " + changeText(r.Changes) + " (the new-states paradox)."
+	if r.After.Unassigned > 0 {
+		tie = append(tie, plural(r.After.Unassigned, "seat")+" in the house of "+itoa(r.NewHouse))
+	}
+	tail := ""
+	if len(tie) > 0 {
+		tail = "; a tie leaves " + strings.Join(tie, " and ") + " unassigned, so these are the seats held outright and settling the tie may change them"
+	}
+	switch {
+	case !r.Paradox() && tail == "":
+		return s + ", and no other unit's seats change."
+	case !r.Paradox():
+		return s + ", and no other unit's seats held outright change" + tail + "."
+	}
+	return s + ", and the other units' seats change: " + changeText(r.Changes) + " (the new-states paradox)" + tail + "."
 }
 
 // FairShare returns the whole number nearest to p·H/P (halves round up)

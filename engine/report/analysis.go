@@ -137,6 +137,9 @@ func DiffTable(d *analysis.Diff) *Table {
 		}
 		t.AddRow(mark, u.Name, pop, growth, seats, ch, gain, lose)
 	}
+	if d.Base.Unassigned > 0 || d.Proposal.Unassigned > 0 {
+		t.AddRow("", "(unassigned: tie)", "", "", seatsPair(d.Base.Unassigned, d.Proposal.Unassigned), "", "", "")
+	}
 	return t
 }
 
@@ -186,7 +189,7 @@ func WriteDiffText(w io.Writer, title string, d *analysis.Diff, md bool) error {
 		for _, t := range r.Ties {
 			s := bl + "TIE (" + map[bool]string{true: "baseline", false: "proposal"}[r == d.Base] + "): " + strings.Join(t.Names, ", ") + " for " + plural(t.Seats, "seat")
 			if len(t.Winners) == 0 {
-				s += ", left unassigned"
+				s += ", left unassigned: the seats compared are those held outright"
 			}
 			b.WriteString(s + "\n")
 		}
@@ -291,6 +294,9 @@ func DerivedTable(d *analysis.DerivedBody) *Table {
 		t.AddRow(u.Name, d.Result.Units[i].Population.String(), analysis.Percent(u.PopShare), strconv.Itoa(u.Seats),
 			analysis.Percent(u.HouseShare), strconv.Itoa(u.Body), analysis.Percent(u.BodyShare), w)
 	}
+	if n := d.Result.Unassigned; n > 0 {
+		t.AddRow("(unassigned: tie)", "", "", strconv.Itoa(n), "", strconv.Itoa(n), "", "")
+	}
 	return t
 }
 
@@ -320,7 +326,13 @@ func WriteDerivedText(w io.Writer, title string, d *analysis.DerivedBody, md boo
 	b.WriteString(bl + "Gallagher index: house " + fmtG(d.HouseIndices[1]) + ", body " + fmtG(d.BodyIndices[1]) +
 		"; Loosemore–Hanby: house " + fmtG(d.HouseIndices[0]) + "%, body " + fmtG(d.BodyIndices[0]) + "% (float64, display only)\n")
 	for _, t := range d.Result.Ties {
-		b.WriteString(bl + "TIE: " + strings.Join(t.Names, ", ") + " for " + plural(t.Seats, "seat") + "\n")
+		s := bl + "TIE: " + strings.Join(t.Names, ", ") + " for " + plural(t.Seats, "seat")
+		if len(t.Winners) == 0 {
+			s += ", left unassigned in the house and in the body"
+		} else {
+			s += ", settled by " + t.Rule
+		}
+		b.WriteString(s + "\n")
 	}
 	b.WriteString("\n")
 	caution(&b, md)
@@ -363,11 +375,12 @@ func BiasDistribution(c analysis.BiasConfig) string {
 // BiasTable returns one row per method of a bias study.
 func BiasTable(st *analysis.BiasStudy) *Table {
 	t := &Table{
-		Header: []string{"method", "large units", "small units", "large − small", "std. error", "favours"},
-		Right:  []bool{false, true, true, true, true, false},
+		Header: []string{"method", "large units", "small units", "large − small", "std. error", "favours", "sets with a tie"},
+		Right:  []bool{false, true, true, true, true, false, true},
 	}
 	for _, b := range st.Methods {
-		t.AddRow(b.Method.String(), signed(b.Large), signed(b.Small), signed(b.Difference), strconv.FormatFloat(b.StdErr, 'f', 4, 64), b.Leaning())
+		t.AddRow(b.Method.String(), signed(b.Large), signed(b.Small), signed(b.Difference), strconv.FormatFloat(b.StdErr, 'f', 4, 64), b.Leaning(),
+			strconv.Itoa(b.Ties))
 	}
 	return t
 }
@@ -407,6 +420,7 @@ func WriteBiasText(w io.Writer, title string, st *analysis.BiasStudy, md bool) e
 	for _, s := range []string{
 		"Each figure is the mean, over the sets, of the class's seats minus its exact quotas; large − small above zero favours large units.",
 		"\"favours\" names a side only when the mean difference is more than two standard errors from zero. Means are float64, for display.",
+		"A set with a tie has it settled by lot (seeded from the study's seed and the set's number), so every seat is assigned in every set.",
 	} {
 		if md {
 			b.WriteString(bl + s + "\n")

@@ -95,10 +95,22 @@ func MeasureTable(set *MeasureSet) *Table {
 		Right:  []bool{false, true, true, true, true, true, true, true, true, false},
 	}
 	c := set.Comparison
+	open := false
+	for _, r := range c.Results {
+		open = open || (r != nil && r.Unassigned > 0)
+	}
+	if open {
+		t.Header = append(t.Header, "unassigned (tie)")
+		t.Right = append(t.Right, true)
+	}
 	for k, m := range c.Methods {
 		ms := set.Measures[k]
 		if ms == nil {
-			t.AddRow(m.String(), "error: "+errText(c.Errors[k]), "", "", "", "", "", "", "", "")
+			row := []string{m.String(), "error: " + errText(c.Errors[k]), "", "", "", "", "", "", "", ""}
+			if open {
+				row = append(row, "")
+			}
+			t.AddRow(row...)
 			continue
 		}
 		row := []string{m.String(), fmtG(ms.LoosemoreHanby), fmtG(ms.Gallagher), fmtG(ms.SainteLague)}
@@ -121,9 +133,23 @@ func MeasureTable(set *MeasureSet) *Table {
 		if len(passed) == 0 {
 			passed = []string{"none"}
 		}
-		t.AddRow(append(row, strings.Join(passed, ", "))...)
+		row = append(row, strings.Join(passed, ", "))
+		if open {
+			row = append(row, strconv.Itoa(c.Results[k].Unassigned))
+		}
+		t.AddRow(row...)
 	}
 	return t
+}
+
+// measureTie reports whether a tie left seats unassigned under any method.
+func measureTie(set *MeasureSet) bool {
+	for _, r := range set.Comparison.Results {
+		if r != nil && r.Unassigned > 0 {
+			return true
+		}
+	}
+	return false
 }
 
 func pairName(t analysis.PairTest) string {
@@ -156,12 +182,16 @@ func WriteMeasureText(w io.Writer, title string, set *MeasureSet, md bool) error
 	}
 	bl := bulletFor(md)
 	b.WriteString("\n")
-	for _, s := range []string{
+	notes := []string{
 		"With population shares v and seat shares s in percent: Loosemore–Hanby = ½ Σ|v − s|; Gallagher = √(½ Σ(v − s)²); Sainte-Laguë = Σ(s − v)²/v.",
 		"District size is persons per seat; ratio = largest/smallest; abs. difference = largest − smallest; rel. difference = (largest − smallest)/smallest.",
 		"Pairwise tests (Huntington): no transfer of one seat between two units lowers their relative difference of district size (passed by Huntington–Hill), their absolute difference of district size (Dean), or of representation per person (Webster).",
 		"Measures are float64 approximations for display; no seat depends on them.",
-	} {
+	}
+	if measureTie(set) {
+		notes = append(notes, "Where a tie leaves seats unassigned, the measures are of the seats held outright: the seat shares sum short of the house.")
+	}
+	for _, s := range notes {
 		if md {
 			b.WriteString(bl + s + "\n")
 		} else {

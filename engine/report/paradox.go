@@ -113,8 +113,12 @@ func WriteParadoxText(w io.Writer, title string, set *SweepSet, scen *engine.Sce
 		}
 		qv := analysis.FindQuotaViolations(sw, scen)
 		ps := set.Paradoxes[k]
-		b.WriteString(bullet + m.Name() + ": " + countText(len(ps), "Alabama paradox", "Alabama paradoxes") + ", " +
-			countText(len(qv), "quota violation", "quota violations") + "\n")
+		line := m.Name() + ": " + countText(len(ps), "Alabama paradox", "Alabama paradoxes") + ", " +
+			countText(len(qv), "quota violation", "quota violations")
+		if t := sweepTieText(sw); t != "" {
+			line += " among the seats assigned; " + t
+		}
+		b.WriteString(bullet + line + "\n")
 		for j := range ps {
 			if limit > 0 && j == limit {
 				b.WriteString(bullet + "    … and " + strconv.Itoa(len(ps)-limit) + " more (see -format json)\n")
@@ -288,15 +292,68 @@ func GrowthTable(g *GrowthSet) *Table {
 				continue
 			}
 			a, b := r.Before.Units[i].Seats, r.After.Units[i].Seats
-			s := strconv.Itoa(a)
-			if a != b {
-				s += " → " + strconv.Itoa(b)
-			}
-			row = append(row, s)
+			row = append(row, seatsPair(a, b))
 		}
 		t.AddRow(row...)
 	}
+	var before, after []*engine.Result
+	for _, r := range g.Results {
+		if r == nil {
+			before, after = append(before, nil), append(after, nil)
+			continue
+		}
+		before, after = append(before, r.Before), append(after, r.After)
+	}
+	if row := unassignedPairRow(before, after, 4); row != nil {
+		t.AddRow(row...)
+	}
 	return t
+}
+
+// seatsPair writes seats before and after: "3", or "4 → 5" when they
+// differ.
+func seatsPair(a, b int) string {
+	if a == b {
+		return strconv.Itoa(a)
+	}
+	return strconv.Itoa(a) + " → " + strconv.Itoa(b)
+}
+
+// unassignedPairRow is unassignedRow for results before and after a
+// change: "0 → 1" where a tie leaves seats unassigned on either side.
+func unassignedPairRow(before, after []*engine.Result, lead int) []string {
+	any := false
+	for k := range before {
+		any = any || (before[k] != nil && (before[k].Unassigned > 0 || after[k].Unassigned > 0))
+	}
+	if !any {
+		return nil
+	}
+	row := make([]string, lead, lead+len(before))
+	row[0] = "(unassigned: tie)"
+	for k := range before {
+		if before[k] == nil {
+			row = append(row, "")
+			continue
+		}
+		row = append(row, seatsPair(before[k].Unassigned, after[k].Unassigned))
+	}
+	return row
+}
+
+// tieLines say, for a result, how a tie leaves seats unassigned: "" when
+// none does. where names the apportionment ("the later apportionment").
+func tieText(where string, r *engine.Result) string {
+	if r == nil || r.Unassigned == 0 {
+		return ""
+	}
+	var ts []string
+	for _, t := range r.Ties {
+		if len(t.Winners) == 0 {
+			ts = append(ts, strings.Join(t.Names, ", ")+" tie for "+plural(t.Seats, "seat"))
+		}
+	}
+	return "a tie leaves " + plural(r.Unassigned, "seat") + " unassigned in " + where + " (" + strings.Join(ts, "; ") + ")"
 }
 
 // WriteGrowthText writes the population-paradox search for a terminal or
@@ -326,12 +383,25 @@ func WriteGrowthText(w io.Writer, title string, g *GrowthSet, md bool) error {
 			b.WriteString(bullet + m.Name() + ": cannot apportion: " + errText(g.Errors[k]) + "\n")
 			continue
 		}
-		if len(r.Findings) == 0 {
-			b.WriteString(bullet + m.Name() + ": no population paradox.\n")
-			continue
+		var ties []string
+		for _, t := range []string{tieText("the first apportionment", r.Before), tieText("the later apportionment", r.After)} {
+			if t != "" {
+				ties = append(ties, t)
+			}
 		}
-		for j := range r.Findings {
-			b.WriteString(bullet + r.Findings[j].Text() + "\n")
+		switch {
+		case len(r.Findings) == 0 && len(ties) == 0:
+			b.WriteString(bullet + m.Name() + ": no population paradox.\n")
+		case len(r.Findings) == 0:
+			b.WriteString(bullet + m.Name() + ": no population paradox among the seats held outright, but " + strings.Join(ties, ", and ") +
+				"; how the tie is settled decides whether there is one.\n")
+		default:
+			for j := range r.Findings {
+				b.WriteString(bullet + r.Findings[j].Text() + "\n")
+			}
+			if len(ties) > 0 {
+				b.WriteString(bullet + m.Name() + ": " + strings.Join(ties, ", and ") + "; settling the tie may change these findings.\n")
+			}
 		}
 	}
 	b.WriteString("\n")
@@ -439,6 +509,17 @@ func AdmitTable(a *AdmitSet) *Table {
 		row = append(row, "+"+strconv.Itoa(r.NewSeats))
 	}
 	t.AddRow(row...)
+	var before, after []*engine.Result
+	for _, r := range a.Results {
+		if r == nil {
+			before, after = append(before, nil), append(after, nil)
+			continue
+		}
+		before, after = append(before, r.Before), append(after, r.After)
+	}
+	if row := unassignedPairRow(before, after, 2); row != nil {
+		t.AddRow(row...)
+	}
 	return t
 }
 

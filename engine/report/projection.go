@@ -300,6 +300,16 @@ func WriteProjectionText(w io.Writer, s *projection.Summary) error {
 		}
 		t.AddRow(row...)
 	}
+	if s.Baseline.Unassigned > 0 || s.Central.Unassigned > 0 {
+		row := make([]string, len(t.Header))
+		row[0] = "(unassigned: tie)"
+		row[2] = strconv.Itoa(s.Baseline.Unassigned)
+		if s.Target != nil {
+			row[3], row[4] = strconv.Itoa(s.Baseline.Unassigned), strconv.Itoa(s.Central.Unassigned)
+			row[2] = ""
+		}
+		t.AddRow(row...)
+	}
 	if err := t.WriteText(&b); err != nil {
 		return err
 	}
@@ -349,7 +359,12 @@ func WriteProjectionText(w io.Writer, s *projection.Summary) error {
 		res  *engine.Result
 	}{{"latest counts", s.Baseline}, {"central projection", s.Central}} {
 		for _, tie := range r.res.Ties {
-			b.WriteString("\nTie in the " + r.name + ": " + strings.Join(tie.Names, ", ") + " tie for " + plural(tie.Seats, "seat") + ".")
+			b.WriteString("\nTie in the " + r.name + ": " + strings.Join(tie.Names, ", ") + " tie for " + plural(tie.Seats, "seat"))
+			if len(tie.Winners) == 0 {
+				b.WriteString(", left unassigned: the seats shown are those held outright.")
+			} else {
+				b.WriteString(", settled by " + tie.Rule + ".")
+			}
 		}
 	}
 	b.WriteString("\n" + Wrap("A projection is an estimate from a growth model and an assumed error, not a forecast of record.", 76) + "\n")

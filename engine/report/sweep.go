@@ -172,6 +172,14 @@ func SweepTable(sw *engine.SweepResult) *Table {
 		t.Header = append(t.Header, n)
 		t.Right = append(t.Right, true)
 	}
+	open := false
+	for k := range sw.Sizes {
+		open = open || sw.Sizes[k].Unassigned > 0
+	}
+	if open {
+		t.Header = append(t.Header, "unassigned")
+		t.Right = append(t.Right, true)
+	}
 	t.Header = append(t.Header, "change", "notes")
 	var prev []int
 	for k := range sw.Sizes {
@@ -181,6 +189,9 @@ func SweepTable(sw *engine.SweepResult) *Table {
 			for range sw.Names {
 				row = append(row, "-")
 			}
+			if open {
+				row = append(row, "-")
+			}
 			row = append(row, "", "cannot apportion: "+z.Err.Error())
 			t.AddRow(row...)
 			prev = nil
@@ -188,6 +199,9 @@ func SweepTable(sw *engine.SweepResult) *Table {
 		}
 		for _, a := range z.Seats {
 			row = append(row, strconv.Itoa(a))
+		}
+		if open {
+			row = append(row, strconv.Itoa(z.Unassigned))
 		}
 		row = append(row, seatChanges(sw.Names, prev, z.Seats), sizeNotes(z))
 		t.AddRow(row...)
@@ -313,12 +327,19 @@ func writeSweep(w io.Writer, title string, set *SweepSet, md bool) error {
 		}
 		b.WriteString("\n")
 		ps := set.Paradoxes[k]
-		if len(ps) == 0 {
+		tie := sweepTieText(sw)
+		switch {
+		case len(ps) == 0 && tie == "":
 			b.WriteString(bulletFor(md) + "No Alabama paradox: no unit loses a seat as the house grows in this range.\n\n")
-		} else {
+		case len(ps) == 0:
+			b.WriteString(bulletFor(md) + "No Alabama paradox among the seats assigned, but " + tie + "; how a tie is settled decides whether a unit loses a seat there.\n\n")
+		default:
 			b.WriteString(bulletFor(md) + "Alabama paradoxes in this range: " + strconv.Itoa(len(ps)) + "\n")
 			for j := range ps {
 				b.WriteString(bulletFor(md) + "  " + ps[j].Text() + "\n")
+			}
+			if tie != "" {
+				b.WriteString(bulletFor(md) + Capital(tie) + "; settling a tie may change these findings.\n")
 			}
 			b.WriteString("\n")
 		}
@@ -329,6 +350,36 @@ func writeSweep(w io.Writer, title string, set *SweepSet, md bool) error {
 		b.WriteString(Wrap(Caution, 76) + "\n")
 	}
 	return writeString(w, b.String())
+}
+
+// sweepTieText says at which house sizes of a sweep a tie leaves seats
+// unassigned: "" when none does.
+func sweepTieText(sw *engine.SweepResult) string {
+	var sizes []string
+	for k := range sw.Sizes {
+		if z := &sw.Sizes[k]; z.Err == nil && z.Unassigned > 0 {
+			sizes = append(sizes, strconv.Itoa(z.House))
+		}
+	}
+	switch len(sizes) {
+	case 0:
+		return ""
+	case 1:
+		return "a tie leaves seats unassigned at house size " + sizes[0]
+	}
+	n := len(sizes)
+	if n > 8 {
+		sizes = append(sizes[:8], "…")
+	}
+	return "ties leave seats unassigned at " + strconv.Itoa(n) + " house sizes (" + strings.Join(sizes, ", ") + ")"
+}
+
+// Capital returns s with its first letter in upper case.
+func Capital(s string) string {
+	if s == "" || s[0] < 'a' || s[0] > 'z' {
+		return s
+	}
+	return string(s[0]-'a'+'A') + s[1:]
 }
 
 func bulletFor(md bool) string {

@@ -182,8 +182,10 @@ func (t *Rows) WriteMarkdown(w io.Writer) error {
 	return finish(b, own)
 }
 
-// WriteCSV writes the rows as CSV with a header row. Cells that a
-// spreadsheet would run as a formula are prefixed with an apostrophe.
+// WriteCSV writes the rows as CSV with a header row. Cells of text
+// columns that a spreadsheet would run as a formula are prefixed with an
+// apostrophe; cells of numeric columns (Right) are numbers and are written
+// as they are.
 func (t *Rows) WriteCSV(w io.Writer) error {
 	b, own := buffered(w)
 	var line []byte
@@ -197,7 +199,10 @@ func (t *Rows) WriteCSV(w io.Writer) error {
 			if i > 0 {
 				line = append(line, ',')
 			}
-			line = appendCSVField(line, CSVSafe(c))
+			if !t.right(i) {
+				c = CSVSafe(c)
+			}
+			line = appendCSVField(line, c)
 		}
 		line = append(line, '\n')
 		b.Write(line)
@@ -249,20 +254,17 @@ func csvNeedsQuotes(f string) bool {
 	return unicode.IsSpace(r)
 }
 
-// CSVSafe guards a cell against formula injection when opened in a
-// spreadsheet: a text cell starting with =, +, - or @ gets a leading
-// apostrophe. Numbers are left alone.
+// CSVSafe guards a text cell against formula injection when opened in a
+// spreadsheet: a cell starting with =, +, -, @, a tab or a carriage return
+// gets a leading apostrophe, so "-2+3" stays text. Numbers are written in
+// numeric columns, which are never guarded.
 func CSVSafe(c string) string {
 	if c == "" {
 		return c
 	}
 	switch c[0] {
-	case '=', '+', '@', '\t', '\r':
+	case '=', '+', '-', '@', '\t', '\r':
 		return "'" + c
-	case '-':
-		if len(c) > 1 && (c[1] < '0' || c[1] > '9') {
-			return "'" + c
-		}
 	}
 	return c
 }

@@ -102,13 +102,17 @@ func WriteAllotText(w io.Writer, title string, res *engine.Result, order bool, s
 	if title != "" {
 		b.WriteString(title + "\n")
 	}
-	b.WriteString(res.Method.Name() + ", " + strconv.Itoa(res.Seats) + " seats, population " + res.Total + "\n")
+	b.WriteString(allotHead(res) + "\n")
 	if n := skippedNote(skipped); n != "" {
 		b.WriteString(Wrap(n, 76) + "\n")
 	}
 	b.WriteString("\n")
 	if err := AllotRows(res).WriteText(b); err != nil {
 		return err
+	}
+	b.WriteString("\n")
+	for _, l := range allotLegend(res) {
+		b.WriteString(Wrap(l, 76) + "\n")
 	}
 	b.WriteString("\n")
 	writeExplanation(b, res, order, "")
@@ -124,7 +128,7 @@ func WriteAllotMarkdown(w io.Writer, title string, res *engine.Result, skipped [
 		title = "Apportionment"
 	}
 	b.WriteString("## " + title + "\n\n")
-	b.WriteString("**" + res.Method.Name() + "**, " + strconv.Itoa(res.Seats) + " seats, population " + res.Total + ".\n\n")
+	b.WriteString(allotHead(res) + ".\n\n")
 	if n := skippedNote(skipped); n != "" {
 		b.WriteString("*" + n + "*\n\n")
 	}
@@ -132,14 +136,43 @@ func WriteAllotMarkdown(w io.Writer, title string, res *engine.Result, skipped [
 		return err
 	}
 	b.WriteString("\n")
+	for _, l := range allotLegend(res) {
+		b.WriteString("- " + l + "\n")
+	}
+	b.WriteString("\n")
 	writeExplanation(b, res, false, "- ")
 	b.WriteString("\n> " + Caution + "\n")
 	return finish(b, own)
 }
 
-// WriteAllotCSV writes the table of res as CSV, one row at a time.
-func WriteAllotCSV(w io.Writer, res *engine.Result) error {
-	return AllotRows(res).WriteCSV(w)
+// allotHead is the line under an allotment's title: method, house size
+// (and the seats a tie left unassigned), population.
+func allotHead(res *engine.Result) string {
+	s := res.Method.Name() + ", " + plural(res.Seats, "seat")
+	if res.Unassigned > 0 {
+		s += " (" + strconv.Itoa(res.Unassigned) + " left unassigned by a tie)"
+	}
+	return s + ", population " + res.Total
+}
+
+// MarginLegend says what the quota and the margins are, in the words both
+// the command line and the pages use.
+const MarginLegend = "Quota: the unit's exact share of the seats, population × seats ÷ total. " +
+	"Gain margin: the fewest extra people who would win the unit one more seat outright, all others fixed; " +
+	"lose margin: the fewest people whose loss, all others fixed, would cost it a seat or leave its last seat tied. " +
+	"A dash means no change of its population alone does it."
+
+// allotLegend says what the allotment table's columns mean.
+func allotLegend(res *engine.Result) []string {
+	l := []string{MarginLegend, "quota ok: whether the seats are the unit's lower or upper quota (NO: outside them)."}
+	if res.Method.IsDivisor() {
+		l = append(l, "last priority: the priority (population ÷ signpost) at which the unit won its last seat; "+
+			"next priority: the one its next seat needs; the seats go to the highest priorities.")
+	} else {
+		l = append(l, "remainder: what is left of the unit's quota once its whole seats are given; "+
+			"rank: its place among the remainders, +1 when it won a seat.")
+	}
+	return l
 }
 
 func writeExplanation(b io.StringWriter, res *engine.Result, order bool, bullet string) {
@@ -255,7 +288,33 @@ func ComparisonTable(c *Comparison) *Table {
 		}
 		t.AddRow(row...)
 	}
+	if row := unassignedRow(c.Results, 3); row != nil {
+		t.AddRow(append(row, "")...)
+	}
 	return t
+}
+
+// unassignedRow is a table row, after lead empty cells, with the seats a
+// tie left unassigned in each result, so that a column of seats never
+// sums short in silence; nil when every seat is assigned.
+func unassignedRow(rs []*engine.Result, lead int) []string {
+	any := false
+	for _, r := range rs {
+		any = any || (r != nil && r.Unassigned > 0)
+	}
+	if !any {
+		return nil
+	}
+	row := make([]string, lead, lead+len(rs))
+	row[0] = "(unassigned: tie)"
+	for _, r := range rs {
+		if r == nil {
+			row = append(row, "")
+			continue
+		}
+		row = append(row, strconv.Itoa(r.Unassigned))
+	}
+	return row
 }
 
 // WriteComparisonText writes the comparison for a terminal.

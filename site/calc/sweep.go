@@ -190,7 +190,7 @@ func quotaList(so *SweepOutcome) *Node {
 		}
 		head := El("p", "class", "sc-finding-head").Add(Wrap("strong", m.Name())).AddText(": " + plural(len(vs), "quota violation"))
 		if allBound {
-			head.AddText(", each at a size where minimums or maximums bind")
+			head.AddText(", each caused by the minimums or maximums")
 		}
 		sec.Add(head)
 		ul := El("ul", "class", "sc-finding-list")
@@ -209,7 +209,7 @@ func quotaList(so *SweepOutcome) *Node {
 		sec.Add(Wrap("p", "None in this range under "+methodList(none)+": every unit gets its lower or its upper quota at every size.", "class", "sc-hint"))
 	}
 	if bounds {
-		sec.Add(Wrap("p", "Where minimums or maximums bind, some unit sits at its minimum above its quota (or at its maximum below it), so the bounds, not the method alone, may cause the violation.", "class", "sc-hint"))
+		sec.Add(Wrap("p", "Where the minimums or maximums cause a violation, the unit would be within its quota without them, apportioned by the same method at the same size.", "class", "sc-hint"))
 	}
 	var fails []string
 	for k, err := range set.Errors {
@@ -238,7 +238,7 @@ func violationText(v *analysis.QuotaViolation, bounds bool) string {
 	}
 	s += " (quota " + analysis.Decimal(v.Quota) + ")"
 	if bounds && v.Bounds {
-		s += "; minimums or maximums bind at this size"
+		s += "; the minimums or maximums cause it"
 	}
 	return s + "."
 }

@@ -96,6 +96,7 @@ func runAllot(e *env, args []string) int {
 		io.WriteString(e.stderr, "seatsmith allot: "+n+"\n")
 	}
 	limitMemory(&src.Scenario, plan.detail)
+	settings := report.SettingsOf(&src.Scenario)
 	prep, err := engine.Prepare(&src.Scenario)
 	if err != nil {
 		return fail(e, "allot", src.Locate(err))
@@ -113,7 +114,7 @@ func runAllot(e *env, args []string) int {
 		case "json":
 			return report.WriteAllotJSON(w, src.Title, res, plan.skipped)
 		case "csv":
-			return report.WriteAllotCSV(w, res)
+			return report.AllotData(settings, res, plan.detail&engine.WithMargins != 0).WriteCSV(w)
 		case "markdown":
 			return report.WriteAllotMarkdown(w, src.Title, res, plan.skipped)
 		}
@@ -157,7 +158,7 @@ func runCompare(e *env, args []string) int {
 	case "json":
 		b.Write(jsondoc.MarshalIndent(c.Doc(src.Title), "  "))
 	case "csv":
-		err = report.ComparisonTable(c).WriteCSV(&b)
+		err = report.ComparisonData(report.SettingsOf(&src.Scenario), c).WriteCSV(&b)
 	case "markdown":
 		err = report.WriteComparisonMarkdown(&b, src.Title, c)
 	default:

@@ -97,7 +97,7 @@ func TestStdin(t *testing.T) {
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
-	if !strings.Contains(out, "North Ward,5000,5,5,yes") {
+	if !strings.Contains(out, "webster,10,0,,0,none,North Ward,5000,0,,false,5,5,5,5,true,") {
 		t.Errorf("csv output:\n%s", out)
 	}
 }

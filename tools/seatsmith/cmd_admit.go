@@ -94,7 +94,7 @@ func runAdmit(e *env, args []string) int {
 	case "json":
 		b.Write(jsondoc.MarshalIndent(a.Doc(src.Title), "  "))
 	case "csv":
-		err = report.AdmitTable(a).WriteCSV(&b)
+		err = report.AdmitData(report.SettingsOf(&src.Scenario), a).WriteCSV(&b)
 	default:
 		err = report.WriteAdmitText(&b, src.Title, a, of.format == "markdown")
 	}

@@ -89,7 +89,7 @@ func runBias(e *env, args []string) int {
 	case "json":
 		b.Write(jsondoc.MarshalIndent(report.BiasDoc("", st), "  "))
 	case "csv":
-		err = report.BiasTable(st).WriteCSV(&b)
+		err = report.BiasData(st).WriteCSV(&b)
 	default:
 		err = report.WriteBiasText(&b, "", st, of.format == "markdown")
 	}

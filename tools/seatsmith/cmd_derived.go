@@ -74,7 +74,7 @@ func runDerived(e *env, args []string) int {
 	case "json":
 		b.Write(jsondoc.MarshalIndent(report.DerivedDoc(src.Title, d), "  "))
 	case "csv":
-		err = report.DerivedTable(d).WriteCSV(&b)
+		err = report.DerivedData(report.SettingsOf(&src.Scenario), d).WriteCSV(&b)
 	default:
 		err = report.WriteDerivedText(&b, src.Title, d, of.format == "markdown")
 	}

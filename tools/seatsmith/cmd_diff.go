@@ -134,7 +134,7 @@ func runDiff(e *env, args []string) int {
 	case "json":
 		b.Write(jsondoc.MarshalIndent(report.DiffDoc(base.Title, d), "  "))
 	case "csv":
-		err = report.DiffTable(d).WriteCSV(&b)
+		err = report.DiffData(report.SettingsOf(&base.Scenario), report.SettingsOf(&prop), d).WriteCSV(&b)
 	default:
 		err = report.WriteDiffText(&b, base.Title, d, of.format == "markdown")
 	}

@@ -82,7 +82,7 @@ func runGrowth(e *env, args []string) int {
 	case "json":
 		b.Write(jsondoc.MarshalIndent(g.Doc(src.Title), "  "))
 	case "csv":
-		err = report.GrowthTable(g).WriteCSV(&b)
+		err = report.GrowthData(report.SettingsOf(&src.Scenario), g).WriteCSV(&b)
 	default:
 		err = report.WriteGrowthText(&b, src.Title, g, of.format == "markdown")
 	}

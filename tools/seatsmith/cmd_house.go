@@ -88,7 +88,7 @@ func runHouse(e *env, args []string) int {
 	case "json":
 		b.Write(jsondoc.MarshalIndent(report.HouseDoc(src.Title, hs, c), "  "))
 	case "csv":
-		err = report.ComparisonTable(c).WriteCSV(&b)
+		err = report.HouseData(report.SettingsOf(&s), hs, c).WriteCSV(&b)
 	default:
 		err = report.WriteHouseText(&b, src.Title, hs, c, of.format == "markdown")
 	}

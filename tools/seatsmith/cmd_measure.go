@@ -70,7 +70,7 @@ func runMeasure(e *env, args []string) int {
 	case "json":
 		b.Write(jsondoc.MarshalIndent(set.Doc(src.Title), "  "))
 	case "csv":
-		err = report.MeasureTable(set).WriteCSV(&b)
+		err = report.MeasureData(report.SettingsOf(&src.Scenario), set).WriteCSV(&b)
 	default:
 		err = report.WriteMeasureText(&b, src.Title, set, of.format == "markdown")
 	}

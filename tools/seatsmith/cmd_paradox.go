@@ -74,7 +74,7 @@ func runParadox(e *env, args []string) int {
 	case "json":
 		b.Write(jsondoc.MarshalIndent(report.ParadoxDoc(src.Title, set, &src.Scenario), "  "))
 	case "csv":
-		err = report.ParadoxTable(set, &src.Scenario).WriteCSV(&b)
+		err = report.ParadoxData(report.SettingsOf(&src.Scenario), set, &src.Scenario).WriteCSV(&b)
 	default:
 		err = report.WriteParadoxText(&b, src.Title, set, &src.Scenario, *limit, of.format == "markdown")
 	}

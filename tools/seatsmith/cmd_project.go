@@ -110,7 +110,7 @@ func runProject(e *env, args []string) int {
 	case "json":
 		b.Write(jsondoc.MarshalIndent(report.Projection(s), "  "))
 	case "csv":
-		err = report.ProjectionTable(s).WriteCSV(&b)
+		err = report.ProjectionData(report.SettingsOf(&c.Scenario), s).WriteCSV(&b)
 	default:
 		err = report.WriteProjectionText(&b, s)
 	}

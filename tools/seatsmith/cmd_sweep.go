@@ -68,7 +68,7 @@ func runSweep(e *env, args []string) int {
 	case "json":
 		b.Write(jsondoc.MarshalIndent(set.Doc(src.Title), "  "))
 	case "csv":
-		err = report.SweepCSVTable(set).WriteCSV(&b)
+		err = report.SweepData(report.SettingsOf(&src.Scenario), set).WriteCSV(&b)
 	case "markdown":
 		err = report.WriteSweepMarkdown(&b, src.Title, set)
 	case "svg":

@@ -58,7 +58,7 @@ func goldenCases() []goldenCase {
 	add("growth", all, "growth", demoJSON, demoLater)
 	add("growth-tie", all, "growth", "-method", "jefferson,hamilton", "-seats", "4", wardsBefore, wardsLater)
 	add("admit", all, "admit", "-name", "Ostry Fen", "-population", "410000", demoJSON)
-	add("admit-tie", all, "admit", "-method", "jefferson", "-seats", "3", "-name", "Low Ward", "-population", "300", wardsBefore)
+	add("admit-tie", all, "admit", "-method", "jefferson", "-seats", "3", "-name", "Low Ward", "-population", "300", wardsTie)
 	add("diff", all, "diff", demoJSON, demoProp)
 	add("diff-tie", all, "diff", "-method", "jefferson", "-seats", "4", wardsBefore, wardsTie)
 	add("measure", all, "measure", demoJSON)

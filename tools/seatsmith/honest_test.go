@@ -40,14 +40,14 @@ func TestOptionsAfterTheFile(t *testing.T) {
 // TestBoundsFromTwoPlaces: a unit's own minimum in the file takes
 // precedence over -min, and the command line says so.
 func TestBoundsFromTwoPlaces(t *testing.T) {
-	out, errOut, code := cli(t, "", "allot", "-method", "webster", "-seats", "40", "-min", "2", "-format", "csv", demoCSV)
+	out, errOut, code := cli(t, "", "allot", "-method", "webster", "-seats", "40", "-min", "2", "-format", "json", demoCSV)
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
 	if !strings.Contains(errOut, "seatsmith allot: -min 2 changes nothing: every unit of testdata/demo/vessaria.csv gives its own minimum, which takes precedence over the option's default") {
 		t.Errorf("no note on standard error: %q", errOut)
 	}
-	plain, _, _ := cli(t, "", "allot", "-method", "webster", "-seats", "40", "-format", "csv", demoCSV)
+	plain, _, _ := cli(t, "", "allot", "-method", "webster", "-seats", "40", "-format", "json", demoCSV)
 	if out != plain {
 		t.Errorf("-min changed the result although every unit has its own minimum")
 	}

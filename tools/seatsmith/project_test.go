@@ -108,10 +108,11 @@ func TestProjectCSVAndFile(t *testing.T) {
 		t.Fatal(err)
 	}
 	lines := strings.Split(strings.TrimSpace(string(b)), "\n")
-	if len(lines) != 10 || !strings.HasPrefix(lines[0], "unit,latest_date,latest,projected,rse,baseline_seats,central_seats,mean_seats,p_lose,p_gain") {
+	if len(lines) != 10 || !strings.HasPrefix(lines[0], "method,house_size,default_min,default_max,threshold,tie_rule,target,growth,fit,error_model,default_rse,draws,apportioned,seed,"+
+		"unit,latest_date,latest,projected,rse,baseline_seats,central_seats,baseline_tied,central_tied,baseline_unassigned,central_unassigned,mean_seats,p_lose,p_gain") {
 		t.Fatalf("csv:\n%s", b)
 	}
-	if !strings.HasPrefix(lines[1], "Orlen,,2694457,2694457,0.0100,12,12,") {
+	if !strings.HasPrefix(lines[1], "huntington-hill,40,1,,0,none,,,,normal,0.01,500,500,1,Orlen,,2694457,2694457,0.01,12,12,false,false,0,0,") {
 		t.Errorf("first row %q", lines[1])
 	}
 }

@@ -18,6 +18,7 @@ import (
 // Options given on the command line override the file's own values.
 type scenarioFlags struct {
 	cmd       string // the command, for notes
+	ownMethod bool   // -method is this scenario's method (not a list of methods)
 	seats     int
 	method    string
 	min, max  int
@@ -27,7 +28,7 @@ type scenarioFlags struct {
 }
 
 func (f *scenarioFlags) bind(fs *flag.FlagSet, withMethod bool) {
-	f.cmd = fs.Name()
+	f.cmd, f.ownMethod = fs.Name(), withMethod
 	fs.IntVar(&f.seats, "seats", 0, "house size: the number of seats to divide")
 	if withMethod {
 		fs.StringVar(&f.method, "method", "", "method: "+strings.Join(engine.MethodIDs(), ", ")+"\n(aliases: hare, dhondt, sainte-lague, equal-proportions)")
@@ -44,6 +45,9 @@ func (f *scenarioFlags) bind(fs *flag.FlagSet, withMethod bool) {
 func (f *scenarioFlags) overrides(fs *flag.FlagSet) (*engine.Scenario, error) {
 	f.set = map[string]bool{}
 	fs.Visit(func(fl *flag.Flag) { f.set[fl.Name] = true })
+	if !f.ownMethod {
+		delete(f.set, "method") // the command's own list of methods
+	}
 	over := &engine.Scenario{}
 	flagErr := func(flagName, msg string) error {
 		return usageError("-" + flagName + ": " + msg)
