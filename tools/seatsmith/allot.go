@@ -33,9 +33,9 @@ seats. -margins and -order ask for them at any size; -margins=false and
 -order=false leave them out at any size. CSV never needs the seat order.
 
 Examples:
-  seatsmith allot -method huntington-hill -seats 40 -min 1 testdata/demo/vessaria.csv
+  seatsmith allot -method huntington-hill -seats 40 testdata/demo/vessaria.csv
   seatsmith allot -format json testdata/demo/vessaria.json
-  seatsmith allot -method dhondt -seats 20 -threshold 5% -tiebreak lot:7 votes.csv
+  seatsmith allot -method dhondt -seats 20 -threshold 5% -tiebreak lot:7 testdata/demo/party-votes.csv
 
 Options:
 `
@@ -47,7 +47,7 @@ the units the methods treat differently (*) and seat counts outside the
 unit's lower and upper quota (!).
 
 Examples:
-  seatsmith compare -seats 40 -min 1 testdata/demo/vessaria.csv
+  seatsmith compare -seats 40 testdata/demo/vessaria.csv
   seatsmith compare -format markdown testdata/demo/vessaria.json
 
 Options:

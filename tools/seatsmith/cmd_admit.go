@@ -31,7 +31,7 @@ paradox, changes: [{unit, before, after}], units: [{name, before, after}],
 unassigned_before, unassigned_after, text}]}.
 
 Examples:
-  seatsmith admit -seats 40 -min 1 -name "Ostry Fen" -population 410000 testdata/demo/vessaria.csv
+  seatsmith admit -seats 40 -name "Ostry Fen" -population 410000 testdata/demo/vessaria.csv
   seatsmith admit -method hamilton -name "Ostry Fen" -population 410000 -added 2 -format json testdata/demo/vessaria.json
 
 Options:

@@ -30,7 +30,7 @@ body_share, house_weight, body_weight}], ties, unassigned, measures:
 and weights are exact fractions written with six decimal places.
 
 Examples:
-  seatsmith derived -method huntington-hill -seats 40 -min 1 -plus 2 testdata/demo/vessaria.csv
+  seatsmith derived -method huntington-hill -seats 40 -plus 2 testdata/demo/vessaria.csv
   seatsmith derived -plus 2 -format json testdata/demo/vessaria.json
 
 Options:

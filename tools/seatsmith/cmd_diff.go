@@ -41,9 +41,10 @@ lose_margin_after, margins_changed}], measures: {baseline: {loosemore_hanby,
 gallagher, sainte_lague, ratio}, proposal: {...}}, lines: [text]}.
 
 Examples:
-  seatsmith diff -method huntington-hill -seats 40 -min 1 -new-method webster testdata/demo/vessaria.csv
+  seatsmith diff -method huntington-hill -seats 40 -new-method webster testdata/demo/vessaria.csv
   seatsmith diff -new-seats 45 testdata/demo/vessaria.json
-  seatsmith diff -method hamilton -seats 40 testdata/demo/vessaria.csv later.csv
+  seatsmith diff -method hamilton -seats 40 testdata/demo/vessaria.csv testdata/demo/vessaria-later.csv
+  seatsmith diff testdata/demo/vessaria.json testdata/demo/vessaria-proposal.csv
 
 Options:
 `

@@ -34,8 +34,8 @@ to, growth, growth_exact, seats_before, seats_after}, gainer: {...},
 faster, tied, text}]}.
 
 Examples:
-  seatsmith growth -seats 40 -min 1 testdata/demo/vessaria.csv later.csv
-  seatsmith growth -method hamilton -format json before.json after.csv
+  seatsmith growth -seats 40 testdata/demo/vessaria.csv testdata/demo/vessaria-later.csv
+  seatsmith growth -method hamilton -format json testdata/demo/vessaria.json testdata/demo/vessaria-later.csv
 
 Options:
 `

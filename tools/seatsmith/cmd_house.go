@@ -33,7 +33,7 @@ null, comparison: the comparison document of "seatsmith compare" at that
 size}.
 
 Examples:
-  seatsmith house -rule cube-root -min 1 testdata/demo/vessaria.csv
+  seatsmith house -rule cube-root testdata/demo/vessaria.csv
   seatsmith house -rule smallest-unit -method huntington-hill -format json testdata/demo/vessaria.json
 
 Options:

@@ -32,7 +32,7 @@ relative_difference, unseated, improving_transfers: {relative_difference,
 district_size_difference, representation_difference}}]}.
 
 Examples:
-  seatsmith measure -seats 40 -min 1 testdata/demo/vessaria.csv
+  seatsmith measure -seats 40 testdata/demo/vessaria.csv
   seatsmith measure -method webster,huntington-hill -format json testdata/demo/vessaria.json
 
 Options:

@@ -58,7 +58,7 @@ counts. The same -seed gives the same numbers for any -workers.
 Examples:
   seatsmith project -seats 40 -method huntington-hill -min 1 -target 2030-04-01 -rse 2% testdata/demo/vessaria-counts.csv
   seatsmith project -rse 1.5% -draws 100000 -seed 7 testdata/demo/vessaria.json
-  seatsmith project -target 2031 -growth geometric -fit last2 -error lognormal -rse 3% -format json -o outlook.json counts.json
+  seatsmith project -target 2031 -growth geometric -fit last2 -error lognormal -rse 3% -format json -o outlook.json testdata/demo/vessaria-counts.json
 
 Options:
 `

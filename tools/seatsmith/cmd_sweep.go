@@ -32,7 +32,7 @@ text}]}. "seats" in a size is the house size.
 
 Examples:
   seatsmith sweep -method hamilton -from 30 -to 60 testdata/demo/vessaria.csv
-  seatsmith sweep -method huntington-hill -min 1 -from 9 -to 80 -format svg -o chart.svg testdata/demo/vessaria.csv
+  seatsmith sweep -method huntington-hill -from 9 -to 80 -format svg -o chart.svg testdata/demo/vessaria.csv
   seatsmith sweep -from 1 -to 40 -format json testdata/demo/vessaria.json
 
 Options:
