@@ -17,6 +17,12 @@
 //     tests ([ImprovingTransfers], exact).
 //   - Comparison. [Compare] lines up a baseline and a proposal by unit
 //     name: seat changes, changed margins, changed settings.
+//   - Many methods. [CompareMethods] apportions one scenario by several
+//     methods, [SweepAll] sweeps it over a range of house sizes by each
+//     (with the Alabama paradoxes, and the quota violations on demand),
+//     [FindGrowth] and [Admit] run the population and new-states tests by
+//     each, [MeasureAll] measures each result. Their results are what the
+//     documents of package engine/format show.
 //   - House size. [ChooseSize] applies the cube-root law or makes the
 //     smallest unit's population the divisor; [Derive] adds a fixed number
 //     of seats per unit to an apportionment.
@@ -29,7 +35,7 @@
 //
 // # JSON documents
 //
-// The documents are built by seatsmith/engine/report from these results
+// The documents are built by seatsmith/engine/format from these results
 // and printed by the seatsmith command-line tool with -format json. Every
 // document is one object that starts with version (1), kind, caution (the
 // not-official caution, always present) and title (when the scenario has
@@ -59,7 +65,9 @@
 // quota_violations (count)}]; paradoxes: the Alabama findings as above and
 // quota violations {kind: "quota", method, unit, house, seats, quota,
 // quota_exact ("n/d"), lower_quota, upper_quota, side ("above" or
-// "below"), bounds_bind (minimums or maximums bind at that size), text}.
+// "below"), bounds_bind (the minimums or maximums cause the violation:
+// without them the unit's seats at that size would be within its quota),
+// text}.
 //
 // Population paradox (kind "population-paradox", seatsmith growth): seats,
 // total_before, total_after; units: [{name, before, after, growth (percent

@@ -127,16 +127,25 @@ type QuotaViolation struct {
 // fall below the lower quota).
 func (v *QuotaViolation) Above() bool { return v.Seats > v.Upper }
 
-// Text says what happened, in numbers.
+// Text says what happened, in numbers, naming the method.
 func (v *QuotaViolation) Text() string {
-	s := v.Method.Name() + ", house of " + itoa(v.House) + ": " + v.Name + " gets " + plural(v.Seats, "seat") + ", "
+	t := v.SizeText(true)
+	return v.Method.Name() + ", h" + t[1:]
+}
+
+// SizeText says what happened, in numbers, without naming the method:
+// "House of 40: Orlen gets 12 seats, below its lower quota 13 (quota
+// 13.142784)." bounds chooses whether it says when the bounds cause the
+// violation.
+func (v *QuotaViolation) SizeText(bounds bool) string {
+	s := "House of " + itoa(v.House) + ": " + v.Name + " gets " + plural(v.Seats, "seat") + ", "
 	if v.Above() {
 		s += "above its upper quota " + itoa(v.Upper)
 	} else {
 		s += "below its lower quota " + itoa(v.Lower)
 	}
 	s += " (quota " + Decimal(v.Quota) + ")"
-	if v.Bounds {
+	if bounds && v.Bounds {
 		s += "; the minimums or maximums cause it: without them it would be within quota"
 	}
 	return s + "."

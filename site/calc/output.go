@@ -5,7 +5,7 @@ import (
 	"strings"
 
 	"seatsmith/engine"
-	"seatsmith/engine/report"
+	"seatsmith/engine/format"
 	. "seatsmith/engine/render"
 )
 
@@ -61,7 +61,7 @@ func Output(o *Outcome) *Node {
 }
 
 func caution() *Node {
-	return Wrap("p", report.Caution, "class", "sc-caution", "data-role", "caution")
+	return Wrap("p", format.Caution, "class", "sc-caution", "data-role", "caution")
 }
 
 func plural(n int, w string) string {
@@ -171,23 +171,6 @@ func quotaNote(u *engine.UnitResult) (text, class string) {
 	return "above upper quota " + strconv.Itoa(u.Upper), "sc-q-high"
 }
 
-func notes(u *engine.UnitResult) string {
-	var n []string
-	if u.Excluded {
-		n = append(n, "below the threshold")
-	}
-	if u.AtMin {
-		n = append(n, "held up by its minimum of "+strconv.Itoa(u.Min))
-	}
-	if u.AtMax {
-		n = append(n, "held down by its maximum of "+strconv.Itoa(u.Max))
-	}
-	if u.Tied {
-		n = append(n, "tied")
-	}
-	return strings.Join(n, "; ")
-}
-
 func resultsTable(o *Outcome) *Node {
 	r := o.Result
 	full := o.Block.Mode == Full
@@ -238,7 +221,7 @@ func resultsTable(o *Outcome) *Node {
 			}
 		}
 		row.Add(Wrap("td", marginText(u.Gain, o.MarginsPending), "class", "num"), Wrap("td", marginText(u.Lose, o.MarginsPending), "class", "num"))
-		row.Add(Wrap("td", notes(u), "class", "sc-notes"))
+		row.Add(Wrap("td", format.UnitNotes(u), "class", "sc-notes"))
 		body.Add(row)
 	}
 	t.Add(body)
@@ -260,7 +243,7 @@ func resultsTable(o *Outcome) *Node {
 		ask.AddText("This method's margins take a search of many exact apportionments, which can take a while for these numbers. ")
 		ask.Add(Wrap("button", "Compute the margins", "type", "button", "data-action", "margins"))
 	}
-	legend.AddText("Quota: the unit's exact share of the seats, population × seats ÷ total. Gain margin: the fewest extra people who would win the unit one more seat outright, all others fixed; lose margin: the fewest people whose loss, all others fixed, would cost it a seat or leave its last seat tied. A dash means no change of its population alone does it.")
+	legend.AddText(format.MarginLegend)
 	return El("div", "class", "sc-results-wrap").Add(wrap, ask, legend)
 }
 

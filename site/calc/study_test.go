@@ -74,7 +74,7 @@ func TestLiveSweep(t *testing.T) {
 			t.Errorf("sweep editor lacks %s", w)
 		}
 	}
-	if csv := resp.Get("csv"); csv == nil || !strings.Contains(csv.Text, "hamilton,41,13,10,6,5,3,1,1,1,1") {
+	if csv := resp.Get("csv"); csv == nil || !strings.Contains(csv.Text, "1,,0,none,hamilton,41,Sarrow,1,false,0,true,\n") {
 		t.Errorf("sweep CSV: %v", jsondoc.Marshal(csv))
 	}
 	if js := resp.Get("json"); js == nil || !strings.Contains(js.Text, `"kind": "sweep-export"`) || !strings.Contains(js.Text, `"kind": "paradoxes"`) {

@@ -7,7 +7,6 @@ import (
 
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
-	"seatsmith/engine/report"
 	"seatsmith/site/claim"
 	. "seatsmith/engine/render"
 )
@@ -16,7 +15,7 @@ import (
 // size of its range by each of its methods.
 type SweepOutcome struct {
 	// Set holds the sweeps and the Alabama paradoxes found in each.
-	Set *report.SweepSet
+	Set *analysis.SweepSet
 	// Violations[k] lists the quota violations of Set.Sweeps[k].
 	Violations [][]analysis.QuotaViolation
 }
@@ -26,18 +25,14 @@ type SweepOutcome struct {
 const maxListed = 4
 
 func runSweep(o *Outcome, st *study) {
-	set := report.SweepAll(o.Scenario, st.Methods, st.From, st.To)
+	set := analysis.SweepAll(o.Scenario, st.Methods, st.From, st.To)
 	if set.First() == nil {
 		o.Problem = sweepProblem(set.Errors[0])
 		return
 	}
 	so := &SweepOutcome{Set: set, Violations: make([][]analysis.QuotaViolation, len(set.Methods))}
-	for k, sw := range set.Sweeps {
-		if sw != nil {
-			s := o.Scenario
-			s.Method = set.Methods[k]
-			so.Violations[k] = analysis.FindQuotaViolations(sw, &s)
-		}
+	for k := range set.Sweeps {
+		so.Violations[k] = set.Violations(k)
 	}
 	o.Sweep = so
 	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, st.context())
@@ -201,7 +196,7 @@ func quotaList(so *SweepOutcome) *Node {
 				ul.Add(Wrap("li", "… and "+strconv.Itoa(len(vs)-maxListed)+" more under "+m.Name()+", marked in the tables below.", "class", "sc-more-findings"))
 				break
 			}
-			ul.Add(Wrap("li", violationText(v, !allBound), "data-paradox", "quota", "data-method", m.String(), "data-unit", v.Name, "data-house", strconv.Itoa(v.House)))
+			ul.Add(Wrap("li", v.SizeText(!allBound), "data-paradox", "quota", "data-method", m.String(), "data-unit", v.Name, "data-house", strconv.Itoa(v.House)))
 		}
 		sec.Add(ul)
 	}
@@ -225,22 +220,6 @@ func quotaList(so *SweepOutcome) *Node {
 		sec.Add(Wrap("p", "Some methods cannot apportion any size in this range:", "class", "sc-hint"), ul)
 	}
 	return sec
-}
-
-// violationText says what a quota violation is, in numbers: "House of 40:
-// Orlen gets 12 seats, below its lower quota 13 (quota 13.142784)."
-func violationText(v *analysis.QuotaViolation, bounds bool) string {
-	s := "House of " + strconv.Itoa(v.House) + ": " + v.Name + " gets " + plural(v.Seats, "seat") + ", "
-	if v.Above() {
-		s += "above its upper quota " + strconv.Itoa(v.Upper)
-	} else {
-		s += "below its lower quota " + strconv.Itoa(v.Lower)
-	}
-	s += " (quota " + analysis.Decimal(v.Quota) + ")"
-	if bounds && v.Bounds {
-		s += "; the minimums or maximums cause it"
-	}
-	return s + "."
 }
 
 // sweepTables lays out every sweep as a table: one row a house size, one

@@ -5,7 +5,7 @@ import (
 	"strconv"
 
 	"seatsmith/engine/projection"
-	"seatsmith/engine/report"
+	"seatsmith/engine/format"
 	. "seatsmith/engine/render"
 )
 
@@ -140,7 +140,7 @@ func Output(c *Config, s *projection.Summary, id string) *Node {
 		}
 		out.Add(ul)
 	}
-	out.Add(Wrap("p", "A projection is an estimate from a growth model and an assumed error, not a forecast of record. "+report.Caution,
+	out.Add(Wrap("p", "A projection is an estimate from a growth model and an assumed error, not a forecast of record. "+format.Caution,
 		"class", "fc-caution", "data-role", "caution"))
 	return out
 }

@@ -1,15 +1,13 @@
 package main
 
 import (
-	"bufio"
-	"bytes"
 	"flag"
 	"io"
 	"strconv"
 
 	"seatsmith/engine"
-	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
+	"seatsmith/engine/analysis"
+	"seatsmith/engine/format"
 )
 
 func init() {
@@ -58,7 +56,7 @@ func helpFunc(fs *flag.FlagSet, w io.Writer, text string) func() {
 		io.WriteString(w, text)
 		fs.SetOutput(w)
 		fs.PrintDefaults()
-		io.WriteString(w, "\nExit status: 0 done, 1 bad input, 2 bad command line, 3 a tie left seats unassigned.\n\n"+report.Wrap(report.Caution, 76)+"\n")
+		io.WriteString(w, "\nExit status: 0 done, 1 bad input, 2 bad command line, 3 a tie left seats unassigned.\n\n"+format.Wrap(format.Caution, 76)+"\n")
 	}
 }
 
@@ -96,7 +94,6 @@ func runAllot(e *env, args []string) int {
 		io.WriteString(e.stderr, "seatsmith allot: "+n+"\n")
 	}
 	limitMemory(&src.Scenario, plan.detail)
-	settings := report.SettingsOf(&src.Scenario)
 	prep, err := engine.Prepare(&src.Scenario)
 	if err != nil {
 		return fail(e, "allot", src.Locate(err))
@@ -109,17 +106,8 @@ func runAllot(e *env, args []string) int {
 	if err != nil {
 		return fail(e, "allot", src.Locate(err))
 	}
-	err = of.stream(e, func(w *bufio.Writer) error {
-		switch of.format {
-		case "json":
-			return report.WriteAllotJSON(w, src.Title, res, plan.skipped)
-		case "csv":
-			return report.AllotData(settings, res, plan.detail&engine.WithMargins != 0).WriteCSV(w)
-		case "markdown":
-			return report.WriteAllotMarkdown(w, src.Title, res, plan.skipped)
-		}
-		return report.WriteAllotText(w, src.Title, res, *order, plan.skipped)
-	})
+	doc := format.Allotment(src.Title, res, &src.Scenario, format.AllotOptions{Order: *order, Skipped: plan.skipped})
+	err = of.encode(e, doc)
 	if err != nil {
 		return fail(e, "allot", err)
 	}
@@ -148,33 +136,18 @@ func runCompare(e *env, args []string) int {
 	if err != nil {
 		return fail(e, "compare", err)
 	}
-	c := report.Compare(src.Scenario, nil, 0)
+	c := analysis.CompareMethods(src.Scenario, nil, 0)
 	if c.First() == nil {
 		// Every method failed: the scenario itself is at fault.
 		return fail(e, "compare", src.Locate(c.Errors[0]))
 	}
-	var b bytes.Buffer
-	switch of.format {
-	case "json":
-		b.Write(jsondoc.MarshalIndent(c.Doc(src.Title), "  "))
-	case "csv":
-		err = report.ComparisonData(report.SettingsOf(&src.Scenario), c).WriteCSV(&b)
-	case "markdown":
-		err = report.WriteComparisonMarkdown(&b, src.Title, c)
-	default:
-		err = report.WriteComparisonText(&b, src.Title, c)
-	}
-	if err == nil {
-		err = of.write(e, &b)
-	}
+	err = of.encode(e, format.Comparison(src.Title, c))
 	if err != nil {
 		return fail(e, "compare", err)
 	}
-	for _, r := range c.Results {
-		if r != nil && r.Unassigned > 0 {
-			io.WriteString(e.stderr, "seatsmith compare: a tie left seats unassigned under at least one method; settle it with -tiebreak\n")
-			return exitTie
-		}
+	if c.Unsettled() {
+		io.WriteString(e.stderr, "seatsmith compare: a tie left seats unassigned under at least one method; settle it with -tiebreak\n")
+		return exitTie
 	}
 	return exitOK
 }

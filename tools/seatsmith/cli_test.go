@@ -7,7 +7,7 @@ import (
 	"testing"
 
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
+	"seatsmith/engine/format"
 )
 
 const demoCSV = "testdata/demo/vessaria.csv"
@@ -18,7 +18,7 @@ func TestAllotText(t *testing.T) {
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
-	for _, want := range []string{"Huntington–Hill, 40 seats, population 8200567", "Orlen", "Divisor range:", "Next seats beyond the house size:", report.Wrap(report.Caution, 76)} {
+	for _, want := range []string{"Huntington–Hill, 40 seats, population 8200567", "Orlen", "Divisor range:", "Next seats beyond the house size:", format.Wrap(format.Caution, 76)} {
 		if !strings.Contains(out, want) {
 			t.Errorf("output lacks %q:\n%s", want, out)
 		}

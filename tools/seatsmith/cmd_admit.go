@@ -1,15 +1,14 @@
 package main
 
 import (
-	"bytes"
 	"flag"
 	"strings"
 
 	"golang.org/x/text/unicode/norm"
 
 	"seatsmith/engine"
-	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
+	"seatsmith/engine/analysis"
+	"seatsmith/engine/format"
 )
 
 func init() {
@@ -85,30 +84,13 @@ func runAdmit(e *env, args []string) int {
 			return fail(e, "admit", usageError("-name: "+quote(newName)+" is already a unit of "+src.File))
 		}
 	}
-	a := report.Admit(src.Scenario, engine.Unit{Name: newName, Population: p}, *added, ms)
+	a := analysis.Admit(src.Scenario, engine.Unit{Name: newName, Population: p}, *added, ms)
 	if a.First() == nil {
 		return fail(e, "admit", src.Locate(a.Errors[0]))
 	}
-	var b bytes.Buffer
-	switch of.format {
-	case "json":
-		b.Write(jsondoc.MarshalIndent(a.Doc(src.Title), "  "))
-	case "csv":
-		err = report.AdmitData(report.SettingsOf(&src.Scenario), a).WriteCSV(&b)
-	default:
-		err = report.WriteAdmitText(&b, src.Title, a, of.format == "markdown")
-	}
-	if err == nil {
-		err = of.write(e, &b)
-	}
+	err = of.encode(e, format.Admit(src.Title, a))
 	if err != nil {
 		return fail(e, "admit", err)
 	}
-	unsettled := false
-	for _, r := range a.Results {
-		if r != nil && (r.Before.Unassigned > 0 || r.After.Unassigned > 0) {
-			unsettled = true
-		}
-	}
-	return tieNote(e, "admit", unsettled)
+	return tieNote(e, "admit", a.Unsettled())
 }

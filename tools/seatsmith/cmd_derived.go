@@ -1,13 +1,11 @@
 package main
 
 import (
-	"bytes"
 	"flag"
 
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
-	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
+	"seatsmith/engine/format"
 )
 
 func init() {
@@ -69,18 +67,7 @@ func runDerived(e *env, args []string) int {
 	if err != nil {
 		return fail(e, "derived", usageError("-plus: "+err.Error()))
 	}
-	var b bytes.Buffer
-	switch of.format {
-	case "json":
-		b.Write(jsondoc.MarshalIndent(report.DerivedDoc(src.Title, d), "  "))
-	case "csv":
-		err = report.DerivedData(report.SettingsOf(&src.Scenario), d).WriteCSV(&b)
-	default:
-		err = report.WriteDerivedText(&b, src.Title, d, of.format == "markdown")
-	}
-	if err == nil {
-		err = of.write(e, &b)
-	}
+	err = of.encode(e, format.Derived(src.Title, d, &src.Scenario))
 	if err != nil {
 		return fail(e, "derived", err)
 	}

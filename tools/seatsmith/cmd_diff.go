@@ -1,16 +1,14 @@
 package main
 
 import (
-	"bytes"
 	"errors"
 	"flag"
 	"strconv"
 
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
+	"seatsmith/engine/format"
 	"seatsmith/engine/input"
-	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 )
 
 func init() {
@@ -130,18 +128,7 @@ func runDiff(e *env, args []string) int {
 		}
 		return fail(e, "diff", err)
 	}
-	var b bytes.Buffer
-	switch of.format {
-	case "json":
-		b.Write(jsondoc.MarshalIndent(report.DiffDoc(base.Title, d), "  "))
-	case "csv":
-		err = report.DiffData(report.SettingsOf(&base.Scenario), report.SettingsOf(&prop), d).WriteCSV(&b)
-	default:
-		err = report.WriteDiffText(&b, base.Title, d, of.format == "markdown")
-	}
-	if err == nil {
-		err = of.write(e, &b)
-	}
+	err = of.encode(e, format.Diff(base.Title, d, &base.Scenario, &prop))
 	if err != nil {
 		return fail(e, "diff", err)
 	}

@@ -1,12 +1,10 @@
 package main
 
 import (
-	"bytes"
 	"flag"
 
 	"seatsmith/engine/analysis"
-	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
+	"seatsmith/engine/format"
 )
 
 func init() {
@@ -79,28 +77,13 @@ func runHouse(e *env, args []string) int {
 	}
 	s := src.Scenario
 	s.Seats = hs.Size
-	c := report.Compare(s, ms, 0)
+	c := analysis.CompareMethods(s, ms, 0)
 	if c.First() == nil {
 		return fail(e, "house", src.Locate(c.Errors[0]))
 	}
-	var b bytes.Buffer
-	switch of.format {
-	case "json":
-		b.Write(jsondoc.MarshalIndent(report.HouseDoc(src.Title, hs, c), "  "))
-	case "csv":
-		err = report.HouseData(report.SettingsOf(&s), hs, c).WriteCSV(&b)
-	default:
-		err = report.WriteHouseText(&b, src.Title, hs, c, of.format == "markdown")
-	}
-	if err == nil {
-		err = of.write(e, &b)
-	}
+	err = of.encode(e, format.House(src.Title, hs, c))
 	if err != nil {
 		return fail(e, "house", err)
 	}
-	unsettled := false
-	for _, res := range c.Results {
-		unsettled = unsettled || (res != nil && res.Unassigned > 0)
-	}
-	return tieNote(e, "house", unsettled)
+	return tieNote(e, "house", c.Unsettled())
 }

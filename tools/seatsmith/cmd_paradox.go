@@ -1,14 +1,13 @@
 package main
 
 import (
-	"bytes"
 	"flag"
 	"strconv"
 
 	"seatsmith/engine"
+	"seatsmith/engine/analysis"
+	"seatsmith/engine/format"
 	"seatsmith/engine/input"
-	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 )
 
 func init() {
@@ -69,18 +68,7 @@ func runParadox(e *env, args []string) int {
 	if set == nil {
 		return code
 	}
-	var b bytes.Buffer
-	switch of.format {
-	case "json":
-		b.Write(jsondoc.MarshalIndent(report.ParadoxDoc(src.Title, set, &src.Scenario), "  "))
-	case "csv":
-		err = report.ParadoxData(report.SettingsOf(&src.Scenario), set, &src.Scenario).WriteCSV(&b)
-	default:
-		err = report.WriteParadoxText(&b, src.Title, set, &src.Scenario, *limit, of.format == "markdown")
-	}
-	if err == nil {
-		err = of.write(e, &b)
-	}
+	err = of.encode(e, format.Paradoxes(src.Title, set, *limit))
 	if err != nil {
 		return fail(e, "paradox", err)
 	}
@@ -117,7 +105,7 @@ func sweepSize(sizes, n, k int) error {
 // sweepFromFlags loads the one FILE argument with the scenario options and
 // sweeps it from from to to (to defaulting to the house size). On failure
 // it reports the error and returns a nil set with the exit status.
-func sweepFromFlags(e *env, cmd string, fs *flag.FlagSet, ms []engine.Method, from, to int) (*report.SweepSet, *input.Source, int) {
+func sweepFromFlags(e *env, cmd string, fs *flag.FlagSet, ms []engine.Method, from, to int) (*analysis.SweepSet, *input.Source, int) {
 	if from < 1 || from > engine.MaxSeats {
 		return nil, nil, fail(e, cmd, usageError("-from: must be between 1 and "+strconv.Itoa(engine.MaxSeats)))
 	}
@@ -147,7 +135,7 @@ func sweepFromFlags(e *env, cmd string, fs *flag.FlagSet, ms []engine.Method, fr
 	if err := sweepSize(to-from+1, len(src.Scenario.Units), len(ms)); err != nil {
 		return nil, nil, fail(e, cmd, err)
 	}
-	set := report.SweepAll(src.Scenario, ms, from, to)
+	set := analysis.SweepAll(src.Scenario, ms, from, to)
 	if set.First() == nil {
 		return nil, nil, fail(e, cmd, src.Locate(set.Errors[0]))
 	}

@@ -1,7 +1,6 @@
 package main
 
 import (
-	"bytes"
 	"context"
 	"flag"
 	"io"
@@ -10,10 +9,9 @@ import (
 	"strings"
 
 	"seatsmith/engine"
+	"seatsmith/engine/format"
 	"seatsmith/engine/input"
-	"seatsmith/engine/jsondoc"
 	"seatsmith/engine/projection"
-	"seatsmith/engine/report"
 )
 
 func init() {
@@ -69,7 +67,7 @@ func runProject(e *env, args []string) int {
 	var sf scenarioFlags
 	var of outputFlags
 	sf.bind(fs, true)
-	of.bind(fs, "text", "csv", "json")
+	of.bind(fs, "text", "csv", "json", "markdown")
 	target := fs.String("target", "", "project the counts to this date (YYYY-MM-DD, YYYY-MM or YYYY); none: use the latest counts")
 	growth := fs.String("growth", "linear", "growth model: linear or geometric")
 	fit := fs.String("fit", "all", "counts the growth model is fitted to: all (least squares) or last2 (the two latest)")
@@ -83,7 +81,7 @@ func runProject(e *env, args []string) int {
 	if code, done := parseArgs(fs, args); done {
 		return code
 	}
-	if err := of.check("text", "csv", "json"); err != nil {
+	if err := of.check("text", "csv", "json", "markdown"); err != nil {
 		return fail(e, "project", err)
 	}
 	opt, err := projectOptions(*target, *growth, *fit, *errModel, *rse, *draws, *seed, *workers, *contest)
@@ -105,18 +103,7 @@ func runProject(e *env, args []string) int {
 		return fail(e, "project", err)
 	}
 	s := st.Summary()
-	var b bytes.Buffer
-	switch of.format {
-	case "json":
-		b.Write(jsondoc.MarshalIndent(report.Projection(s), "  "))
-	case "csv":
-		err = report.ProjectionData(report.SettingsOf(&c.Scenario), s).WriteCSV(&b)
-	default:
-		err = report.WriteProjectionText(&b, s)
-	}
-	if err == nil {
-		err = of.write(e, &b)
-	}
+	err = of.encode(e, format.Projection(s, &c.Scenario))
 	if err != nil {
 		return fail(e, "project", err)
 	}

@@ -13,7 +13,7 @@ import (
 	"strings"
 	"syscall"
 
-	"seatsmith/engine/report"
+	"seatsmith/engine/format"
 )
 
 // Exit statuses.
@@ -112,7 +112,7 @@ Run "seatsmith COMMAND -h" for a command's options and examples.
 Exit status: 0 done, 1 bad input, 2 bad command line, 3 a tie left seats
 unassigned (choose -tiebreak to settle it).
 
-` + report.Wrap(report.Caution, 76) + "\n")
+` + format.Wrap(format.Caution, 76) + "\n")
 	io.WriteString(w, b.String())
 }
 

@@ -2,7 +2,6 @@ package main
 
 import (
 	"bufio"
-	"bytes"
 	"crypto/rand"
 	"encoding/hex"
 	"errors"
@@ -12,6 +11,13 @@ import (
 	"path/filepath"
 	"strings"
 	"sync"
+
+	"seatsmith/engine/format"
+	"seatsmith/engine/format/csv"
+	"seatsmith/engine/format/json"
+	"seatsmith/engine/format/markdown"
+	"seatsmith/engine/format/svg"
+	"seatsmith/engine/format/text"
 )
 
 // outputFlags choose the output format and destination. A file is replaced
@@ -69,12 +75,15 @@ func extension(format string) string {
 	return format
 }
 
-// write delivers the finished output.
-func (o *outputFlags) write(e *env, b *bytes.Buffer) error {
-	return o.stream(e, func(w *bufio.Writer) error {
-		_, err := w.Write(b.Bytes())
-		return err
-	})
+// encoders are the formats' encoders, by name.
+var encoders = map[string]format.Encoder{
+	"text": text.Encoder{}, "markdown": markdown.Encoder{}, "csv": csv.Encoder{}, "json": json.Encoder{}, "svg": svg.Encoder{},
+}
+
+// encode writes d in the chosen format, as it is made.
+func (o *outputFlags) encode(e *env, d *format.Document) error {
+	enc := encoders[o.format]
+	return o.stream(e, func(w *bufio.Writer) error { return enc.Encode(w, d) })
 }
 
 // stream calls fill with a buffered writer and delivers what it writes:

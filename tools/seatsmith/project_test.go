@@ -8,7 +8,7 @@ import (
 	"testing"
 
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
+	"seatsmith/engine/format"
 )
 
 // demoCounts are the invented dated counts of Vessaria's provinces.
@@ -30,7 +30,7 @@ func TestProjectText(t *testing.T) {
 		"Orlen", "Marrowgate",
 		"holds the last seat (seat 40):",
 		"would take the next seat (41):",
-		report.Wrap(report.Caution, 76),
+		format.Wrap(format.Caution, 76),
 	} {
 		if !strings.Contains(out, want) {
 			t.Errorf("output lacks %q:\n%s", want, out)
@@ -57,7 +57,7 @@ func TestProjectJSON(t *testing.T) {
 	if err != nil {
 		t.Fatalf("not JSON: %v", err)
 	}
-	for key, want := range map[string]string{"kind": "projection", "target": "2031-01-01", "growth": "geometric", "fit": "all", "draws": "2000", "seed": "5", "caution": report.Caution} {
+	for key, want := range map[string]string{"kind": "projection", "target": "2031-01-01", "growth": "geometric", "fit": "all", "draws": "2000", "seed": "5", "caution": format.Caution} {
 		if got := v.Get(key); got == nil || got.Text != want {
 			t.Errorf("%s = %v, want %s", key, got, want)
 		}
@@ -193,7 +193,7 @@ func TestProjectHelp(t *testing.T) {
 	if code != 0 {
 		t.Fatalf("exit %d", code)
 	}
-	for _, want := range []string{"Usage: seatsmith project", "Examples:", "-target", "-rse", "-draws", "-seed", "-workers", "-growth", "-error", report.Wrap(report.Caution, 76)} {
+	for _, want := range []string{"Usage: seatsmith project", "Examples:", "-target", "-rse", "-draws", "-seed", "-workers", "-growth", "-error", format.Wrap(format.Caution, 76)} {
 		if !strings.Contains(out, want) {
 			t.Errorf("help lacks %q", want)
 		}

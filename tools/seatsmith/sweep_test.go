@@ -9,7 +9,7 @@ import (
 	"testing"
 
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
+	"seatsmith/engine/format"
 )
 
 // textbookCSV is the worked example of the Alabama paradox in Tannenbaum,
@@ -124,7 +124,7 @@ func TestAnalysisHelp(t *testing.T) {
 		if code != 0 {
 			t.Errorf("%s -h: exit %d", c, code)
 		}
-		for _, want := range []string{"Usage: seatsmith " + c, "Examples:", "seatsmith " + c + " ", "Exit status:", report.Wrap(report.Caution, 76)} {
+		for _, want := range []string{"Usage: seatsmith " + c, "Examples:", "seatsmith " + c + " ", "Exit status:", format.Wrap(format.Caution, 76)} {
 			if !strings.Contains(out, want) {
 				t.Errorf("%s -h lacks %q", c, want)
 			}

@@ -1,0 +1,71 @@
+package render
+
+import (
+	"strings"
+	"unicode/utf8"
+)
+
+// SVG returns n, an <svg> element with its xmlns attribute, written as a
+// standalone SVG file: an XML declaration, then every element in XML form
+// (empty elements closed with "/>"), text and attribute values escaped,
+// and characters XML does not allow (control characters, invalid UTF-8)
+// written as U+FFFD.
+func SVG(n *Node) string {
+	var b strings.Builder
+	b.WriteString(`<?xml version="1.0" encoding="UTF-8"?>` + "\n")
+	writeXML(&b, n)
+	b.WriteByte('\n')
+	return b.String()
+}
+
+func writeXML(b *strings.Builder, n *Node) {
+	if n.Tag == "" {
+		escapeXML(b, n.Text, false)
+		return
+	}
+	b.WriteByte('<')
+	b.WriteString(n.Tag)
+	for _, a := range n.Attrs {
+		b.WriteByte(' ')
+		b.WriteString(a.Key)
+		b.WriteString(`="`)
+		escapeXML(b, a.Val, true)
+		b.WriteByte('"')
+	}
+	if len(n.Kids) == 0 {
+		b.WriteString("/>")
+		return
+	}
+	b.WriteByte('>')
+	for _, k := range n.Kids {
+		writeXML(b, k)
+	}
+	b.WriteString("</")
+	b.WriteString(n.Tag)
+	b.WriteByte('>')
+}
+
+// escapeXML writes s escaped for XML character data, or for an attribute
+// value in double quotes.
+func escapeXML(b *strings.Builder, s string, attr bool) {
+	for i := 0; i < len(s); {
+		r, size := utf8.DecodeRuneInString(s[i:])
+		i += size
+		switch {
+		case r == '&':
+			b.WriteString("&amp;")
+		case r == '<':
+			b.WriteString("&lt;")
+		case r == '>':
+			b.WriteString("&gt;")
+		case r == '"' && attr:
+			b.WriteString("&#34;")
+		case r == '\'' && attr:
+			b.WriteString("&#39;")
+		case r == utf8.RuneError && size == 1, r < 0x20 && r != '\t' && r != '\n' && r != '\r', r == 0xFFFE, r == 0xFFFF:
+			b.WriteRune(utf8.RuneError)
+		default:
+			b.WriteRune(r)
+		}
+	}
+}
