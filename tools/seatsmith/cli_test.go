@@ -6,8 +6,8 @@ import (
 	"strings"
 	"testing"
 
-	"seatsmith/engine/jsondoc"
 	"seatsmith/engine/format"
+	"seatsmith/engine/jsondoc"
 )
 
 const demoCSV = "testdata/demo/vessaria.csv"

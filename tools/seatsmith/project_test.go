@@ -7,8 +7,8 @@ import (
 	"strings"
 	"testing"
 
-	"seatsmith/engine/jsondoc"
 	"seatsmith/engine/format"
+	"seatsmith/engine/jsondoc"
 )
 
 // demoCounts are the invented dated counts of Vessaria's provinces.

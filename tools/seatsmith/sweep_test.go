@@ -8,8 +8,8 @@ import (
 	"strings"
 	"testing"
 
-	"seatsmith/engine/jsondoc"
 	"seatsmith/engine/format"
+	"seatsmith/engine/jsondoc"
 )
 
 // textbookCSV is the worked example of the Alabama paradox in Tannenbaum,
