@@ -161,17 +161,18 @@ func (v *QuotaViolation) SizeText(bounds bool) string {
 func FindQuotaViolations(sw *engine.SweepResult, s *engine.Scenario) []QuotaViolation {
 	var out []QuotaViolation
 	total := totalOf(sw.Populations, sw.Excluded)
+	qt := newQuotaTest(sw.Populations, sw.Excluded)
 	for k := range sw.Sizes {
 		z := &sw.Sizes[k]
 		if z.Err != nil {
 			continue
 		}
 		for i, a := range z.Seats {
-			q := quotaOf(sw.Populations[i], total, z.House, sw.Excluded[i])
-			l, u := floorCeil(q)
-			if a >= l && a <= u {
+			if qt.within(i, a, z.House) {
 				continue
 			}
+			q := quotaOf(sw.Populations[i], total, z.House, sw.Excluded[i])
+			l, u := floorCeil(q)
 			out = append(out, QuotaViolation{sw.Method, z.House, i, sw.Names[i], a, q, l, u, false})
 		}
 	}
@@ -179,6 +180,55 @@ func FindQuotaViolations(sw *engine.SweepResult, s *engine.Scenario) []QuotaViol
 		markBounds(out, sw, s)
 	}
 	return out
+}
+
+// A quotaTest tells whether a unit's seats lie within its quota p·h/P
+// without making the quota: with every population written with the same
+// number of decimal places as a whole number, a < floor(q) exactly when
+// (a+1)·P ≤ p·h, and a > ceil(q) exactly when (a−1)·P ≥ p·h. It reuses
+// its numbers, so that a sweep of millions of sizes allocates only for
+// the violations it finds.
+type quotaTest struct {
+	pops     []*big.Int // nil for an excluded unit
+	total    big.Int
+	ph, side big.Int
+}
+
+func newQuotaTest(pops []engine.Decimal, excluded []bool) *quotaTest {
+	places := 0
+	for _, p := range pops {
+		places = max(places, int(p.Places))
+	}
+	t := &quotaTest{pops: make([]*big.Int, len(pops))}
+	ten := big.NewInt(10)
+	for i, p := range pops {
+		if excluded != nil && excluded[i] {
+			continue
+		}
+		x := new(big.Int).SetUint64(p.Coef)
+		x.Mul(x, new(big.Int).Exp(ten, big.NewInt(int64(places-int(p.Places))), nil))
+		t.pops[i] = x
+		t.total.Add(&t.total, x)
+	}
+	return t
+}
+
+// within reports whether a seats of unit i lie within its quota at house
+// size h (an excluded unit's quota is zero).
+func (t *quotaTest) within(i, a, h int) bool {
+	if t.pops[i] == nil || t.total.Sign() == 0 {
+		return a == 0
+	}
+	t.ph.SetInt64(int64(h))
+	t.ph.Mul(&t.ph, t.pops[i])
+	t.side.SetInt64(int64(a + 1))
+	t.side.Mul(&t.side, &t.total)
+	if t.side.Cmp(&t.ph) <= 0 {
+		return false // below the lower quota
+	}
+	t.side.SetInt64(int64(a - 1))
+	t.side.Mul(&t.side, &t.total)
+	return t.side.Cmp(&t.ph) < 0 // not above the upper quota
 }
 
 // hasBounds reports whether any unit of s has a minimum or a maximum.

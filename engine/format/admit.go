@@ -32,7 +32,7 @@ func Admit(title string, a *analysis.AdmitSet) *Document {
 	}
 	d.Body = []Block{admitTable(a), List{Items: lines}}
 	d.Data = admitData(a)
-	d.Tree = &Tree{Root: admitJSON(title, a)}
+	d.Tree = func() *Tree { return &Tree{Root: admitJSON(title, a)} }
 	return d
 }
 

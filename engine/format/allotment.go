@@ -48,15 +48,17 @@ func Allotment(title string, res *engine.Result, s *engine.Scenario, opt AllotOp
 	}
 	d.Body = append(d.Body, explanation(res, opt.Order)...)
 	d.Data = AllotmentData(res, s, !opt.skipped("margins"))
-	root := allotment(title, res, jsondoc.NewArray())
-	if len(opt.Skipped) > 0 {
-		arr := jsondoc.NewArray()
-		for _, s := range opt.Skipped {
-			arr.Append(jsondoc.Str(s))
+	d.Tree = func() *Tree {
+		root := allotment(title, res, jsondoc.NewArray())
+		if len(opt.Skipped) > 0 {
+			arr := jsondoc.NewArray()
+			for _, s := range opt.Skipped {
+				arr.Append(jsondoc.Str(s))
+			}
+			root.Set("skipped", arr)
 		}
-		root.Set("skipped", arr)
+		return &Tree{Root: root, Streams: []Stream{{Key: "units", N: len(res.Units), Item: func(i int) *jsondoc.Value { return unitDoc(&res.Units[i], res.Method) }}}}
 	}
-	d.Tree = &Tree{Root: root, Key: "units", N: len(res.Units), Item: func(i int) *jsondoc.Value { return unitDoc(&res.Units[i], res.Method) }}
 	return d
 }
 

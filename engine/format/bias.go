@@ -25,7 +25,7 @@ func Bias(title string, st *analysis.BiasStudy) *Document {
 		Paragraph{"A set with a tie has it settled by lot (seeded from the study's seed and the set's number), so every seat is assigned in every set."},
 	}
 	d.Data = biasData(st)
-	d.Tree = &Tree{Root: biasJSON(title, st)}
+	d.Tree = func() *Tree { return &Tree{Root: biasJSON(title, st)} }
 	return d
 }
 

@@ -21,7 +21,7 @@ func Comparison(title string, c *analysis.Comparison) *Document {
 	}
 	d.Body = append(d.Body, comparisonTable(c), List{Items: comparisonNotes(c)})
 	d.Data = ComparisonData(c)
-	d.Tree = &Tree{Root: ComparisonJSON(title, c)}
+	d.Tree = func() *Tree { return &Tree{Root: ComparisonJSON(title, c)} }
 	return d
 }
 

@@ -36,7 +36,7 @@ func Derived(title string, d *analysis.DerivedBody, s *engine.Scenario) *Documen
 	st := SettingsOf(s)
 	st.Method, st.Seats = r.Method, r.Seats
 	doc.Data = derivedData(st, d)
-	doc.Tree = &Tree{Root: derivedJSON(title, d)}
+	doc.Tree = func() *Tree { return &Tree{Root: derivedJSON(title, d)} }
 	return doc
 }
 

@@ -41,7 +41,7 @@ func Diff(title string, d *analysis.Diff, base, prop *engine.Scenario) *Document
 		"; Loosemore–Hanby "+fmtG(d.BaseMeasures.LoosemoreHanby)+"% → "+fmtG(d.ProposalMeasures.LoosemoreHanby)+"%")
 	doc.Body = []Block{List{Items: []string{desc("baseline", d.Base), desc("proposal", d.Proposal)}}, diffTable(d), List{Items: lines}}
 	doc.Data = diffData(SettingsOf(base), SettingsOf(prop), d)
-	doc.Tree = &Tree{Root: diffJSON(title, d)}
+	doc.Tree = func() *Tree { return &Tree{Root: diffJSON(title, d)} }
 	return doc
 }
 

@@ -23,8 +23,9 @@ type Document struct {
 	// Data is the table a CSV file holds: one row per record, numbers in
 	// numeric columns, the settings leading every row.
 	Data *Table
-	// Tree is the JSON form.
-	Tree *Tree
+	// Tree makes the JSON form (when asked for: the JSON form of a long
+	// sweep's paradoxes is large).
+	Tree func() *Tree
 	// Chart, when the document has one, draws it as an <svg> element
 	// (made only when asked for: a chart of a long sweep is large).
 	Chart func() *render.Node
@@ -53,26 +54,32 @@ func (Paragraph) block() {}
 func (List) block()      {}
 func (*Table) block()    {}
 
-// A Tree is a document's JSON form: Root, and optionally one large array
-// member of Root made item by item as it is written, so that a million
-// units are never held as a tree. Root then holds that member, named Key,
-// as an empty array; Item makes item i of N.
+// A Tree is a document's JSON form: Root, whose large array members
+// (the units of an allotment, the sizes and paradoxes of a sweep) may be
+// made item by item as they are written, so that a million of them are
+// never held as a tree. Root holds each streamed member as an empty
+// array.
 type Tree struct {
-	Root *jsondoc.Value
+	Root    *jsondoc.Value
+	Streams []Stream
+}
+
+// A Stream is an array member of a tree's root, named Key, whose N items
+// Item makes one at a time.
+type Stream struct {
 	Key  string
 	N    int
 	Item func(i int) *jsondoc.Value
 }
 
-// Value returns the whole tree, the streamed array made in full.
+// Value returns the whole tree, the streamed arrays made in full.
 func (t *Tree) Value() *jsondoc.Value {
-	if t.Key == "" {
-		return t.Root
-	}
-	arr := t.Root.Get(t.Key)
-	arr.Items = arr.Items[:0]
-	for i := 0; i < t.N; i++ {
-		arr.Append(t.Item(i))
+	for _, s := range t.Streams {
+		arr := t.Root.Get(s.Key)
+		arr.Items = arr.Items[:0]
+		for i := 0; i < s.N; i++ {
+			arr.Append(s.Item(i))
+		}
 	}
 	return t.Root
 }

@@ -52,7 +52,7 @@ func Growth(title string, g *analysis.GrowthSet) *Document {
 	}
 	d.Body = []Block{growthTable(g), List{Items: lines}}
 	d.Data = growthData(g)
-	d.Tree = &Tree{Root: growthJSON(title, g)}
+	d.Tree = func() *Tree { return &Tree{Root: growthJSON(title, g)} }
 	return d
 }
 

@@ -30,7 +30,7 @@ func House(title string, hs *analysis.HouseSize, c *analysis.Comparison) *Docume
 	for i := 0; i < data.Len(); i++ {
 		d.Data.Add(row([]string{hs.Rule.String(), hs.Text}, data.At(i, nil)...)...)
 	}
-	d.Tree = &Tree{Root: houseJSON(title, hs, c)}
+	d.Tree = func() *Tree { return &Tree{Root: houseJSON(title, hs, c)} }
 	return d
 }
 

@@ -33,7 +33,7 @@ func Measures(title string, set *analysis.MeasureSet) *Document {
 		d.Body = append(d.Body, Paragraph{n})
 	}
 	d.Data = measureData(set)
-	d.Tree = &Tree{Root: measureJSON(title, set)}
+	d.Tree = func() *Tree { return &Tree{Root: measureJSON(title, set)} }
 	return d
 }
 

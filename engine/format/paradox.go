@@ -50,7 +50,7 @@ func Paradoxes(title string, set *analysis.SweepSet, limit int) *Document {
 		d.Body = append(d.Body, l)
 	}
 	d.Data = paradoxData(set)
-	d.Tree = &Tree{Root: ParadoxJSON(title, set)}
+	d.Tree = func() *Tree { return paradoxTree(title, set) }
 	return d
 }
 
@@ -116,13 +116,20 @@ func tieDetail(ts []engine.Tie) string {
 	return strings.Join(s, "; ")
 }
 
-// ParadoxJSON returns the paradoxes document (JSON) of a sweep set: the
-// Alabama paradoxes and quota violations of every method over the range.
+// ParadoxJSON returns the paradoxes document (JSON) of a sweep set, built
+// whole: the Alabama paradoxes and quota violations of every method over
+// the range.
 func ParadoxJSON(title string, set *analysis.SweepSet) *jsondoc.Value {
+	return paradoxTree(title, set).Value()
+}
+
+// paradoxTree is the paradoxes document with its findings made one at a
+// time.
+func paradoxTree(title string, set *analysis.SweepSet) *Tree {
 	v := header("paradoxes", title)
 	v.Set("from", jsondoc.Int(set.From)).Set("to", jsondoc.Int(set.To))
 	methods := jsondoc.NewArray()
-	all := jsondoc.NewArray()
+	var all []func() *jsondoc.Value
 	for k, m := range set.Methods {
 		x := jsondoc.NewObject().Set("method", jsondoc.Str(m.String())).Set("method_name", jsondoc.Str(m.Name()))
 		if set.Sweeps[k] == nil {
@@ -134,13 +141,16 @@ func ParadoxJSON(title string, set *analysis.SweepSet) *jsondoc.Value {
 		x.Set("error", nil).Set("alabama", jsondoc.Int(len(set.Paradoxes[k]))).Set("quota_violations", jsondoc.Int(len(qv)))
 		methods.Append(x)
 		for j := range set.Paradoxes[k] {
-			all.Append(alabamaDoc(&set.Paradoxes[k][j]))
+			f := &set.Paradoxes[k][j]
+			all = append(all, func() *jsondoc.Value { return alabamaDoc(f) })
 		}
 		for j := range qv {
-			all.Append(quotaDoc(&qv[j]))
+			q := &qv[j]
+			all = append(all, func() *jsondoc.Value { return quotaDoc(q) })
 		}
 	}
-	return v.Set("methods", methods).Set("paradoxes", all)
+	v.Set("methods", methods).Set("paradoxes", jsondoc.NewArray())
+	return &Tree{Root: v, Streams: []Stream{{Key: "paradoxes", N: len(all), Item: func(i int) *jsondoc.Value { return all[i]() }}}}
 }
 
 // quotaDoc writes one quota violation: {kind: "quota", method, unit, house,

@@ -51,7 +51,7 @@ func Projection(s *projection.Summary, scen *engine.Scenario) *Document {
 	st := SettingsOf(scen)
 	st.Method, st.Seats = s.Method, s.Seats
 	d.Data = projectionData(st, s)
-	d.Tree = &Tree{Root: ProjectionJSON(s)}
+	d.Tree = func() *Tree { return &Tree{Root: ProjectionJSON(s)} }
 	return d
 }
 

@@ -27,7 +27,7 @@ func Sweep(title string, set *analysis.SweepSet) *Document {
 		d.Body = append(d.Body, sweepTable(sw), sweepFindings(sw, set.Paradoxes[k]))
 	}
 	d.Data = SweepData(set)
-	d.Tree = sweepTree(title, set)
+	d.Tree = func() *Tree { return sweepTree(title, set) }
 	d.Chart = func() *render.Node { return chart.Sweep(d.Title, set, strings.Split(Wrap(Caution, 110), "\n")) }
 	return d
 }
@@ -265,13 +265,13 @@ func sweepTree(title string, set *analysis.SweepSet) *Tree {
 	}
 	v.Set("units", units)
 	v.Set("sizes", jsondoc.NewArray())
-	par := jsondoc.NewArray()
+	v.Set("paradoxes", jsondoc.NewArray())
+	var ps []*analysis.Alabama
 	for k := range set.Methods {
 		for j := range set.Paradoxes[k] {
-			par.Append(alabamaDoc(&set.Paradoxes[k][j]))
+			ps = append(ps, &set.Paradoxes[k][j])
 		}
 	}
-	v.Set("paradoxes", par)
 	// Methods that failed have no sizes.
 	idx, n := newSweepRows(set, func(sw *engine.SweepResult) int { return len(sw.Sizes) })
 	for k, sw := range set.Sweeps {
@@ -280,7 +280,7 @@ func sweepTree(title string, set *analysis.SweepSet) *Tree {
 			idx.counts[k] = 0
 		}
 	}
-	return &Tree{Root: v, Key: "sizes", N: n, Item: func(i int) *jsondoc.Value {
+	sizes := Stream{Key: "sizes", N: n, Item: func(i int) *jsondoc.Value {
 		k, j := idx.at(i)
 		sw := set.Sweeps[k]
 		z := &sw.Sizes[j]
@@ -297,6 +297,8 @@ func sweepTree(title string, set *analysis.SweepSet) *Tree {
 		}
 		return x.Set("unassigned", jsondoc.Int(z.Unassigned)).Set("ties", tieList(z.Ties, func(i int) string { return sw.Names[i] })).Set("error", nil)
 	}}
+	paradoxes := Stream{Key: "paradoxes", N: len(ps), Item: func(i int) *jsondoc.Value { return alabamaDoc(ps[i]) }}
+	return &Tree{Root: v, Streams: []Stream{sizes, paradoxes}}
 }
 
 // alabamaDoc writes one Alabama paradox: {kind: "alabama", method, unit,

@@ -80,8 +80,8 @@ func runParadox(e *env, args []string) int {
 // unit), so the run is refused up front, naming the limit, rather than
 // grown without bound.
 const (
-	maxSweepResults = engine.MaxSweepCells // house sizes × units × methods
-	maxSweepSizes   = 2_000_000            // house sizes × methods
+	maxSweepResults = 10_000_000 // house sizes × units × methods
+	maxSweepSizes   = 1_000_000  // house sizes × methods
 )
 
 // sweepSize checks a run of sizes house sizes of n units by k methods

@@ -153,11 +153,11 @@ func TestRunawayInputsAreRefused(t *testing.T) {
 		{[]string{"allot", "-method", "webster", "-seats", "1000000000", "-order", demoCSV},
 			"-order: the seat order lists every seat and is held in memory, so it is listed for at most 1000000 seats, not 1000000000"},
 		{[]string{"sweep", "-from", "1", "-to", "1000000", demoCSV},
-			"-from/-to: 1000000 house sizes by 8 methods is more than the limit of 2000000 apportionments in one run"},
+			"-from/-to: 1000000 house sizes by 8 methods is more than the limit of 1000000 apportionments in one run"},
 		{[]string{"paradox", "-method", "webster", "-from", "1", "-to", "3000000", demoCSV},
-			"-from/-to: 3000000 house sizes is more than the limit of 2000000 apportionments in one run"},
+			"-from/-to: 3000000 house sizes is more than the limit of 1000000 apportionments in one run"},
 		{[]string{"sweep", "-method", "webster", "-from", "1", "-to", "1000000", "-"},
-			"-from/-to: 1000000 house sizes of 30 units is more than the limit of 20000000 seat counts in one run"},
+			"-from/-to: 1000000 house sizes of 30 units is more than the limit of 10000000 seat counts in one run"},
 	} {
 		var in strings.Builder
 		in.WriteString("name,population\n")
