@@ -17,7 +17,7 @@ func Comparison(title string, c *analysis.Comparison) *Document {
 		d.Title = "Methods compared"
 	}
 	if f := c.First(); f != nil {
-		d.Body = append(d.Body, Paragraph{"All methods, " + Plural(f.Seats, "seat") + ", population " + f.Total + "."})
+		d.Body = append(d.Body, Paragraph{capital(Plural(len(c.Methods), "method")) + ", " + Plural(f.Seats, "seat") + ", population " + f.Total + "."})
 	}
 	d.Body = append(d.Body, comparisonTable(c), List{Items: comparisonNotes(c)})
 	d.Data = ComparisonData(c)

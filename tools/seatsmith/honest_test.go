@@ -1,10 +1,14 @@
 package main
 
 import (
+	"errors"
 	"os"
+	"os/exec"
 	"path/filepath"
 	"strings"
+	"syscall"
 	"testing"
+	"time"
 )
 
 // The tests in this file hold the command line to saying what it does
@@ -235,5 +239,50 @@ func TestQuotaViolationNotBlamedOnIdleBounds(t *testing.T) {
 	}
 	if strings.Contains(out, "minimums") {
 		t.Errorf("the violation is blamed on the minimums:\n%s", out)
+	}
+}
+
+// TestSignalLeavesNoTemporaryFile: a run stopped by a signal while it
+// writes -o FILE removes its temporary file and leaves FILE as it was.
+// The run sweeps a million house sizes, whose table takes seconds to
+// write, and is stopped once its temporary file appears.
+func TestSignalLeavesNoTemporaryFile(t *testing.T) {
+	if testing.Short() {
+		t.Skip("writes a large sweep")
+	}
+	dir := t.TempDir()
+	dst := filepath.Join(dir, "sweep.txt")
+	writeFile(t, dst, "the previous result\n")
+	cmd := exec.Command(binary, "sweep", "-method", "webster", "-from", "1", "-to", "1000000", "-o", dst, demoCSV)
+	cmd.Dir = repoRoot(t)
+	if err := cmd.Start(); err != nil {
+		t.Fatal(err)
+	}
+	seen := false
+	for deadline := time.Now().Add(60 * time.Second); time.Now().Before(deadline) && !seen; time.Sleep(2 * time.Millisecond) {
+		entries, _ := os.ReadDir(dir)
+		for _, e := range entries {
+			seen = seen || strings.HasPrefix(e.Name(), ".seatsmith-")
+		}
+	}
+	if !seen {
+		cmd.Process.Kill()
+		cmd.Wait()
+		t.Fatal("no temporary file appeared while the sweep was written")
+	}
+	cmd.Process.Signal(syscall.SIGTERM)
+	err := cmd.Wait()
+	var exit *exec.ExitError
+	if !errors.As(err, &exit) || exit.ExitCode() != 128+int(syscall.SIGTERM) {
+		t.Errorf("stopped run: %v, want exit status %d", err, 128+int(syscall.SIGTERM))
+	}
+	entries, _ := os.ReadDir(dir)
+	for _, e := range entries {
+		if strings.HasPrefix(e.Name(), ".seatsmith-") {
+			t.Errorf("temporary file left: %s", e.Name())
+		}
+	}
+	if b, _ := os.ReadFile(dst); string(b) != "the previous result\n" {
+		t.Errorf("the file was changed: %.60q", b)
 	}
 }

@@ -28,7 +28,7 @@ func (Encoder) Encode(w io.Writer, d *format.Document) error {
 		case format.List:
 			indent := ""
 			if x.Head != "" {
-				b.WriteString(format.Wrap(x.Head, Width) + "\n")
+				b.WriteString(x.Head + "\n")
 				indent = "  "
 			}
 			for _, it := range x.Items {
