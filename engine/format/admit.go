@@ -137,7 +137,7 @@ func admitJSON(title string, a *analysis.AdmitSet) *jsondoc.Value {
 	}
 	results := jsondoc.NewArray()
 	for k, m := range a.Methods {
-		x := jsondoc.NewObject().Set("method", jsondoc.Str(m.String())).Set("method_name", jsondoc.Str(m.Name()))
+		x := methodDoc(m)
 		r := a.Results[k]
 		if r == nil {
 			x.Set("error", jsondoc.Str(a.Errors[k].Error()))

@@ -438,3 +438,8 @@ func tieList(ts []engine.Tie, name func(int) string) *jsondoc.Value {
 	}
 	return arr
 }
+
+// methodDoc starts a method's entry in a document: {method, method_name}.
+func methodDoc(m engine.Method) *jsondoc.Value {
+	return jsondoc.NewObject().Set("method", jsondoc.Str(m.String())).Set("method_name", jsondoc.Str(m.Name()))
+}

@@ -182,7 +182,7 @@ func ComparisonJSON(title string, c *analysis.Comparison) *jsondoc.Value {
 	v.Set("units", units)
 	results := jsondoc.NewArray()
 	for k, m := range c.Methods {
-		x := jsondoc.NewObject().Set("method", jsondoc.Str(m.String())).Set("method_name", jsondoc.Str(m.Name()))
+		x := methodDoc(m)
 		if r := c.Results[k]; r != nil {
 			x.Set("error", nil).Set("ties", Ties(r)).Set("unassigned", jsondoc.Int(r.Unassigned))
 			x.Set("quota_violations", jsondoc.Int(c.QuotaViolations(k)))

@@ -220,7 +220,7 @@ func growthJSON(title string, g *analysis.GrowthSet) *jsondoc.Value {
 	results := jsondoc.NewArray()
 	all := jsondoc.NewArray()
 	for k, m := range g.Methods {
-		x := jsondoc.NewObject().Set("method", jsondoc.Str(m.String())).Set("method_name", jsondoc.Str(m.Name()))
+		x := methodDoc(m)
 		r := g.Results[k]
 		if r == nil {
 			x.Set("error", jsondoc.Str(g.Errors[k].Error())).Set("seats_before", nil).Set("seats_after", nil).Set("paradoxes", nil)

@@ -152,7 +152,7 @@ func measureJSON(title string, set *analysis.MeasureSet) *jsondoc.Value {
 	v.Set("note", jsondoc.Str("Measures are float64 approximations for display; they decide no seat. Shares are in percent."))
 	arr := jsondoc.NewArray()
 	for k, m := range c.Methods {
-		x := jsondoc.NewObject().Set("method", jsondoc.Str(m.String())).Set("method_name", jsondoc.Str(m.Name()))
+		x := methodDoc(m)
 		ms := set.Measures[k]
 		if ms == nil {
 			x.Set("error", jsondoc.Str(c.Errors[k].Error()))

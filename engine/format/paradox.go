@@ -131,7 +131,7 @@ func paradoxTree(title string, set *analysis.SweepSet) *Tree {
 	methods := jsondoc.NewArray()
 	var all []func() *jsondoc.Value
 	for k, m := range set.Methods {
-		x := jsondoc.NewObject().Set("method", jsondoc.Str(m.String())).Set("method_name", jsondoc.Str(m.Name()))
+		x := methodDoc(m)
 		if set.Sweeps[k] == nil {
 			x.Set("error", jsondoc.Str(set.Errors[k].Error())).Set("alabama", nil).Set("quota_violations", nil)
 			methods.Append(x)

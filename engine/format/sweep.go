@@ -247,7 +247,7 @@ func sweepTree(title string, set *analysis.SweepSet) *Tree {
 	v.Set("from", jsondoc.Int(set.From)).Set("to", jsondoc.Int(set.To))
 	methods := jsondoc.NewArray()
 	for k, m := range set.Methods {
-		x := jsondoc.NewObject().Set("method", jsondoc.Str(m.String())).Set("method_name", jsondoc.Str(m.Name()))
+		x := methodDoc(m)
 		if set.Errors[k] != nil {
 			x.Set("error", jsondoc.Str(set.Errors[k].Error()))
 		} else {
