@@ -8,13 +8,6 @@ var voidElements = map[string]bool{
 	"input": true, "link": true, "meta": true, "source": true, "wbr": true,
 }
 
-// svgElements are written in SVG's foreign-content form (self-closing when
-// empty).
-var svgElements = map[string]bool{
-	"svg": true, "g": true, "rect": true, "line": true, "text": true,
-	"title": true, "desc": true, "path": true, "circle": true, "tspan": true,
-}
-
 // Allowed reports whether tag is one of the elements this package writes.
 // The browser side refuses any other tag.
 func Allowed(tag string) bool { return allowed[tag] }

@@ -6,7 +6,7 @@ import (
 
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
-	. "seatsmith/engine/render"
+	"seatsmith/engine/render"
 )
 
 // Panel geometry, in SVG user units. A panel is drawn about as wide as a
@@ -51,7 +51,7 @@ func Top(set *analysis.SweepSet) int {
 
 // Panel draws one method's sweep sw as an <svg> element, with its Alabama
 // paradoxes ps and quota violations vs, on a scale of top seats.
-func Panel(m engine.Method, sw *engine.SweepResult, ps []analysis.Alabama, vs []analysis.QuotaViolation, top int) *Node {
+func Panel(m engine.Method, sw *engine.SweepResult, ps []analysis.Alabama, vs []analysis.QuotaViolation, top int) *render.Node {
 	plotW := PanelWidth - panelLeft - panelRight
 	plotH := PanelHeight - panelTop - panelBottom
 	step := axisStep(float64(top), 5)
@@ -73,11 +73,11 @@ func Panel(m engine.Method, sw *engine.SweepResult, ps []analysis.Alabama, vs []
 	if n := len(analysis.UnsettledSizes(sw)); n > 0 {
 		label += "; " + plural(n, "house size") + " where a tie leaves seats unassigned, marked at the top"
 	}
-	svg := El("svg", "viewBox", "0 0 "+f1(PanelWidth)+" "+f1(PanelHeight), "class", "sc-svg sc-sweep-svg", "role", "img",
+	svg := render.El("svg", "viewBox", "0 0 "+f1(PanelWidth)+" "+f1(PanelHeight), "class", "sc-svg sc-sweep-svg", "role", "img",
 		"aria-label", label, "focusable", "false", "data-role", "sweep-svg")
-	svg.Add(Wrap("title", label))
+	svg.Add(render.Wrap("title", label))
 
-	svg.Add(El("rect", "x", f1(panelLeft), "y", f1(panelTop), "width", f1(plotW), "height", f1(plotH), "class", "sc-plot"))
+	svg.Add(render.El("rect", "x", f1(panelLeft), "y", f1(panelTop), "width", f1(plotW), "height", f1(plotH), "class", "sc-plot"))
 	// Sizes the method cannot apportion, shaded.
 	for k := 0; k < len(sw.Sizes); k++ {
 		if sw.Sizes[k].Err == nil {
@@ -88,41 +88,41 @@ func Panel(m engine.Method, sw *engine.SweepResult, ps []analysis.Alabama, vs []
 			j++
 		}
 		xa, xb := xs(float64(sw.Sizes[k].House)-0.5), xs(float64(sw.Sizes[j].House)+0.5)
-		svg.Add(El("rect", "x", f1(xa), "y", f1(panelTop), "width", f1(xb-xa), "height", f1(plotH), "class", "sc-refused"))
+		svg.Add(render.El("rect", "x", f1(xa), "y", f1(panelTop), "width", f1(xb-xa), "height", f1(plotH), "class", "sc-refused"))
 		k = j
 	}
 	// A pale column at each size where a unit loses a seat.
 	for j := range ps {
 		x := xs(float64(ps[j].To) - 0.5)
-		svg.Add(El("rect", "x", f1(x), "y", f1(panelTop), "width", f1(xs(float64(ps[j].To)+0.5)-x), "height", f1(plotH), "class", "sc-paradox-band"))
+		svg.Add(render.El("rect", "x", f1(x), "y", f1(panelTop), "width", f1(xs(float64(ps[j].To)+0.5)-x), "height", f1(plotH), "class", "sc-paradox-band"))
 	}
-	axis := El("g", "class", "sc-axis")
+	axis := render.El("g", "class", "sc-axis")
 	for v := 0.0; v <= yMax+1e-9; v += step {
 		y := f1(ys(v))
-		axis.Add(El("line", "x1", f1(panelLeft), "x2", f1(panelLeft+plotW), "y1", y, "y2", y, "class", "sc-grid-line"))
-		axis.Add(Wrap("text", strconv.Itoa(int(v)), "x", f1(panelLeft-5), "y", f1(ys(v)+3.5), "text-anchor", "end", "class", "sc-tick"))
+		axis.Add(render.El("line", "x1", f1(panelLeft), "x2", f1(panelLeft+plotW), "y1", y, "y2", y, "class", "sc-grid-line"))
+		axis.Add(render.Wrap("text", strconv.Itoa(int(v)), "x", f1(panelLeft-5), "y", f1(ys(v)+3.5), "text-anchor", "end", "class", "sc-tick"))
 	}
 	xstep := axisStep(float64(sw.To-sw.From), 6)
 	for v := math.Ceil(float64(sw.From)/xstep) * xstep; v <= float64(sw.To)+1e-9; v += xstep {
 		x := f1(xs(v))
-		axis.Add(El("line", "x1", x, "x2", x, "y1", f1(panelTop+plotH), "y2", f1(panelTop+plotH+4), "class", "sc-axis-line"))
-		axis.Add(Wrap("text", strconv.Itoa(int(v)), "x", x, "y", f1(panelTop+plotH+15), "text-anchor", "middle", "class", "sc-tick"))
+		axis.Add(render.El("line", "x1", x, "x2", x, "y1", f1(panelTop+plotH), "y2", f1(panelTop+plotH+4), "class", "sc-axis-line"))
+		axis.Add(render.Wrap("text", strconv.Itoa(int(v)), "x", x, "y", f1(panelTop+plotH+15), "text-anchor", "middle", "class", "sc-tick"))
 	}
-	axis.Add(Wrap("text", "house size", "x", f1(panelLeft+plotW/2), "y", f1(PanelHeight-6), "text-anchor", "middle", "class", "sc-axis-label"))
-	axis.Add(Wrap("text", "seats", "x", "10", "y", f1(panelTop+plotH/2), "text-anchor", "middle", "class", "sc-axis-label",
+	axis.Add(render.Wrap("text", "house size", "x", f1(panelLeft+plotW/2), "y", f1(PanelHeight-6), "text-anchor", "middle", "class", "sc-axis-label"))
+	axis.Add(render.Wrap("text", "seats", "x", "10", "y", f1(panelTop+plotH/2), "text-anchor", "middle", "class", "sc-axis-label",
 		"transform", "rotate(-90 10 "+f1(panelTop+plotH/2)+")"))
 	svg.Add(axis)
 	// A short mark at the top of each size with a tie.
 	for k := range sw.Sizes {
 		if len(sw.Sizes[k].Ties) > 0 {
 			x := f1(xs(float64(sw.Sizes[k].House)))
-			svg.Add(El("line", "x1", x, "x2", x, "y1", f1(panelTop), "y2", f1(panelTop+7), "class", "sc-tie-mark"))
+			svg.Add(render.El("line", "x1", x, "x2", x, "y1", f1(panelTop), "y2", f1(panelTop+7), "class", "sc-tie-mark"))
 		}
 	}
 	// One step line per unit, each nudged a little so that units with
 	// equal seats stay visible side by side.
 	nudge := func(i int) float64 { return float64(i%5-2) * 1.3 }
-	lines := El("g", "class", "sc-steps")
+	lines := render.El("g", "class", "sc-steps")
 	for i, name := range sw.Names {
 		if sw.Excluded[i] {
 			continue
@@ -153,8 +153,8 @@ func Panel(m engine.Method, sw *engine.SweepResult, ps []analysis.Alabama, vs []
 		if len(d) == 0 {
 			continue
 		}
-		p := El("path", "d", string(d), "class", "sc-step "+UnitClass(i), "data-sweep-unit", name)
-		p.Add(Wrap("title", name))
+		p := render.El("path", "d", string(d), "class", "sc-step "+UnitClass(i), "data-sweep-unit", name)
+		p.Add(render.Wrap("title", name))
 		lines.Add(p)
 	}
 	svg.Add(lines)
@@ -169,15 +169,15 @@ func Panel(m engine.Method, sw *engine.SweepResult, ps []analysis.Alabama, vs []
 			d = "M" + f1(x) + " " + f1(y+5.5) + "L" + f1(x+5) + " " + f1(y-3) + "L" + f1(x-5) + " " + f1(y-3) + "Z"
 			side = "below"
 		}
-		t := El("path", "d", d, "class", "sc-off "+UnitClass(v.Unit), "data-quota", side, "data-unit", v.Name, "data-house", strconv.Itoa(v.House))
-		t.Add(Wrap("title", v.SizeText(true)))
+		t := render.El("path", "d", d, "class", "sc-off "+UnitClass(v.Unit), "data-quota", side, "data-unit", v.Name, "data-house", strconv.Itoa(v.House))
+		t.Add(render.Wrap("title", v.SizeText(true)))
 		svg.Add(t)
 	}
 	for j := range ps {
 		f := &ps[j]
-		c := El("circle", "cx", f1(xs(float64(f.To))), "cy", f1(ys(float64(f.After))+nudge(f.Unit)), "r", "6",
+		c := render.El("circle", "cx", f1(xs(float64(f.To))), "cy", f1(ys(float64(f.After))+nudge(f.Unit)), "r", "6",
 			"class", "sc-ring "+UnitClass(f.Unit), "data-paradox", f.Name, "data-house", strconv.Itoa(f.To))
-		c.Add(Wrap("title", f.Text()))
+		c.Add(render.Wrap("title", f.Text()))
 		svg.Add(c)
 	}
 	return svg

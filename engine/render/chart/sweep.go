@@ -5,7 +5,7 @@ import (
 	"strings"
 
 	"seatsmith/engine/analysis"
-	. "seatsmith/engine/render"
+	"seatsmith/engine/render"
 )
 
 // Style holds, for a chart standing alone (a file written by the
@@ -48,28 +48,28 @@ const (
 // two columns (each drawn by [Panel], the pages' panel), and the caution,
 // given in lines (it is also the document's description). render.SVG
 // writes it as a file.
-func Sweep(title string, set *analysis.SweepSet, caution []string) *Node {
+func Sweep(title string, set *analysis.SweepSet, caution []string) *render.Node {
 	cols := 1
 	if len(set.Methods) > 1 {
 		cols = 2
 	}
 	width := 2*margin + float64(cols)*PanelWidth + float64(cols-1)*gap
-	body := El("g")
+	body := render.El("g")
 	y := margin + 16
-	body.Add(Wrap("text", title, "x", f1(margin), "y", f1(y), "class", "sc-chart-title"))
+	body.Add(render.Wrap("text", title, "x", f1(margin), "y", f1(y), "class", "sc-chart-title"))
 	y += 12
 
 	// The key: one entry a unit, then the marks that occur.
-	var keys []*Node
+	var keys []*render.Node
 	first := set.First()
 	if first != nil {
 		for i, name := range first.Names {
-			k := El("g")
+			k := render.El("g")
 			if first.Excluded[i] {
-				k.Add(Wrap("text", clip(name, 18)+" (below the threshold)", "x", "0", "y", "4", "class", "sc-key"))
+				k.Add(render.Wrap("text", clip(name, 18)+" (below the threshold)", "x", "0", "y", "4", "class", "sc-key"))
 			} else {
-				k.Add(El("line", "x1", "0", "y1", "0", "x2", "22", "y2", "0", "class", "sc-step "+UnitClass(i)))
-				k.Add(Wrap("text", clip(name, 22), "x", "28", "y", "4", "class", "sc-key"))
+				k.Add(render.El("line", "x1", "0", "y1", "0", "x2", "22", "y2", "0", "class", "sc-step "+UnitClass(i)))
+				k.Add(render.Wrap("text", clip(name, 22), "x", "28", "y", "4", "class", "sc-key"))
 			}
 			keys = append(keys, k)
 		}
@@ -86,22 +86,22 @@ func Sweep(title string, set *analysis.SweepSet, caution []string) *Node {
 			refused = refused || sw.Sizes[j].Err != nil
 		}
 	}
-	var marks []*Node
-	mark := func(shape *Node, text string) {
-		marks = append(marks, El("g").Add(shape, Wrap("text", text, "x", "28", "y", "4", "class", "sc-key")))
+	var marks []*render.Node
+	mark := func(shape *render.Node, text string) {
+		marks = append(marks, render.El("g").Add(shape, render.Wrap("text", text, "x", "28", "y", "4", "class", "sc-key")))
 	}
 	if al > 0 {
-		mark(El("circle", "cx", "11", "cy", "0", "r", "4.5", "class", "sc-ring sc-ring-key"), "ring: a unit loses a seat as the house grows (Alabama paradox)")
+		mark(render.El("circle", "cx", "11", "cy", "0", "r", "4.5", "class", "sc-ring sc-ring-key"), "ring: a unit loses a seat as the house grows (Alabama paradox)")
 	}
 	if qv > 0 {
-		mark(El("g").Add(El("path", "d", "M5 -4.5L9 3L1 3Z", "class", "sc-off sc-ring-key"), El("path", "d", "M17 4.5L21 -3L13 -3Z", "class", "sc-off sc-ring-key")),
+		mark(render.El("g").Add(render.El("path", "d", "M5 -4.5L9 3L1 3Z", "class", "sc-off sc-ring-key"), render.El("path", "d", "M17 4.5L21 -3L13 -3Z", "class", "sc-off sc-ring-key")),
 			"triangle up: above the upper quota; down: below the lower quota")
 	}
 	if ties {
-		mark(El("line", "x1", "11", "y1", "-5", "x2", "11", "y2", "5", "class", "sc-tie-mark"), "mark at the top: a tie at this house size")
+		mark(render.El("line", "x1", "11", "y1", "-5", "x2", "11", "y2", "5", "class", "sc-tie-mark"), "mark at the top: a tie at this house size")
 	}
 	if refused {
-		mark(El("rect", "x", "1", "y", "-5", "width", "20", "height", "10", "class", "sc-refused"), "grey: sizes the method cannot apportion")
+		mark(render.El("rect", "x", "1", "y", "-5", "width", "20", "height", "10", "class", "sc-refused"), "grey: sizes the method cannot apportion")
 	}
 	perRow := int((width - 2*margin) / keyWidth)
 	for i, k := range keys {
@@ -122,10 +122,10 @@ func Sweep(title string, set *analysis.SweepSet, caution []string) *Node {
 	col := 0
 	for k, m := range set.Methods {
 		x := margin + float64(col)*(PanelWidth+gap)
-		body.Add(Wrap("text", m.Name(), "x", f1(x), "y", f1(y+14), "class", "sc-heading"))
+		body.Add(render.Wrap("text", m.Name(), "x", f1(x), "y", f1(y+14), "class", "sc-heading"))
 		sw := set.Sweeps[k]
 		if sw == nil {
-			body.Add(Wrap("text", clip("Cannot apportion any house size in this range: "+errText(set.Errors[k]), 60),
+			body.Add(render.Wrap("text", clip("Cannot apportion any house size in this range: "+errText(set.Errors[k]), 60),
 				"x", f1(x), "y", f1(y+headRoom+16), "class", "sc-key"))
 		} else {
 			p := Panel(m, sw, set.Paradoxes[k], set.Violations(k), top)
@@ -142,17 +142,17 @@ func Sweep(title string, set *analysis.SweepSet, caution []string) *Node {
 		y += headRoom + PanelHeight + gap
 	}
 	for _, l := range caution {
-		body.Add(Wrap("text", l, "x", f1(margin), "y", f1(y), "class", "sc-caution"))
+		body.Add(render.Wrap("text", l, "x", f1(margin), "y", f1(y), "class", "sc-caution"))
 		y += lineRoom
 	}
 	height := y + margin - lineRoom/2
-	svg := El("svg", "xmlns", "http://www.w3.org/2000/svg", "width", f1(width), "height", f1(height),
+	svg := render.El("svg", "xmlns", "http://www.w3.org/2000/svg", "width", f1(width), "height", f1(height),
 		"viewBox", "0 0 "+f1(width)+" "+f1(height), "role", "img")
-	svg.Add(Wrap("title", title))
-	svg.Add(Wrap("desc", "Step chart of each unit's seats at every house size from "+strconv.Itoa(set.From)+" to "+strconv.Itoa(set.To)+
+	svg.Add(render.Wrap("title", title))
+	svg.Add(render.Wrap("desc", "Step chart of each unit's seats at every house size from "+strconv.Itoa(set.From)+" to "+strconv.Itoa(set.To)+
 		", one panel a method. "+strings.Join(caution, " ")))
-	svg.Add(Wrap("style", Style))
-	svg.Add(El("rect", "x", "0", "y", "0", "width", f1(width), "height", f1(height), "fill", "#ffffff"))
+	svg.Add(render.Wrap("style", Style))
+	svg.Add(render.El("rect", "x", "0", "y", "0", "width", f1(width), "height", f1(height), "fill", "#ffffff"))
 	return svg.Add(body)
 }
 
