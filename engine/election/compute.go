@@ -181,6 +181,18 @@ func (p *prepared) districtApportion(res *Result, i int, ok []bool, cells map[Ce
 		idx = append(idx, j)
 		pop = append(pop, p.decimalOf(p.v[i][j]))
 	}
+	// The district's units in the order of its vote rows, which a tie
+	// rule by input order follows.
+	order := make([]int, len(idx))
+	for k := range order {
+		order[k] = k
+	}
+	sort.SliceStable(order, func(a, b int) bool { return p.row[i][idx[order[a]]] < p.row[i][idx[order[b]]] })
+	idx2, pop2 := make([]int, len(idx)), make([]engine.Decimal, len(idx))
+	for k, o := range order {
+		idx2[k], pop2[k] = idx[o], pop[o]
+	}
+	idx, pop = idx2, pop2
 	d := &res.Districts[i]
 	if p.seats[i] == 0 {
 		return nil
@@ -553,48 +565,9 @@ func (p *prepared) mixedMember(res *Result) error {
 			res.Parties[j].Entitlement = ent.Units[k].Seats
 		}
 		res.Entitlement = ent
-		// The bound for largest-remainder methods, which may need
-		// single steps: at H ≥ wins·P/v every party's lower quota covers
-		// its wins.
-		limit := int64(engine.MaxSeats)
-		if !m.IsDivisor() {
-			total := new(big.Int)
-			for _, d := range pop {
-				total.Add(total, new(big.Int).SetUint64(d.Coef))
-			}
-			for k, j := range idx {
-				if wins[j] == 0 || pop[k].Coef == 0 {
-					continue
-				}
-				b := new(big.Int).Mul(total, big.NewInt(int64(wins[j])))
-				b.Quo(b, new(big.Int).SetUint64(pop[k].Coef))
-				if b.IsInt64() && b.Int64()+1 < limit && b.Int64()+1 > int64(house0) {
-					limit = max(b.Int64()+1, int64(house0))
-				}
-			}
-		}
-		h := house0
-		final = ent
-		for {
-			deficit := 0
-			for k, j := range idx {
-				deficit = max(deficit, wins[j]-final.Units[k].Seats)
-			}
-			if deficit <= 0 {
-				break
-			}
-			step := deficit
-			if !m.IsDivisor() {
-				step = 1
-			}
-			h += step
-			if int64(h) > limit || h > engine.MaxSeats {
-				return scenarioErr("seats", "levelling the overhang would need more than "+strconv.FormatInt(min(limit, int64(engine.MaxSeats)), 10)+" list seats")
-			}
-			final, err = p.allot(idx, pop, nil, h, m, "list")
-			if err != nil {
-				return err
-			}
+		final, err = p.level(idx, pop, wins, house0, ent)
+		if err != nil {
+			return err
 		}
 	default: // Keep
 		var err error
@@ -620,4 +593,105 @@ func (p *prepared) mixedMember(res *Result) error {
 	}
 	res.Seats = total + final.Unassigned
 	return nil
+}
+
+// level finds the smallest house, from house0 up, at which the list
+// apportionment gives every party at least its district wins (counting
+// the seats it holds outright), and returns that apportionment. Divisor
+// methods are house monotone, so the size is found by doubling and then
+// halving the range; largest-remainder methods are not, so the sizes are
+// tried one by one between the size below which some party's quota
+// cannot reach its wins and the size at which every quota does.
+func (p *prepared) level(idx []int, pop []engine.Decimal, wins []int, house0 int, ent *engine.Result) (*engine.Result, error) {
+	m := p.s.Method
+	short := func(r *engine.Result) bool {
+		for k, j := range idx {
+			if r.Units[k].Seats < wins[j] {
+				return true
+			}
+		}
+		return false
+	}
+	if !short(ent) {
+		return ent, nil
+	}
+	try := func(h int) (*engine.Result, error) { return p.allot(idx, pop, nil, h, m, "list") }
+	tooMany := scenarioErr("seats", "levelling the overhang would need a house of more than "+strconv.Itoa(engine.MaxSeats)+" seats")
+	if m.IsDivisor() {
+		lo, hi := house0, house0
+		var good *engine.Result
+		for step := 1; ; step *= 2 {
+			hi = lo + step
+			if hi > engine.MaxSeats {
+				hi = engine.MaxSeats
+			}
+			r, err := try(hi)
+			if err != nil {
+				return nil, err
+			}
+			if !short(r) {
+				good = r
+				break
+			}
+			if hi == engine.MaxSeats {
+				return nil, tooMany
+			}
+			lo = hi
+		}
+		// lo is short, hi is not.
+		for hi-lo > 1 {
+			mid := lo + (hi-lo)/2
+			r, err := try(mid)
+			if err != nil {
+				return nil, err
+			}
+			if short(r) {
+				lo = mid
+			} else {
+				hi, good = mid, r
+			}
+		}
+		return good, nil
+	}
+	// Largest remainders: a party's seats lie within one of its quota
+	// w·H/P, so no size below (wins−1)·P/v can serve and every size from
+	// wins·P/v on does.
+	total := new(big.Int)
+	for _, d := range pop {
+		total.Add(total, new(big.Int).SetUint64(d.Coef))
+	}
+	from, to := int64(house0), int64(house0)
+	for k, j := range idx {
+		if wins[j] == 0 {
+			continue
+		}
+		if pop[k].Coef == 0 {
+			return nil, p.partyError(j, "votes", "a party without list votes cannot be levelled up to its district wins")
+		}
+		v := new(big.Int).SetUint64(pop[k].Coef)
+		need := new(big.Int).Mul(total, big.NewInt(int64(wins[j]-1)))
+		need.Quo(need, v)
+		enough := new(big.Int).Mul(total, big.NewInt(int64(wins[j])))
+		enough.Add(enough, new(big.Int).Sub(v, big.NewInt(1)))
+		enough.Quo(enough, v)
+		if !enough.IsInt64() || enough.Int64() > engine.MaxSeats {
+			return nil, tooMany
+		}
+		from = max(from, need.Int64())
+		to = max(to, enough.Int64())
+	}
+	const maxTrials = 200_000
+	if to-from > maxTrials {
+		return nil, scenarioErr("seats", "levelling the overhang by a largest-remainder method would mean trying more than "+strconv.Itoa(maxTrials)+" house sizes")
+	}
+	for h := max(from, int64(house0)); h <= to+int64(len(idx)); h++ {
+		r, err := try(int(h))
+		if err != nil {
+			return nil, err
+		}
+		if !short(r) {
+			return r, nil
+		}
+	}
+	return nil, tooMany
 }
