@@ -91,14 +91,15 @@ func solveLower(lp *lowerProblem, tieOrder func([]cellRef) []cellRef) (*lowerRes
 		return nil, err
 	}
 	ex := newExactLower(lp)
-	if x, logd, loge, ok := lp.alternatingScaling(400); ok {
+	x, logd, loge, ok := lp.alternatingScaling(400)
+	if ok {
 		if res, ok := ex.certifyFloat(x, logd, loge); ok {
 			return res, nil
 		}
-		ex.start(logd)
-	} else {
-		ex.start(nil)
 	}
+	// Start the exact procedure from the estimate's district divisors
+	// (nil when it failed at once): near a solution few seats move.
+	ex.start(logd)
 	if err := ex.tieAndTransfer(); err != nil {
 		return nil, err
 	}
@@ -167,6 +168,20 @@ func apportion1(w []float64, seats int, rd rounding, x []int) (lo, hi float64, o
 	if seats > 0 {
 		D = total / float64(seats)
 	}
+	// next[k] is the claim on a further seat, last[k] that of the last
+	// seat held (+Inf when it cannot be given up).
+	next := make([]float64, len(w))
+	last := make([]float64, len(w))
+	set := func(k int) {
+		next[k], last[k] = 0, math.Inf(1)
+		if w[k] <= 0 {
+			return
+		}
+		next[k] = w[k] / rd.float(x[k])
+		if x[k] > fl {
+			last[k] = w[k] / rd.float(x[k]-1)
+		}
+	}
 	sum := 0
 	for k, v := range w {
 		x[k] = 0
@@ -174,30 +189,24 @@ func apportion1(w []float64, seats int, rd rounding, x []int) (lo, hi float64, o
 			x[k] = max(fl, rd.roundFloat(v/D))
 		}
 		sum += x[k]
+		set(k)
 	}
 	for sum < seats {
-		best, bp := -1, -1.0
-		for k, v := range w {
-			if v <= 0 {
-				continue
-			}
-			p := v / rd.float(x[k])
-			if p > bp {
-				best, bp = k, p
+		best := -1
+		for k := range w {
+			if w[k] > 0 && (best < 0 || next[k] > next[best]) {
+				best = k
 			}
 		}
 		x[best]++
 		sum++
+		set(best)
 	}
 	for sum > seats {
-		best, bp := -1, math.Inf(1)
-		for k, v := range w {
-			if v <= 0 || x[k] <= fl {
-				continue
-			}
-			p := v / rd.float(x[k]-1)
-			if p < bp {
-				best, bp = k, p
+		best := -1
+		for k := range w {
+			if !math.IsInf(last[k], 1) && (best < 0 || last[k] < last[best]) {
+				best = k
 			}
 		}
 		if best < 0 {
@@ -205,15 +214,13 @@ func apportion1(w []float64, seats int, rd rounding, x []int) (lo, hi float64, o
 		}
 		x[best]--
 		sum--
+		set(best)
 	}
 	lo, hi = 0, math.Inf(1)
 	for k, v := range w {
-		if v <= 0 {
-			continue
-		}
-		lo = max(lo, v/rd.float(x[k]))
-		if x[k] > fl {
-			hi = min(hi, v/rd.float(x[k]-1))
+		if v > 0 {
+			lo = max(lo, next[k])
+			hi = min(hi, last[k])
 		}
 	}
 	return lo, hi, true
@@ -235,7 +242,8 @@ func logMid(lo, hi float64) float64 {
 // alternatingScaling estimates the lower apportionment in floating point:
 // it fits every row at the current column divisors, then every column at
 // the row divisors, until both fit. It reports false when the rounding
-// cycles or does not settle within maxIter rounds.
+// does not settle within maxIter rounds (at a tie it may cycle), with the
+// divisors reached.
 func (lp *lowerProblem) alternatingScaling(maxIter int) (x [][]int, logd, loge []float64, ok bool) {
 	m, n := len(lp.r), len(lp.c)
 	x = make([][]int, m)
@@ -247,11 +255,15 @@ func (lp *lowerProblem) alternatingScaling(maxIter int) (x [][]int, logd, loge [
 	wr := make([]float64, n)
 	wc := make([]float64, m)
 	xc := make([]int, m)
-	prev := make([]int, m*n)
-	for it := range maxIter {
+	fe := make([]float64, n)
+	fd := make([]float64, m)
+	for range maxIter {
+		for j := range n {
+			fe[j] = math.Exp(-loge[j])
+		}
 		for i := range m {
 			for j := range n {
-				wr[j] = float64(lp.v[i][j]) * math.Exp(-loge[j])
+				wr[j] = float64(lp.v[i][j]) * fe[j]
 			}
 			lo, hi, good := apportion1(wr, lp.r[i], lp.rd, x[i])
 			if !good {
@@ -262,9 +274,12 @@ func (lp *lowerProblem) alternatingScaling(maxIter int) (x [][]int, logd, loge [
 		if lp.columnsFit(x) {
 			return x, logd, loge, true
 		}
+		for i := range m {
+			fd[i] = math.Exp(-logd[i])
+		}
 		for j := range n {
 			for i := range m {
-				wc[i] = float64(lp.v[i][j]) * math.Exp(-logd[i])
+				wc[i] = float64(lp.v[i][j]) * fd[i]
 			}
 			lo, hi, good := apportion1(wc, lp.c[j], lp.rd, xc)
 			if !good {
@@ -277,18 +292,6 @@ func (lp *lowerProblem) alternatingScaling(maxIter int) (x [][]int, logd, loge [
 		}
 		if lp.rowsFit(x) {
 			return x, logd, loge, true
-		}
-		same := true
-		for i := range m {
-			for j := range n {
-				if prev[i*n+j] != x[i][j] {
-					same = false
-				}
-				prev[i*n+j] = x[i][j]
-			}
-		}
-		if same && it > 0 {
-			return nil, logd, loge, false
 		}
 	}
 	return nil, logd, loge, false

@@ -17,8 +17,7 @@ type exactLower struct {
 	d, e []*big.Rat
 	fl   int
 
-	p    big.Rat // scratch
-	l, r big.Int
+	l, r, t big.Int // scratch
 }
 
 func newExactLower(lp *lowerProblem) *exactLower {
@@ -51,13 +50,13 @@ func (ex *exactLower) cmp(i, j, a int, di, ej *big.Rat) int {
 	if sn == 0 {
 		return 1
 	}
-	ex.p.Mul(di, ej)
-	// w·sd·den(p) against sn·num(p)
-	ex.l.Mul(ex.w[i][j], ex.p.Denom())
+	// w·sd·den(di)·den(ej) against sn·num(di)·num(ej)
+	ex.l.Mul(ex.w[i][j], di.Denom())
+	ex.l.Mul(&ex.l, ej.Denom())
 	ex.l.Mul(&ex.l, ex.r.SetUint64(sd))
-	var t big.Int
-	t.Mul(ex.p.Num(), ex.r.SetUint64(sn))
-	return ex.l.Cmp(&t)
+	ex.t.Mul(di.Num(), ej.Num())
+	ex.t.Mul(&ex.t, ex.r.SetUint64(sn))
+	return ex.l.Cmp(&ex.t)
 }
 
 // value is w/s(a) for cell (i, j): the divisor product at which the cell
@@ -125,34 +124,52 @@ func (ex *exactLower) interval(row bool, k int) (lo, hi *big.Rat, hasLo, hasHi b
 	if !row {
 		cnt = ex.m
 	}
+	// Bounds as unreduced fractions num/den, compared by cross
+	// multiplication; only the two winners become reduced rationals.
+	var loN, loD, hiN, hiD, num, den, a, b big.Int
 	for t := range cnt {
 		i, j := k, t
 		if !row {
 			i, j = t, k
 		}
+		if ex.w[i][j] == nil {
+			continue
+		}
 		other := ex.e[j]
 		if !row {
 			other = ex.d[i]
 		}
-		if ex.w[i][j] == nil {
-			continue
-		}
 		if other == nil {
 			continue
 		}
-		a := ex.x[i][j]
-		v := ex.value(i, j, a)
-		v.Quo(v, other)
-		if !hasLo || v.Cmp(lo) > 0 {
-			lo, hasLo = v, true
+		// w·sd / (sn·other) = w·sd·den(other) / (sn·num(other))
+		x := ex.x[i][j]
+		frac := func(s int) {
+			sn, sd := ex.lp.rd.sign(s)
+			num.Mul(ex.w[i][j], a.SetUint64(sd))
+			num.Mul(&num, other.Denom())
+			den.Mul(b.SetUint64(sn), other.Num())
 		}
-		if a > ex.fl {
-			u := ex.value(i, j, a-1)
-			u.Quo(u, other)
-			if !hasHi || u.Cmp(hi) < 0 {
-				hi, hasHi = u, true
+		frac(x)
+		if !hasLo || a.Mul(&num, &loD).Cmp(b.Mul(&loN, &den)) > 0 {
+			loN.Set(&num)
+			loD.Set(&den)
+			hasLo = true
+		}
+		if x > ex.fl {
+			frac(x - 1)
+			if !hasHi || a.Mul(&num, &hiD).Cmp(b.Mul(&hiN, &den)) < 0 {
+				hiN.Set(&num)
+				hiD.Set(&den)
+				hasHi = true
 			}
 		}
+	}
+	if hasLo {
+		lo = new(big.Rat).SetFrac(&loN, &loD)
+	}
+	if hasHi {
+		hi = new(big.Rat).SetFrac(&hiN, &hiD)
 	}
 	return lo, hi, hasLo, hasHi
 }

@@ -162,36 +162,49 @@ func (ex *exactLower) tieAndTransfer() error {
 			// No path: scale the reached districts' divisors up and the
 			// reached parties' divisors down by the least factor that puts
 			// one more cell on a signpost.
-			var alpha *big.Rat
+			// Candidates as unreduced fractions, compared by cross
+			// multiplication; only the least is reduced.
+			var aN, aD, cN, cD, u, v, sv big.Int
+			have := false
 			for i := range m {
 				for j := range n {
 					if ex.w[i][j] == nil || rowLab[i] == colLab[j] {
 						continue
 					}
-					var a *big.Rat
+					var sn, sd uint64
 					if rowLab[i] {
-						// its quotient falls: to its lower signpost
+						// its quotient falls to its lower signpost:
+						// alpha = q/s(a-1) = w·sd·den(d)·den(e) / (sn·num(d)·num(e))
 						if ex.x[i][j] <= ex.fl {
 							continue
 						}
-						// (alpha = q/s(a-1))
-						a = ex.value(i, j, ex.x[i][j]-1)
-						a.Quo(a, new(big.Rat).Mul(ex.d[i], ex.e[j]))
+						sn, sd = ex.lp.rd.sign(ex.x[i][j] - 1)
+						cN.Mul(ex.w[i][j], sv.SetUint64(sd))
+						cN.Mul(&cN, ex.d[i].Denom())
+						cN.Mul(&cN, ex.e[j].Denom())
+						cD.Mul(ex.d[i].Num(), ex.e[j].Num())
+						cD.Mul(&cD, sv.SetUint64(sn))
 					} else {
-						// its quotient rises: to its upper signpost
-						// (alpha = s(a)/q)
-						a = ex.value(i, j, ex.x[i][j])
-						a.Quo(a, new(big.Rat).Mul(ex.d[i], ex.e[j]))
-						a.Inv(a)
+						// its quotient rises to its upper signpost:
+						// alpha = s(a)/q
+						sn, sd = ex.lp.rd.sign(ex.x[i][j])
+						cD.Mul(ex.w[i][j], sv.SetUint64(sd))
+						cD.Mul(&cD, ex.d[i].Denom())
+						cD.Mul(&cD, ex.e[j].Denom())
+						cN.Mul(ex.d[i].Num(), ex.e[j].Num())
+						cN.Mul(&cN, sv.SetUint64(sn))
 					}
-					if alpha == nil || a.Cmp(alpha) < 0 {
-						alpha = a
+					if !have || u.Mul(&cN, &aD).Cmp(v.Mul(&aN, &cD)) < 0 {
+						aN.Set(&cN)
+						aD.Set(&cD)
+						have = true
 					}
 				}
 			}
-			if alpha == nil {
+			if !have {
 				return errInfeasible
 			}
+			alpha := new(big.Rat).SetFrac(&aN, &aD)
 			for i := range m {
 				if rowLab[i] {
 					ex.d[i] = new(big.Rat).Mul(ex.d[i], alpha)

@@ -88,6 +88,8 @@ func Verify(res *Result) error {
 	rows := make([]int, len(res.Districts))
 	cols := make([]int, len(res.Parties))
 	strictAll := res.Certificate != nil && res.Certificate.Strict
+	var w, scale, lhs, rhs, l, r, t big.Int
+	ten := big.NewInt(10)
 	for _, c := range res.Cells {
 		rows[c.District] += c.Seats
 		cols[c.Party] += c.Seats
@@ -106,28 +108,35 @@ func Verify(res *Result) error {
 			}
 			continue
 		}
-		// w = votes (squared for Huntington–Hill), exactly.
-		w := new(big.Rat).SetFrac(new(big.Int).SetUint64(c.Votes.Coef), new(big.Int).Exp(big.NewInt(10), big.NewInt(int64(c.Votes.Places)), nil))
+		// q = w / (d·e) with w = coef/10^places (squared for
+		// Huntington–Hill); q against s(a) = sn/sd compares
+		// coef·sd·den(d)·den(e) with sn·num(d)·num(e)·10^places.
+		w.SetUint64(c.Votes.Coef)
+		scale.Exp(ten, scale.SetInt64(int64(c.Votes.Places)), nil)
 		if rd.sq {
-			w.Mul(w, w)
+			w.Mul(&w, &w)
+			scale.Mul(&scale, &scale)
 		}
-		q := new(big.Rat).Quo(w, new(big.Rat).Mul(d[c.District], e[c.Party]))
-		sig := func(a int) *big.Rat {
-			n, dd := rd.sign(a)
-			return new(big.Rat).SetFrac(new(big.Int).SetUint64(n), new(big.Int).SetUint64(dd))
+		lhs.Mul(&w, d[c.District].Denom())
+		lhs.Mul(&lhs, e[c.Party].Denom())
+		rhs.Mul(d[c.District].Num(), e[c.Party].Num())
+		rhs.Mul(&rhs, &scale)
+		cmpSign := func(a int) (int, bool) {
+			sn, sd := rd.sign(a)
+			l.Mul(&lhs, t.SetUint64(sd))
+			r.Mul(&rhs, t.SetUint64(sn))
+			return l.Cmp(&r), sn == 0
 		}
 		x := c.Seats
 		strict := strictAll || !c.Tied
 		if x > 0 {
-			lo := sig(x - 1)
-			cmp := q.Cmp(lo)
-			if cmp < 0 || (cmp == 0 && strict && lo.Sign() > 0) {
-				return bad("the quotient " + q.FloatString(6) + " does not round to " + strconv.Itoa(x) + " seats")
+			cmp, zero := cmpSign(x - 1)
+			if cmp < 0 || (cmp == 0 && strict && !zero) {
+				return bad("the quotient does not round to " + strconv.Itoa(x) + " seats")
 			}
 		}
-		hi := sig(x)
-		if cmp := q.Cmp(hi); cmp > 0 || (cmp == 0 && strict) {
-			return bad("the quotient " + q.FloatString(6) + " does not round to " + strconv.Itoa(x) + " seats")
+		if cmp, _ := cmpSign(x); cmp > 0 || (cmp == 0 && strict) {
+			return bad("the quotient does not round to " + strconv.Itoa(x) + " seats")
 		}
 	}
 	if res.Unassigned == 0 {
