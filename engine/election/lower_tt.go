@@ -3,6 +3,7 @@ package election
 import (
 	"math"
 	"math/big"
+	"strconv"
 )
 
 // start sets the district divisors from an estimate (all one when logd is
@@ -11,8 +12,15 @@ func (ex *exactLower) start(logd []float64) {
 	for i := range ex.m {
 		ex.d[i] = big.NewRat(1, 1)
 		if logd != nil {
+			// Six significant digits are near enough to start from, and
+			// keep the divisors short where a tie pins them.
 			if f := math.Exp(logd[i]); f > 0 && !math.IsInf(f, 0) && !math.IsNaN(f) {
-				ex.d[i] = ratOfFloat(f, ex.lp.rd.sq)
+				if r, ok := new(big.Rat).SetString(strconv.FormatFloat(f, 'g', 6, 64)); ok {
+					if ex.lp.rd.sq {
+						r.Mul(r, r)
+					}
+					ex.d[i] = r
+				}
 			}
 		}
 	}
