@@ -408,6 +408,28 @@ func (p *prepared) biproportional(res *Result) error {
 	return nil
 }
 
+// nationalList records every party's qualification and district seats,
+// and returns the qualifying parties with their votes over the election,
+// and the district seats the others keep (which come off the house).
+func (p *prepared) nationalList(res *Result, ok []bool, why []string, dseats []int) (idx []int, pop []engine.Decimal, kept int, err error) {
+	for j := range p.parties {
+		pr := &res.Parties[j]
+		pr.Qualified, pr.Reason = ok[j], why[j]
+		pr.DistrictSeats, pr.Seats = dseats[j], dseats[j]
+		if !ok[j] {
+			kept += dseats[j]
+			continue
+		}
+		d, good := p.bigDecimal(p.partyTotal(j))
+		if !good {
+			return nil, nil, 0, p.partyError(j, "votes", "the votes add up to more than 10^18")
+		}
+		idx = append(idx, j)
+		pop = append(pop, d)
+	}
+	return idx, pop, kept, nil
+}
+
 // twoTier: the districts, then the compensatory seats.
 func (p *prepared) twoTier(res *Result) error {
 	s := p.s
@@ -432,24 +454,14 @@ func (p *prepared) twoTier(res *Result) error {
 	if house > engine.MaxSeats {
 		return scenarioErr("compensatory", "the house would have more than "+strconv.Itoa(engine.MaxSeats)+" seats")
 	}
-	var idx []int
-	var pop []engine.Decimal
-	var mins []int
-	for j := range p.parties {
-		res.Parties[j].Qualified, res.Parties[j].Reason = ok[j], why[j]
-		res.Parties[j].DistrictSeats = dseats[j]
-		res.Parties[j].Seats = dseats[j]
-		if !ok[j] {
-			house -= dseats[j]
-			continue
-		}
-		d, good := p.bigDecimal(p.partyTotal(j))
-		if !good {
-			return p.partyError(j, "votes", "the votes add up to more than 10^18")
-		}
-		idx = append(idx, j)
-		pop = append(pop, d)
-		mins = append(mins, dseats[j])
+	idx, pop, kept, err := p.nationalList(res, ok, why, dseats)
+	if err != nil {
+		return err
+	}
+	house -= kept
+	mins := make([]int, len(idx))
+	for k, j := range idx {
+		mins[k] = dseats[j]
 	}
 	res.Seats = res.BaseSeats + s.Compensatory
 	if len(idx) == 0 {
@@ -499,24 +511,13 @@ func (p *prepared) mixedMember(res *Result) error {
 			}
 		}
 	}
-	house0 := s.Seats
-	var idx []int
-	var pop []engine.Decimal
+	idx, pop, kept, err := p.nationalList(res, ok, why, wins)
+	if err != nil {
+		return err
+	}
+	house0 := s.Seats - kept
 	qualWins := 0
-	for j := range p.parties {
-		pr := &res.Parties[j]
-		pr.Qualified, pr.Reason = ok[j], why[j]
-		pr.DistrictSeats, pr.Seats = wins[j], wins[j]
-		if !ok[j] {
-			house0 -= wins[j]
-			continue
-		}
-		d, good := p.bigDecimal(p.partyTotal(j))
-		if !good {
-			return p.partyError(j, "votes", "the votes add up to more than 10^18")
-		}
-		idx = append(idx, j)
-		pop = append(pop, d)
+	for _, j := range idx {
 		qualWins += wins[j]
 	}
 	if house0 < 0 {

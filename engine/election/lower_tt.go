@@ -56,6 +56,11 @@ func (ex *exactLower) fitColumn(j int) {
 	}
 	for i := range m {
 		ex.x[i][j] = xc[i]
+		if ex.w[i][j] != nil && xc[i] < ex.fl {
+			// A weight lost to overflow: every cell with votes holds
+			// its floor.
+			ex.x[i][j] = ex.fl
+		}
 	}
 	// next(i) is the claim on a further seat, last(i) that of the last
 	// seat held; both divided by the district divisor.
@@ -223,33 +228,16 @@ func (ex *exactLower) tieAndTransfer() error {
 					ex.e[j] = new(big.Rat).Quo(ex.e[j], alpha)
 				}
 			}
+			// Expand every labelled district and party again: the cells
+			// the scaling put on a signpost lead on from them.
 			for i := range m {
-				for j := range n {
-					if ex.w[i][j] == nil || rowLab[i] == colLab[j] {
-						continue
-					}
-					if rowLab[i] && ex.status(i, j) == atLower {
-						colLab[j], colPar[j] = true, i
-						queue = append(queue, node{false, j})
-					}
+				if rowLab[i] {
+					queue = append(queue, node{true, i})
 				}
 			}
-			for i := range m {
-				for j := range n {
-					if ex.w[i][j] == nil || rowLab[i] || !colLab[j] {
-						continue
-					}
-					if ex.status(i, j) == atUpper && !rowLab[i] {
-						rowLab[i], rowPar[i] = true, j
-						if f[i] < 0 {
-							found = i
-							break
-						}
-						queue = append(queue, node{true, i})
-					}
-				}
-				if found >= 0 {
-					break
+			for j := range n {
+				if colLab[j] {
+					queue = append(queue, node{false, j})
 				}
 			}
 		}
