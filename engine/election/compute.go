@@ -51,7 +51,8 @@ func Compute(s *Scenario) (*Result, error) {
 // skeleton is the result before any seat is given.
 func (p *prepared) skeleton() *Result {
 	s := p.s
-	res := &Result{System: s.System, Method: s.Method, TieRule: s.Tie, Overhang: s.Overhang, UpperBasis: s.UpperBasis, DistrictSeats: p.seatsRes}
+	res := &Result{System: s.System, Method: s.Method, TieRule: s.Tie, Overhang: s.Overhang, UpperBasis: s.UpperBasis, DistrictSeats: p.seatsRes,
+		Thresholds: append([]Threshold(nil), s.Thresholds...), WinsThreshold: s.WinsThreshold}
 	if s.System == Biproportional || s.System == TwoTier {
 		res.UpperMethod = s.upperMethod()
 	}

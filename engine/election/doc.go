@@ -145,6 +145,8 @@
 //	compensatory   two-tier: the compensatory seats; null otherwise
 //	overhang_rule  mixed-member: keep, level or fixed; null otherwise
 //	upper_basis    biproportional: votes or voters; null otherwise
+//	thresholds     [{share (exact decimal), scope, base}], as applied
+//	alternative_wins  district seats that qualify a party, or null
 //	tie_rule       none, order or lot:SEED
 //	unassigned     seats left open by an unsettled tie (number)
 //	pending        why part of the result waits for a tie to be settled, or null

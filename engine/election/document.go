@@ -45,6 +45,16 @@ func Document(title, caution string, res *Result) *jsondoc.Value {
 	v.Set("compensatory", intIf(tt, res.Compensatory))
 	v.Set("overhang_rule", strIf(mm, res.Overhang.String()))
 	v.Set("upper_basis", strIf(bp, res.UpperBasis.String()))
+	ths := jsondoc.NewArray()
+	for _, t := range res.Thresholds {
+		o := jsondoc.NewObject()
+		o.Set("share", jsondoc.Num(t.Share.String()))
+		o.Set("scope", jsondoc.Str(t.Scope.String()))
+		o.Set("base", jsondoc.Str(t.Base.String()))
+		ths.Append(o)
+	}
+	v.Set("thresholds", ths)
+	v.Set("alternative_wins", intIf(res.WinsThreshold > 0, res.WinsThreshold))
 	v.Set("tie_rule", jsondoc.Str(res.TieRule.String()))
 	v.Set("unassigned", jsondoc.Int(res.Unassigned))
 	v.Set("pending", strIf(res.Pending != "", res.Pending))

@@ -18,6 +18,9 @@ type Result struct {
 	Overhang     OverhangRule
 	UpperBasis   Basis
 	TieRule      engine.TieRule
+	// Thresholds and WinsThreshold are the scenario's, as applied.
+	Thresholds    []Threshold
+	WinsThreshold int
 
 	Parties   []PartyResult
 	Districts []DistrictResult

@@ -527,6 +527,31 @@ func electionSummary(res *election.Result) string {
 	if res.DistrictSeats != nil {
 		s.WriteString(" Districts' seats apportioned from their populations by " + res.DistrictSeats.Method.Name() + ".")
 	}
+	var qual, within []string
+	for _, t := range res.Thresholds {
+		of := "the votes for lists"
+		if t.Base == election.Valid {
+			of = "all valid votes"
+		}
+		pct := sharePercent(t.Share)
+		switch t.Scope {
+		case election.Election:
+			qual = append(qual, pct+" of "+of+" over the election")
+		case election.AnyDistrict:
+			qual = append(qual, pct+" of "+of+" in at least one district")
+		case election.InDistrict:
+			within = append(within, pct+" of "+of+" in the district")
+		}
+	}
+	if len(qual) > 0 {
+		if res.WinsThreshold > 0 {
+			qual = append(qual, strconv.Itoa(res.WinsThreshold)+" district seat"+plural(res.WinsThreshold)+" won")
+		}
+		s.WriteString(" A party qualifies with " + strings.Join(qual, ", or ") + ".")
+	}
+	if len(within) > 0 {
+		s.WriteString(" Within each district a party needs " + strings.Join(within, " and ") + ".")
+	}
 	return s.String()
 }
 
@@ -568,6 +593,19 @@ func tieText(res *election.Result, t election.Tie) string {
 	}
 	s.WriteString("; settled by " + t.Rule + ": " + strings.Join(w, ", ") + ".")
 	return s.String()
+}
+
+// sharePercent writes a share as an exact percentage: 0.05 as "5%".
+func sharePercent(d engine.Decimal) string {
+	if d.Places >= 2 {
+		d.Places -= 2
+	} else {
+		for ; d.Places < 2; d.Places++ {
+			d.Coef *= 10
+		}
+		d.Places = 0
+	}
+	return d.String() + "%"
 }
 
 func yesNo(b bool) string {
