@@ -229,7 +229,7 @@ func (ex *exactLower) tieAndTransfer() error {
 				}
 			}
 			// Expand every labelled district and party again: the cells
-			// the scaling put on a signpost lead on from them.
+			// the scaling put on a signpost are reached from them.
 			for i := range m {
 				if rowLab[i] {
 					queue = append(queue, node{true, i})
