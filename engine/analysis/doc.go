@@ -25,7 +25,10 @@
 //     documents of package engine/format show.
 //   - House size. [ChooseSize] applies the cube-root law or makes the
 //     smallest unit's population the divisor; [Derive] adds a fixed number
-//     of seats per unit to an apportionment.
+//     of seats per unit to an apportionment. Statutory house rules:
+//     [ApplyRatio] gives one seat per so many people (the house size is
+//     the result), [ApplyBase] gives every unit base seats and apportions
+//     the rest.
 //   - Bias. [StudyBias] averages, over seeded random population sets, how
 //     many seats beyond their quotas large units receive against small
 //     ones.
@@ -108,6 +111,19 @@
 // "smallest-unit"), total, value (the unrounded size as text), seats,
 // smallest ({unit, population} or null), comparison (the comparison
 // document at that size).
+//
+// Fixed ratio (kind "fixed-ratio", seatsmith house -ratio, from
+// [ApplyRatio]): method, method_name, ratio, seats (the house size the
+// ratio gives), tie_rule, unassigned; units: [{name, population, quotient
+// (population over the ratio, six places unless exact), rounded, seats,
+// lower_signpost, upper_signpost (null where there is none), at_min,
+// at_max, tied, rounded_up}]; text.
+//
+// Base seats (kind "base-seats", seatsmith house -base, from
+// [ApplyBase]): base, seats; units: [{name, population, base_seats,
+// proportional_seats, seats}]; rest (the allotment document of the
+// proportional part, or null when the base seats fill the house);
+// unassigned; text.
 //
 // Derived body (kind "derived-body", seatsmith derived): method,
 // method_name, seats, plus, body_seats, total; units: [{name, population,

@@ -1,7 +1,6 @@
 package analysis
 
 import (
-	"errors"
 	"math/big"
 	"math/rand/v2"
 	"strconv"
@@ -43,6 +42,9 @@ type RatioUnit struct {
 	// Lower and Upper are the signposts the quotient lies between (Upper
 	// empty above the last one needed), written as the method writes them.
 	Lower, Upper string
+	// Min and Max are the unit's bounds (Max 0: no cap); AtMin and AtMax
+	// say whether one holds it.
+	Min, Max     int
 	AtMin, AtMax bool
 	// Tied: the quotient sits exactly on the signpost Upper, so the
 	// rounding could give Rounded or Rounded+1; Won says which the tie
@@ -59,29 +61,36 @@ type RatioUnit struct {
 func ApplyRatio(s *engine.Scenario, ratio engine.Decimal) (*FixedRatio, error) {
 	m := s.Method
 	if !m.IsDivisor() {
-		return nil, errors.New("a fixed ratio rounds at a divisor, so it needs a divisor method, not " + m.Name())
+		return nil, &engine.Error{Unit: -1, Field: "method", Msg: "a fixed ratio rounds at a divisor, so it needs a divisor method, not " + m.Name()}
 	}
 	if ratio.IsZero() {
-		return nil, errors.New("the ratio must be more than zero people per seat")
+		return nil, &engine.Error{Unit: -1, Field: "ratio", Msg: "the ratio must be more than zero people per seat"}
 	}
 	if !s.Threshold.IsZero() {
-		return nil, errors.New("a threshold has no share of a house that a fixed ratio has not yet made; leave it out")
+		return nil, &engine.Error{Unit: -1, Field: "threshold", Msg: "a threshold has no share of a house that a fixed ratio has not yet made; leave it out"}
 	}
 	if s.Tie.Kind == engine.TieByOrder {
-		return nil, errors.New("a tie under a fixed ratio is between rounding up and down, not between units, so input order cannot settle it: use lot:SEED or report it")
+		return nil, &engine.Error{Unit: -1, Field: "tie", Msg: "a tie under a fixed ratio is between rounding up and down, not between units, so input order cannot settle it: use lot:SEED or report it"}
 	}
 	if len(s.Units) == 0 {
-		return nil, errors.New("no units")
+		return nil, &engine.Error{Unit: -1, Field: "units", Msg: "no units"}
 	}
 	var draw *rand.Rand
 	if s.Tie.Kind == engine.TieByLot {
 		draw = rand.New(rand.NewPCG(s.Tie.Seed, 0x5ea75a1d))
 	}
-	R := ratOfDec(ratio)
+	R := ratOf(ratio)
 	f := &FixedRatio{Method: m, Ratio: ratio, Tie: s.Tie}
+	limit := big.NewRat(engine.MaxSeats, 1)
 	for k, u := range s.Units {
-		p := ratOfDec(u.Population)
+		p := ratOf(u.Population)
 		q := new(big.Rat).Quo(p, R)
+		if q.Cmp(limit) > 0 {
+			// Refused before any counting: the seats would pass the limit
+			// (and a float estimate this large no longer fits an int).
+			return nil, &engine.Error{Unit: k, Name: u.Name, Field: "population", Msg: "alone would have about " + Decimal(q) +
+				" seats at one seat per " + ratio.String() + " people, more than the limit of " + strconv.Itoa(engine.MaxSeats) + " seats a house"}
+		}
 		// a: the least seats with q ≤ s(a); q = s(a) is a tie.
 		est, _ := q.Float64()
 		a := max(0, int(est)-2)
@@ -108,8 +117,9 @@ func ApplyRatio(s *engine.Scenario, ratio engine.Decimal) (*FixedRatio, error) {
 			hi = *u.Max
 		}
 		if hi > 0 && hi < lo {
-			return nil, errors.New("unit " + strconv.Itoa(k+1) + " (" + strconv.Quote(u.Name) + "): its maximum is below its minimum")
+			return nil, &engine.Error{Unit: k, Name: u.Name, Field: "max", Msg: "its maximum is below its minimum"}
 		}
+		ru.Min, ru.Max = lo, hi
 		seats := a
 		if ru.Tied && draw != nil && draw.IntN(2) == 1 {
 			seats, ru.Won = a+1, true
@@ -129,7 +139,7 @@ func ApplyRatio(s *engine.Scenario, ratio engine.Decimal) (*FixedRatio, error) {
 		}
 		f.Seats += seats
 		if f.Seats > engine.MaxSeats {
-			return nil, errors.New("the house would have more than " + strconv.Itoa(engine.MaxSeats) + " seats")
+			return nil, &engine.Error{Unit: -1, Field: "seats", Msg: "the house would have more than the limit of " + strconv.Itoa(engine.MaxSeats) + " seats"}
 		}
 		f.Units = append(f.Units, ru)
 	}
@@ -141,7 +151,7 @@ func (f *FixedRatio) Text() string {
 	s := "One seat per " + f.Ratio.String() + " people, each unit's population over " + f.Ratio.String() +
 		" rounded by " + f.Method.Name() + ": a house of " + strconv.Itoa(f.Seats) + " seats."
 	if f.Unassigned > 0 {
-		s += " " + countOf(f.Unassigned, "quotient") + " exactly on a signpost, where the rounding could go either way: the statute must say which (" + countOf(f.Unassigned, "seat") + " left open)."
+		s += " " + plural(f.Unassigned, "quotient") + " exactly on a signpost, where the rounding could go either way: the statute must say which (" + plural(f.Unassigned, "seat") + " left open)."
 	}
 	return s
 }
@@ -172,21 +182,39 @@ type BaseUnit struct {
 // minimums, maximums and threshold apply to that proportional part.
 func ApplyBase(s *engine.Scenario, base int) (*BaseSeats, error) {
 	if base < 0 {
-		return nil, errors.New("the base seats cannot be negative")
+		return nil, &engine.Error{Unit: -1, Field: "base", Msg: "the base seats cannot be negative"}
 	}
 	n := len(s.Units)
 	if n == 0 {
-		return nil, errors.New("no units")
+		return nil, &engine.Error{Unit: -1, Field: "units", Msg: "no units"}
 	}
 	if base > 0 && s.Seats/base < n {
-		return nil, errors.New(strconv.Itoa(n) + " units with " + strconv.Itoa(base) + " base seats each need " + strconv.Itoa(n*base) + " seats, more than the house size " + strconv.Itoa(s.Seats))
+		return nil, &engine.Error{Unit: -1, Field: "seats", Msg: strconv.Itoa(n) + " units with " + strconv.Itoa(base) + " base seats each need " + strconv.Itoa(n*base) + " seats, more than the house size " + strconv.Itoa(s.Seats)}
 	}
 	rest := *s
 	rest.Seats = s.Seats - n*base
 	b := &BaseSeats{Base: base, Seats: s.Seats}
+	if rest.Seats == 0 {
+		need := 0
+		for _, u := range s.Units {
+			lo := s.Min
+			if u.Min != nil {
+				lo = *u.Min
+			}
+			need += lo
+		}
+		if need > 0 {
+			return nil, &engine.Error{Unit: -1, Field: "min", Msg: "the base seats fill the house, leaving none for the minimums, which need " + plural(need, "seat") + " beyond them"}
+		}
+	}
 	if rest.Seats > 0 {
 		res, err := engine.Allot(&rest, 0)
 		if err != nil {
+			if ee, ok := err.(*engine.Error); ok {
+				e := *ee
+				e.Msg = "in the apportionment of the " + plural(rest.Seats, "seat") + " beyond the base seats: " + ee.Msg
+				return nil, &e
+			}
 			return nil, err
 		}
 		b.Rest = res
@@ -205,27 +233,15 @@ func ApplyBase(s *engine.Scenario, base int) (*BaseSeats, error) {
 // Text says how the house was divided.
 func (b *BaseSeats) Text() string {
 	n := len(b.Units)
-	s := "Every unit first receives " + countOf(b.Base, "base seat") + " (" + strconv.Itoa(n*b.Base) + " in all); the other " +
+	s := "Every unit first receives " + plural(b.Base, "base seat") + " (" + strconv.Itoa(n*b.Base) + " in all); the other " +
 		strconv.Itoa(b.Seats-n*b.Base) + " seats are apportioned"
 	if b.Rest != nil {
 		s += " by " + b.Rest.Method.Name()
 		if b.Rest.Unassigned > 0 {
-			s += " (" + countOf(b.Rest.Unassigned, "seat") + " left open by a tie)"
+			s += " (" + plural(b.Rest.Unassigned, "seat") + " left open by a tie)"
 		}
 	}
 	return s + "."
-}
-
-// countOf writes "1 seat", "2 seats".
-func countOf(n int, w string) string {
-	if n == 1 {
-		return "1 " + w
-	}
-	return strconv.Itoa(n) + " " + w + "s"
-}
-
-func ratOfDec(d engine.Decimal) *big.Rat {
-	return new(big.Rat).SetFrac(new(big.Int).SetUint64(d.Coef), new(big.Int).Exp(big.NewInt(10), big.NewInt(int64(d.Places)), nil))
 }
 
 // cmpSignpost compares q ≥ 0 with the method's signpost s(a), exactly

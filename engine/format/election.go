@@ -237,7 +237,12 @@ func partyTable(res *election.Result) *Table {
 	}
 	if n := res.Unassigned; n > 0 {
 		row := make([]string, len(cols))
-		row[0], row[len(row)-1] = "(unassigned: tie)", strconv.Itoa(n)
+		row[0] = "(unassigned: tie)"
+		for i, c := range cols {
+			if c.Name == "seats" {
+				row[i] = strconv.Itoa(n)
+			}
+		}
 		t.Add(row...)
 	}
 	return t

@@ -45,11 +45,7 @@ func (st Settings) cells(method, seats bool) []string {
 	if seats {
 		cs = append(cs, strconv.Itoa(st.Seats))
 	}
-	max := ""
-	if st.Max > 0 {
-		max = strconv.Itoa(st.Max)
-	}
-	return append(cs, strconv.Itoa(st.Min), max, st.Threshold.String(), st.Tie.String())
+	return append(cs, strconv.Itoa(st.Min), capCell(st.Max), st.Threshold.String(), st.Tie.String())
 }
 
 // The cells of CSV data.
@@ -77,6 +73,17 @@ func numMargin(d *engine.Decimal) string {
 // with an exponent.
 func numFloat(f float64) string { return strconv.FormatFloat(round6(f), 'f', -1, 64) }
 
+// capCell writes a default or statutory cap, 0 for none, as a cell:
+// empty for none.
+func capCell(max int) string {
+	if max <= 0 {
+		return ""
+	}
+	return strconv.Itoa(max)
+}
+
+// maxCell writes a unit's maximum, -1 for none, as a cell: empty for
+// none.
 func maxCell(max int) string {
 	if max < 0 {
 		return ""

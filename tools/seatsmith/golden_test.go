@@ -28,6 +28,8 @@ const (
 	wardsLater  = "tools/seatsmith/testdata/input/wards-later.csv"
 	demoLater   = "testdata/demo/vessaria-later.csv"
 	demoProp    = "testdata/demo/vessaria-proposal.csv"
+	electionCSV = "testdata/demo/vessaria-election.csv"
+	electionTie = "tools/seatsmith/testdata/input/election-tie.csv"
 )
 
 // goldenCase is one run of the binary.
@@ -64,11 +66,24 @@ func goldenCases() []goldenCase {
 	add("measure", all, "measure", demoJSON)
 	add("measure-tie", all, "measure", "-method", "jefferson,webster", "-seats", "4", wardsTie)
 	add("house", all, "house", "-rule", "cube-root", "-min", "1", demoCSV)
+	add("house-ratio", all, "house", "-ratio", "200000", "-method", "jefferson", demoCSV)
+	add("house-ratio-tie", all, "house", "-ratio", "200", "-method", "webster", wardsTie)
+	add("house-ratio-lot", []string{"text"}, "house", "-ratio", "200", "-method", "webster", "-tiebreak", "lot:2", wardsTie)
+	add("house-base", all, "house", "-base", "2", "-seats", "40", "-method", "hamilton", demoCSV)
+	add("house-base-tie", all, "house", "-base", "1", "-seats", "7", "-method", "jefferson", wardsTie)
 	add("derived", all, "derived", "-plus", "2", demoJSON)
 	add("derived-tie", all, "derived", "-method", "jefferson", "-seats", "4", "-plus", "1", wardsTie)
 	add("bias", all, "bias", "-draws", "200", "-units", "6", "-method", "jefferson,webster,adams")
 	add("project", all, "project", "-target", "2030-04-01", "-rse", "2%", "-draws", "2000", "testdata/demo/vessaria-counts.json")
 	add("project-tie", all, "project", "-method", "jefferson", "-seats", "4", wardsTie)
+	add("election", all, "election", "-system", "districts", "-method", "dhondt", electionCSV)
+	add("election-biproportional", all, "election", "testdata/demo/vessaria-election.json")
+	add("election-parties", []string{"csv"}, "election", "-table", "parties", "testdata/demo/vessaria-election.json")
+	add("election-districts", []string{"csv"}, "election", "-table", "districts", "testdata/demo/vessaria-election.json")
+	add("election-two-tier", []string{"text", "csv"}, "election", "-system", "two-tier", "-method", "dhondt", "-upper-method", "sainte-lague",
+		"-compensatory", "12", "-threshold", "4%", "-table", "parties", electionCSV)
+	add("election-mixed", []string{"text", "csv"}, "election", "-overhang", "level", "-table", "parties", "testdata/demo/vessaria-mixed.json")
+	add("election-tie", all, "election", "-system", "biproportional", "-method", "webster", electionTie)
 	return cs
 }
 
