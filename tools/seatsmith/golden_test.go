@@ -66,6 +66,7 @@ func goldenCases() []goldenCase {
 	add("measure", all, "measure", demoJSON)
 	add("measure-tie", all, "measure", "-method", "jefferson,webster", "-seats", "4", wardsTie)
 	add("house", all, "house", "-rule", "cube-root", "-min", "1", demoCSV)
+	add("house-tie", all, "house", "-rule", "smallest-unit", "tools/seatsmith/testdata/input/vales-tie.csv")
 	add("house-ratio", all, "house", "-ratio", "200000", "-method", "jefferson", demoCSV)
 	add("house-ratio-tie", all, "house", "-ratio", "200", "-method", "webster", wardsTie)
 	add("house-ratio-lot", []string{"text"}, "house", "-ratio", "200", "-method", "webster", "-tiebreak", "lot:2", wardsTie)
@@ -74,6 +75,9 @@ func goldenCases() []goldenCase {
 	add("derived", all, "derived", "-plus", "2", demoJSON)
 	add("derived-tie", all, "derived", "-method", "jefferson", "-seats", "4", "-plus", "1", wardsTie)
 	add("bias", all, "bias", "-draws", "200", "-units", "6", "-method", "jefferson,webster,adams")
+	// Tiny populations make ties common: each set's tie is settled by lot
+	// and counted.
+	add("bias-tie", all, "bias", "-draws", "200", "-units", "3", "-seats", "6", "-total", "30", "-method", "jefferson,webster,hamilton")
 	add("project", all, "project", "-target", "2030-04-01", "-rse", "2%", "-draws", "2000", "testdata/demo/vessaria-counts.json")
 	add("project-tie", all, "project", "-method", "jefferson", "-seats", "4", wardsTie)
 	add("election", all, "election", "-system", "districts", "-method", "dhondt", electionCSV)
