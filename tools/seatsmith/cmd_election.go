@@ -1,7 +1,10 @@
 package main
 
 import (
+	"bufio"
+	"errors"
 	"flag"
+	"io"
 	"strconv"
 	"strings"
 
@@ -229,9 +232,12 @@ func runElection(e *env, args []string) int {
 }
 
 // readElection reads the scenario in the first file and the CSV sections
-// of the second, when there is one.
+// of the second, when there is one, as every command reads its files:
+// UTF-16 text, NUL bytes and JSON arrays refused at the start, no file
+// larger than maxElectionBytes, names that are not text refused by file
+// and line, names compared in Unicode normalization form C.
 func readElection(e *env, first, second string) (*election.Source, error) {
-	r, name, closeFile, err := openArg(e, first)
+	r, name, closeFile, err := openElection(e, first)
 	if err != nil {
 		return nil, err
 	}
@@ -240,16 +246,105 @@ func readElection(e *env, first, second string) (*election.Source, error) {
 	if err != nil {
 		return nil, err
 	}
-	if second == "" {
-		return src, nil
+	if second != "" {
+		if second == "-" && first == "-" {
+			return nil, usageError("standard input can be read once only")
+		}
+		r, name, closeFile, err = openElection(e, second)
+		if err != nil {
+			return nil, err
+		}
+		err = src.AddCSV(name, r)
+		closeFile()
+		if err != nil {
+			return nil, err
+		}
 	}
-	if second == "-" && first == "-" {
-		return nil, usageError("standard input can be read once only")
-	}
-	r, name, closeFile, err = openArg(e, second)
+	return src, electionNames(src)
+}
+
+// openElection opens a file argument for an election reader, looking at
+// its start first and bounding what is read.
+func openElection(e *env, arg string) (io.Reader, string, func(), error) {
+	r, name, closeFile, err := openArg(e, arg)
 	if err != nil {
-		return nil, err
+		return nil, name, nil, err
 	}
-	defer closeFile()
-	return src, src.AddCSV(name, r)
+	br := bufio.NewReaderSize(&boundedReader{r: r, left: maxElectionBytes}, 64<<10)
+	if _, err := input.Sniff(name, br); err != nil {
+		closeFile()
+		var ie *input.Error
+		if errors.As(err, &ie) && strings.HasPrefix(ie.Msg, "a JSON array") {
+			ie.Msg = "a JSON array; an election scenario is a JSON object, such as {\"kind\": \"election\", \"system\": \"districts\", ...}"
+		}
+		return nil, name, nil, err
+	}
+	return br, name, closeFile, nil
+}
+
+// maxElectionBytes bounds an election file: the readers hold it whole, so
+// an endless input would otherwise grow without bound. A million vote
+// rows (the readers' own limit) of 128 bytes each fit.
+const maxElectionBytes = 128 << 20
+
+// A boundedReader reads at most left bytes and then fails, naming the
+// limit, so that an endless input is refused rather than held in memory.
+type boundedReader struct {
+	r    io.Reader
+	left int64
+}
+
+func (b *boundedReader) Read(p []byte) (int, error) {
+	if b.left <= 0 {
+		// One byte more tells an input of exactly the limit from a longer one.
+		var one [1]byte
+		if n, _ := b.r.Read(one[:]); n == 0 {
+			return 0, io.EOF
+		}
+		return 0, errors.New("the file is larger than the limit of " + strconv.Itoa(maxElectionBytes>>20) + " MiB for an election")
+	}
+	if int64(len(p)) > b.left {
+		p = p[:b.left]
+	}
+	n, err := b.r.Read(p)
+	b.left -= int64(n)
+	return n, err
+}
+
+// electionNames refuses names that are not text and puts every name in
+// Unicode normalization form C, so that a name written with a composed
+// letter and with a letter and a combining mark is one district or party.
+func electionNames(src *election.Source) error {
+	sc := &src.Scenario
+	check := func(part string, k int, field string, name *string) error {
+		if p := nameProblem(*name); p != "" {
+			file, line := src.Line(part, k)
+			return &input.Error{File: file, Line: line, Field: part + "[" + strconv.Itoa(k) + "]." + field, Msg: "the text " + p}
+		}
+		*name = readOptions.NameForm(*name)
+		return nil
+	}
+	for k := range sc.Districts {
+		if err := check("districts", k, "name", &sc.Districts[k].Name); err != nil {
+			return err
+		}
+	}
+	for k := range sc.Parties {
+		if err := check("parties", k, "name", &sc.Parties[k].Name); err != nil {
+			return err
+		}
+	}
+	for k := range sc.Votes {
+		if err := check("votes", k, "district", &sc.Votes[k].District); err != nil {
+			return err
+		}
+		if err := check("votes", k, "party", &sc.Votes[k].Party); err != nil {
+			return err
+		}
+	}
+	if p := nameProblem(src.Title); p != "" {
+		file, _ := src.Line("title", 0)
+		return &input.Error{File: file, Field: "title", Msg: "the text " + p}
+	}
+	return nil
 }

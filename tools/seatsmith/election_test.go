@@ -223,3 +223,51 @@ func TestElectionTie(t *testing.T) {
 		t.Errorf("input order gave the first seat to %s in %s", w.Get("party").Text, w.Get("district").Text)
 	}
 }
+
+// An election's files are read as every command reads its files: names
+// compared in Unicode normalization form C, text that is not text refused
+// by file and line, a file that is not a table refused at its start, an
+// endless input refused at a limit it names.
+func TestElectionInputAsEveryInput(t *testing.T) {
+	args := []string{"election", "-system", "districts", "-method", "dhondt", "-format", "csv", "-table", "parties", "-"}
+	// "Café" composed in North, decomposed in South: one party.
+	in := "district,party,votes\nNorth,Caf\u00e9,10\nNorth,Mill,6\nSouth,Cafe\u0301,12\nSouth,Mill,4\n\ndistrict,seats\nNorth,2\nSouth,2\n"
+	out, errOut, code := cli(t, in, args...)
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	if recs := checkCSVData(t, out); len(recs) != 3 || !strings.Contains(out, ",Café,22,") {
+		t.Errorf("the two spellings were taken for two parties:\n%s", out)
+	}
+	utf16 := string([]byte{0xFF, 0xFE, 'd', 0, 'i', 0, 's', 0})
+	for _, c := range []struct{ in, want string }{
+		{"district,party,votes\nNorth,Caf\xe9,10\n\ndistrict,seats\nNorth,3\n", "stdin:2: votes[0].party: the text is not UTF-8 text"},
+		{"district,party,votes\nNorth,A\x00,10\n\ndistrict,seats\nNorth,3\n", "stdin:2: holds a NUL byte (byte 29): this is not a text file"},
+		{utf16, "stdin:1: the file is UTF-16 text (it starts with a UTF-16 byte-order mark); save it as UTF-8"},
+		{"[{\"kind\": \"election\"}]", "stdin:1: a JSON array; an election scenario is a JSON object"},
+		{"{\"kind\": \"election\", \"districts\": [{\"name\": \"N\\u0000\", \"seats\": 1}], \"votes\": []}", "districts[0].name: the text holds a NUL byte"},
+	} {
+		_, errOut, code := cli(t, c.in, args...)
+		if code != 1 || !strings.Contains(errOut, c.want) {
+			t.Errorf("exit %d, %q; want %q", code, errOut, c.want)
+		}
+	}
+	_, errOut, code = cli(t, "", "election", "-system", "districts", "-method", "dhondt", "/dev/zero")
+	if code != 1 || !strings.Contains(errOut, "/dev/zero:1: holds a NUL byte (byte 1)") {
+		t.Errorf("/dev/zero: exit %d, %q", code, errOut)
+	}
+	if testing.Short() {
+		return
+	}
+	// An endless table stops at the limit (the readers hold an election
+	// whole).
+	var b strings.Builder
+	b.WriteString("district,party,votes\n")
+	for b.Len() <= 128<<20 {
+		b.WriteString("North,Lantern Party,100\n")
+	}
+	_, errOut, code = cli(t, b.String(), args...)
+	if code != 1 || !strings.Contains(errOut, "stdin: the file is larger than the limit of 128 MiB for an election") {
+		t.Errorf("endless input: exit %d, %q", code, errOut)
+	}
+}

@@ -110,3 +110,29 @@ func TestReadmeExamplesWork(t *testing.T) {
 		t.Errorf("only %d examples found in the README", n)
 	}
 }
+
+// TestReadmeSaysHowToBuild: the README names the Go version go.mod asks
+// for, how to install the command and how long the suite takes.
+func TestReadmeSaysHowToBuild(t *testing.T) {
+	root := repoRoot(t)
+	readme, err := os.ReadFile(filepath.Join(root, "README.md"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	mod, err := os.ReadFile(filepath.Join(root, "go.mod"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	version := ""
+	for _, l := range strings.Split(string(mod), "\n") {
+		if strings.HasPrefix(l, "go ") {
+			version = strings.TrimSpace(strings.TrimPrefix(l, "go "))
+		}
+	}
+	text := strings.Join(strings.Fields(string(readme)), " ")
+	for _, want := range []string{"Go " + version + " or later", "go install ./tools/seatsmith", "go test ./...", "takes about"} {
+		if !strings.Contains(text, want) {
+			t.Errorf("README does not say %q", want)
+		}
+	}
+}
