@@ -175,16 +175,10 @@ func marginText(d *engine.Decimal) string {
 // last five seats) and the next seats.
 func explanation(res *engine.Result, order bool) []Block {
 	var lines []string
-	for _, t := range res.Ties {
-		s := "TIE: " + strings.Join(t.Names, ", ") + " tie at " + t.Value.Text + " for " + Plural(t.Seats, "seat")
-		if len(t.Winners) > 0 {
-			var ws []string
-			for _, u := range t.Winners {
-				ws = append(ws, res.Units[u].Name)
-			}
-			s += "; settled by " + t.Rule + " for " + strings.Join(ws, ", ")
-		} else {
-			s += "; not settled: " + Plural(t.Seats, "seat") + " left unassigned (choose a tie rule, or follow the law's own rule)"
+	for i := range res.Ties {
+		s := "TIE: " + TieText(&res.Ties[i], unitName(res))
+		if len(res.Ties[i].Winners) == 0 {
+			s += " (choose a tie rule, or follow the law's own rule)"
 		}
 		lines = append(lines, s)
 	}
@@ -414,10 +408,15 @@ func awardsDoc(as []engine.SeatAward) *jsondoc.Value {
 	return arr
 }
 
+// unitName gives the names of res's units by index.
+func unitName(res *engine.Result) func(int) string {
+	return func(i int) string { return res.Units[i].Name }
+}
+
 // Ties returns the ties array of a result: {units, seats, value, rule,
 // winners}, empty when there is none.
 func Ties(res *engine.Result) *jsondoc.Value {
-	return tieList(res.Ties, func(i int) string { return res.Units[i].Name })
+	return tieList(res.Ties, unitName(res))
 }
 
 // tieList writes ties: {units: [names], seats, value, rule, winners:

@@ -2,7 +2,6 @@ package format
 
 import (
 	"strconv"
-	"strings"
 
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
@@ -100,12 +99,8 @@ func comparisonNotes(c *analysis.Comparison) []string {
 		if v := c.QuotaViolations(k); v > 0 {
 			notes = append(notes, m.String()+": breaks quota for "+Plural(v, "unit"))
 		}
-		for _, t := range r.Ties {
-			s := m.String() + ": TIE among " + strings.Join(t.Names, ", ") + " for " + Plural(t.Seats, "seat")
-			if len(t.Winners) == 0 {
-				s += " (left unassigned)"
-			}
-			notes = append(notes, s)
+		for i := range r.Ties {
+			notes = append(notes, m.String()+": TIE: "+TieText(&r.Ties[i], unitName(r)))
 		}
 	}
 	return notes

@@ -2,7 +2,6 @@ package format
 
 import (
 	"strconv"
-	"strings"
 
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
@@ -23,12 +22,10 @@ func Derived(title string, d *analysis.DerivedBody, s *engine.Scenario) *Documen
 	lines := []string{"body/pop is the unit's share of the body over its share of the population: above 1 it weighs more than its people.",
 		"Gallagher index: house " + fmtG(d.HouseIndices[1]) + ", body " + fmtG(d.BodyIndices[1]) +
 			"; Loosemore–Hanby: house " + fmtG(d.HouseIndices[0]) + "%, body " + fmtG(d.BodyIndices[0]) + "% (float64, display only)"}
-	for _, t := range r.Ties {
-		s := "TIE: " + strings.Join(t.Names, ", ") + " for " + Plural(t.Seats, "seat")
-		if len(t.Winners) == 0 {
-			s += ", left unassigned in the house and in the body"
-		} else {
-			s += ", settled by " + t.Rule
+	for i := range r.Ties {
+		s := "TIE: " + TieText(&r.Ties[i], unitName(r))
+		if len(r.Ties[i].Winners) == 0 {
+			s += " (in the house and in the body)"
 		}
 		lines = append(lines, s)
 	}

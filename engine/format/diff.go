@@ -2,7 +2,6 @@ package format
 
 import (
 	"strconv"
-	"strings"
 
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
@@ -29,10 +28,10 @@ func Diff(title string, d *analysis.Diff, base, prop *engine.Scenario) *Document
 		if r == d.Proposal {
 			side = "proposal"
 		}
-		for _, t := range r.Ties {
-			s := "TIE (" + side + "): " + strings.Join(t.Names, ", ") + " for " + Plural(t.Seats, "seat")
-			if len(t.Winners) == 0 {
-				s += ", left unassigned: the seats compared are those held outright"
+		for i := range r.Ties {
+			s := "TIE (" + side + "): " + TieText(&r.Ties[i], unitName(r))
+			if len(r.Ties[i].Winners) == 0 {
+				s += " (the seats compared are those held outright)"
 			}
 			lines = append(lines, s)
 		}

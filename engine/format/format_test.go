@@ -220,7 +220,7 @@ func TestSweepChartWellFormed(t *testing.T) {
 func TestSweepText(t *testing.T) {
 	set := analysis.SweepAll(sweepScenario(), []engine.Method{engine.Hamilton}, 199, 202)
 	out := encode(t, text.Encoder{}, format.Sweep("", set))
-	for _, want := range []string{"House sizes 199 to 202", "-Tarrow", "+Ulm +Vesk", "Alabama paradoxes in this range: 1", "Tarrow <\"&\"> has 10 seats in a house of 200 but 9 in a house of 201"} {
+	for _, want := range []string{"House sizes 199 to 202", "Tarrow <\"&\"> −1, Ulm +1, Vesk +1", "Alabama paradoxes in this range: 1", "Tarrow <\"&\"> has 10 seats in a house of 200 but 9 in a house of 201"} {
 		if !strings.Contains(out, want) {
 			t.Errorf("text lacks %q:\n%s", want, out)
 		}

@@ -4,7 +4,6 @@ import (
 	"strconv"
 	"strings"
 
-	"seatsmith/engine"
 	"seatsmith/engine/analysis"
 	"seatsmith/engine/jsondoc"
 )
@@ -94,26 +93,11 @@ func paradoxData(set *analysis.SweepSet) *Table {
 		for j := range sw.Sizes {
 			z := &sw.Sizes[j]
 			if z.Err == nil && z.Unassigned > 0 {
-				t.Add(row(lead, m.String(), "tie", strconv.Itoa(z.House), "", "", "", "", "", "", "", "", "", "", "true", strconv.Itoa(z.Unassigned), tieDetail(z.Ties))...)
+				t.Add(row(lead, m.String(), "tie", strconv.Itoa(z.House), "", "", "", "", "", "", "", "", "", "", "true", strconv.Itoa(z.Unassigned), TiesText(z.Ties, sweepName(sw)))...)
 			}
 		}
 	}
 	return t
-}
-
-// tieDetail says which units tie for how many seats.
-func tieDetail(ts []engine.Tie) string {
-	var s []string
-	for _, t := range ts {
-		d := strings.Join(t.Names, ", ") + " tie for " + Plural(t.Seats, "seat")
-		if len(t.Winners) == 0 {
-			d += ", left unassigned"
-		} else {
-			d += ", settled by " + t.Rule
-		}
-		s = append(s, d)
-	}
-	return strings.Join(s, "; ")
 }
 
 // ParadoxJSON returns the paradoxes document (JSON) of a sweep set, built

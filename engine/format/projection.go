@@ -34,12 +34,10 @@ func Projection(s *projection.Summary, scen *engine.Scenario) *Document {
 		if s.Target == nil && r.res == s.Central {
 			continue // the latest counts again
 		}
-		for _, tie := range r.res.Ties {
-			t := "Tie in the " + r.name + ": " + strings.Join(tie.Names, ", ") + " tie for " + Plural(tie.Seats, "seat")
+		for i, tie := range r.res.Ties {
+			t := "TIE (" + r.name + "): " + TieText(&r.res.Ties[i], unitName(r.res))
 			if len(tie.Winners) == 0 {
-				t += ", left unassigned: the seats shown are those held outright."
-			} else {
-				t += ", settled by " + tie.Rule + "."
+				t += " (the seats shown are those held outright)"
 			}
 			ties = append(ties, t)
 		}

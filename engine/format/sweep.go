@@ -117,46 +117,9 @@ func sweepTable(sw *engine.SweepResult) *Table {
 		if k > 0 && sw.Sizes[k-1].Err == nil {
 			prev = sw.Sizes[k-1].Seats
 		}
-		return append(row, seatChanges(sw.Names, prev, z.Seats), sizeNotes(z))
+		return append(row, SeatChanges(sw.Names, prev, z.Seats), TiesText(z.Ties, sweepName(sw)))
 	}
 	return t
-}
-
-func seatChanges(names []string, prev, cur []int) string {
-	if prev == nil {
-		return ""
-	}
-	var up, down []string
-	for i := range cur {
-		switch d := cur[i] - prev[i]; {
-		case d > 0:
-			up = append(up, "+"+names[i]+countSuffix(d))
-		case d < 0:
-			down = append(down, "-"+names[i]+countSuffix(-d))
-		}
-	}
-	return strings.Join(append(down, up...), " ")
-}
-
-func countSuffix(d int) string {
-	if d == 1 {
-		return ""
-	}
-	return "×" + strconv.Itoa(d)
-}
-
-func sizeNotes(z *engine.SweepSize) string {
-	var n []string
-	for _, t := range z.Ties {
-		s := "TIE " + strings.Join(t.Names, ", ") + " for " + Plural(t.Seats, "seat")
-		if len(t.Winners) == 0 {
-			s += " (unassigned)"
-		} else {
-			s += " (settled by " + t.Rule + ")"
-		}
-		n = append(n, s)
-	}
-	return strings.Join(n, "; ")
 }
 
 // sweepRows indexes the rows of a set that has rows per method: counts[k]
@@ -222,6 +185,11 @@ func SweepData(set *analysis.SweepSet) *Table {
 		return append(row, strconv.Itoa(z.Seats[u]), boolCell(tiedIn(z.Ties, u)), strconv.Itoa(z.Unassigned), boolCell(lost), "")
 	}
 	return t
+}
+
+// sweepName gives the names of a sweep's units by index.
+func sweepName(sw *engine.SweepResult) func(int) string {
+	return func(i int) string { return sw.Names[i] }
 }
 
 func tiedIn(ts []engine.Tie, u int) bool {
@@ -295,7 +263,7 @@ func sweepTree(title string, set *analysis.SweepSet) *Tree {
 		if z.Err != nil {
 			return x.Set("unassigned", nil).Set("ties", jsondoc.NewArray()).Set("error", jsondoc.Str(z.Err.Error()))
 		}
-		return x.Set("unassigned", jsondoc.Int(z.Unassigned)).Set("ties", tieList(z.Ties, func(i int) string { return sw.Names[i] })).Set("error", nil)
+		return x.Set("unassigned", jsondoc.Int(z.Unassigned)).Set("ties", tieList(z.Ties, sweepName(sw))).Set("error", nil)
 	}}
 	paradoxes := Stream{Key: "paradoxes", N: len(ps), Item: func(i int) *jsondoc.Value { return alabamaDoc(ps[i]) }}
 	return &Tree{Root: v, Streams: []Stream{sizes, paradoxes}}

@@ -118,7 +118,7 @@ func tiesView(r *engine.Result) *Node {
 			for _, w := range t.Winners {
 				ws = append(ws, r.Units[w].Name)
 			}
-			s += "The chosen rule (" + ruleText(t.Rule) + ") gives " + verb(t.Seats, "it", "them") + " to " + strings.Join(ws, ", ") + "."
+			s += "The chosen rule (" + format.TieRuleText(t.Rule) + ") gives " + verb(t.Seats, "it", "them") + " to " + strings.Join(ws, ", ") + "."
 		} else {
 			s += "No tie rule is chosen, so " + verb(t.Seats, "it is", "they are") + " left unassigned. The governing rule (often a drawing of lots) decides."
 		}
@@ -127,16 +127,6 @@ func tiesView(r *engine.Result) *Node {
 	}
 	box.Add(ul)
 	return box
-}
-
-func ruleText(rule string) string {
-	switch {
-	case rule == "order":
-		return "input order"
-	case strings.HasPrefix(rule, "lot:"):
-		return "lots drawn with seed " + rule[4:]
-	}
-	return rule
 }
 
 func valueText(v *engine.Value) string {

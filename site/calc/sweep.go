@@ -7,8 +7,9 @@ import (
 
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
-	"seatsmith/site/claim"
+	"seatsmith/engine/format"
 	. "seatsmith/engine/render"
+	"seatsmith/site/claim"
 )
 
 // A SweepOutcome is a sweep block's scenario apportioned at every house
@@ -286,8 +287,8 @@ func sweepTables(so *SweepOutcome) *Node {
 				}
 				row.Add(td)
 			}
-			row.Add(Wrap("td", changeText(sw.Names, prev, z.Seats), "class", "sc-change"))
-			row.Add(Wrap("td", sizeNotes(z), "class", "sc-notes"))
+			row.Add(Wrap("td", format.SeatChanges(sw.Names, prev, z.Seats), "class", "sc-change"))
+			row.Add(Wrap("td", format.TiesText(z.Ties, func(i int) string { return sw.Names[i] }), "class", "sc-notes"))
 			body.Add(row)
 			prev = z.Seats
 		}
@@ -296,38 +297,6 @@ func sweepTables(so *SweepOutcome) *Node {
 		d.Add(wrap)
 	}
 	return d
-}
-
-// changeText names the units that gain and lose seats from one size to
-// the next: "Sarrow −1, Brevia +1".
-func changeText(names []string, prev, cur []int) string {
-	if prev == nil {
-		return ""
-	}
-	var down, up []string
-	for i := range cur {
-		switch d := cur[i] - prev[i]; {
-		case d < 0:
-			down = append(down, names[i]+" −"+strconv.Itoa(-d))
-		case d > 0:
-			up = append(up, names[i]+" +"+strconv.Itoa(d))
-		}
-	}
-	return strings.Join(append(down, up...), ", ")
-}
-
-func sizeNotes(z *engine.SweepSize) string {
-	var n []string
-	for _, t := range z.Ties {
-		s := "tie: " + strings.Join(t.Names, ", ") + " for " + plural(t.Seats, "seat")
-		if len(t.Winners) == 0 {
-			s += ", left open"
-		} else {
-			s += ", settled by " + ruleText(t.Rule)
-		}
-		n = append(n, s)
-	}
-	return strings.Join(n, "; ")
 }
 
 // methodList names methods in a sentence: "A, B and C".
