@@ -165,7 +165,7 @@ func TestTieExitStatus(t *testing.T) {
 	if code != 3 {
 		t.Fatalf("exit %d, want 3 for an unsettled tie: %s", code, errOut)
 	}
-	if !strings.Contains(out, "TIE: East Ward, West Ward") || !strings.Contains(out, "1 seat left unassigned") {
+	if !strings.Contains(out, "TIE: East Ward, West Ward") || !strings.Contains(out, "tie at 300 for 1 seat: left unassigned") {
 		t.Errorf("tie not reported:\n%s", out)
 	}
 	out, _, code = cli(t, in, "allot", "-method", "jefferson", "-seats", "4", "-tiebreak", "lot:11", "-format", "json", "-")
