@@ -109,11 +109,11 @@ func TestSweepSVG(t *testing.T) {
 
 func TestSweepTieExit(t *testing.T) {
 	out, _, code := cli(t, "name,population\nA,500\nB,500\n", "sweep", "-method", "webster", "-from", "1", "-to", "4", "-")
-	if code != exitTie || !strings.Contains(out, "TIE A, B for 1 seat (unassigned)") {
+	if code != exitTie || !strings.Contains(out, "A, B tie at 1000 for 1 seat: left unassigned") {
 		t.Errorf("exit %d, want %d:\n%s", code, exitTie, out)
 	}
 	out, _, code = cli(t, "name,population\nA,500\nB,500\n", "sweep", "-method", "webster", "-tiebreak", "order", "-from", "1", "-to", "4", "-")
-	if code != 0 || !strings.Contains(out, "settled by order") {
+	if code != 0 || !strings.Contains(out, "settled by input order for A") {
 		t.Errorf("exit %d:\n%s", code, out)
 	}
 }
