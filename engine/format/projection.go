@@ -98,9 +98,10 @@ func projectionSetup(s *projection.Summary) []string {
 	return append(l, "\"now\" is the apportionment of the latest counts; lose and gain are measured against it.")
 }
 
-// pct writes a share as a percentage for people: one decimal, "<0.1%" and
+// ShareText writes a share of n draws as a percentage for people, in the
+// words of the command line and the pages: one decimal, "<0.1%" and
 // ">99.9%" near the ends, and "0" or "100%" only when exact.
-func pct(s projection.Share, n int64) string {
+func ShareText(s projection.Share, n int64) string {
 	switch {
 	case s.Draws == 0:
 		return "0"
@@ -145,9 +146,9 @@ func projectionTable(s *projection.Summary) *Table {
 		if s.Draws > 0 {
 			var dist []string
 			for _, d := range u.Dist {
-				dist = append(dist, strconv.Itoa(d.Seats)+": "+pct(d.Share, n))
+				dist = append(dist, strconv.Itoa(d.Seats)+": "+ShareText(d.Share, n))
 			}
-			cells = append(cells, fixed(u.Mean, 2), pct(u.Lose, n), pct(u.Gain, n), strings.Join(dist, "  "))
+			cells = append(cells, fixed(u.Mean, 2), ShareText(u.Lose, n), ShareText(u.Gain, n), strings.Join(dist, "  "))
 		}
 		t.Add(cells...)
 	}
@@ -190,7 +191,7 @@ func contenders(s *projection.Summary) (List, bool) {
 				parts = append(parts, "and "+strconv.Itoa(len(cs)-k)+" more")
 				break
 			}
-			parts = append(parts, x.name+" "+pct(x.sh, n))
+			parts = append(parts, x.name+" "+ShareText(x.sh, n))
 		}
 		if len(parts) > 0 {
 			l.Items = append(l.Items, label+": "+strings.Join(parts, ", "))

@@ -156,22 +156,6 @@ func join(xs []string) string {
 	return s
 }
 
-// shareText writes a share of n draws for people: one decimal, "<0.1%"
-// and ">99.9%" near the ends, "0" and "100%" only when exact.
-func shareText(sh projection.Share, n int64) string {
-	switch {
-	case sh.Draws == 0:
-		return "0"
-	case sh.Draws == n:
-		return "100%"
-	case sh.P < 0.0005:
-		return "<0.1%"
-	case sh.P > 0.9995:
-		return ">99.9%"
-	}
-	return strconv.FormatFloat(100*sh.P, 'f', 1, 64) + "%"
-}
-
 func table(s *projection.Summary, id string) *Node {
 	t := El("table", "class", "fc-table", "data-role", "forecast-table")
 	t.Add(Wrap("caption", "Every unit: its latest count, the projection, its seats now and at the projection, and the share of draws in which it loses or gains a seat or gets each seat count."))
@@ -195,14 +179,14 @@ func table(s *projection.Summary, id string) *Node {
 			proj += " (line below 0)"
 		}
 		tr.Add(Wrap("td", latest, "class", "num"), Wrap("td", proj, "class", "num"), Wrap("td", strconv.Itoa(u.BaselineSeats), "class", "num"),
-			Wrap("td", strconv.Itoa(u.CentralSeats), "class", "num"), Wrap("td", shareText(u.Lose, n), "class", "num"),
-			Wrap("td", shareText(u.Gain, n), "class", "num"))
+			Wrap("td", strconv.Itoa(u.CentralSeats), "class", "num"), Wrap("td", format.ShareText(u.Lose, n), "class", "num"),
+			Wrap("td", format.ShareText(u.Gain, n), "class", "num"))
 		dist := El("td", "class", "fc-dist")
 		for k, d := range u.Dist {
 			if k > 0 {
 				dist.AddText(" ")
 			}
-			dist.Add(Wrap("span", strconv.Itoa(d.Seats)+": "+shareText(d.Share, n), "data-seats", strconv.Itoa(d.Seats), "data-draws", strconv.FormatInt(d.Draws, 10)))
+			dist.Add(Wrap("span", strconv.Itoa(d.Seats)+": "+format.ShareText(d.Share, n), "data-seats", strconv.Itoa(d.Seats), "data-draws", strconv.FormatInt(d.Draws, 10)))
 		}
 		tr.Add(dist)
 		body.Add(tr)
@@ -255,14 +239,14 @@ func chart(s *projection.Summary, id string) *Node {
 				cls = "fc-more"
 			}
 			seg := El("rect", "x", num(x), "y", num(y+4), "width", num(w), "height", num(rowH-8), "class", "fc-seg "+cls)
-			seg.Add(Wrap("title", u.Name+": "+strconv.Itoa(d.Seats)+" seats in "+shareText(d.Share, n)+" of the draws"))
+			seg.Add(Wrap("title", u.Name+": "+strconv.Itoa(d.Seats)+" seats in "+format.ShareText(d.Share, n)+" of the draws"))
 			g.Add(seg)
 			if w >= 16 {
 				g.Add(Wrap("text", strconv.Itoa(d.Seats), "x", num(x+w/2), "y", num(y+rowH/2+4), "text-anchor", "middle", "class", "fc-seglabel "+cls))
 			}
 			x += w
 		}
-		g.Add(Wrap("text", shareText(u.Lose, n)+" / "+shareText(u.Gain, n), "x", num(chartW), "y", num(y+rowH/2+4), "text-anchor", "end", "class", "fc-odds"))
+		g.Add(Wrap("text", format.ShareText(u.Lose, n)+" / "+format.ShareText(u.Gain, n), "x", num(chartW), "y", num(y+rowH/2+4), "text-anchor", "end", "class", "fc-odds"))
 		svg.Add(g)
 	}
 	ly := chartTop + rowH*float64(len(s.Units)) + 10
