@@ -359,7 +359,7 @@ func electionSettings(res *election.Result) ([]Column, []string) {
 		upper = res.UpperMethod.String()
 	}
 	cells := []string{res.System.String(), res.Method.String(), upper, strconv.Itoa(res.Seats),
-		intIf(mm || tt, res.BaseSeats), intIf(tt, res.Compensatory), strIf(mm, res.Overhang.String()), strIf(bp, res.UpperBasis.String())}
+		intCell(mm || tt, res.BaseSeats), intCell(tt, res.Compensatory), strCell(mm, res.Overhang.String()), strCell(bp, res.UpperBasis.String())}
 	ths := res.Thresholds
 	if len(ths) == 0 {
 		ths = []election.Threshold{{}} // no threshold: a share of 0, nothing else
@@ -377,18 +377,18 @@ func electionSettings(res *election.Result) ([]Column, []string) {
 		}
 	}
 	cols = append(cols, Column{Name: "alternative_wins", Number: true}, Column{Name: "tie_rule"})
-	cells = append(cells, intIf(res.WinsThreshold > 0, res.WinsThreshold), res.TieRule.String())
+	cells = append(cells, intCell(res.WinsThreshold > 0, res.WinsThreshold), res.TieRule.String())
 	return cols, cells
 }
 
-func intIf(ok bool, n int) string {
+func intCell(ok bool, n int) string {
 	if !ok {
 		return ""
 	}
 	return strconv.Itoa(n)
 }
 
-func strIf(ok bool, s string) string {
+func strCell(ok bool, s string) string {
 	if !ok {
 		return ""
 	}
@@ -442,8 +442,8 @@ func partyData(res *election.Result) *Table {
 			basis = p.Basis.String()
 		}
 		t.Add(row(lead, p.Name, p.Votes.String(), boolCell(p.Qualified), p.Reason, boolCell(p.Exempt), strconv.Itoa(p.Seats),
-			intIf(mm || tt, p.DistrictSeats), intIf(mm || tt, p.ListSeats), intIf(mm && p.Qualified, p.Entitlement),
-			intIf(mm && p.Qualified, p.Overhang), basis, strIf(bp, p.Divisor), boolCell(tied[i]), un)...)
+			intCell(mm || tt, p.DistrictSeats), intCell(mm || tt, p.ListSeats), intCell(mm && p.Qualified, p.Entitlement),
+			intCell(mm && p.Qualified, p.Overhang), basis, strCell(bp, p.Divisor), boolCell(tied[i]), un)...)
 	}
 	return t
 }

@@ -13,36 +13,9 @@ import (
 func SVG(n *Node) string {
 	var b strings.Builder
 	b.WriteString(`<?xml version="1.0" encoding="UTF-8"?>` + "\n")
-	writeXML(&b, n)
+	writeNode(&b, n, true, true)
 	b.WriteByte('\n')
 	return b.String()
-}
-
-func writeXML(b *strings.Builder, n *Node) {
-	if n.Tag == "" {
-		escapeXML(b, n.Text, false)
-		return
-	}
-	b.WriteByte('<')
-	b.WriteString(n.Tag)
-	for _, a := range n.Attrs {
-		b.WriteByte(' ')
-		b.WriteString(a.Key)
-		b.WriteString(`="`)
-		escapeXML(b, a.Val, true)
-		b.WriteByte('"')
-	}
-	if len(n.Kids) == 0 {
-		b.WriteString("/>")
-		return
-	}
-	b.WriteByte('>')
-	for _, k := range n.Kids {
-		writeXML(b, k)
-	}
-	b.WriteString("</")
-	b.WriteString(n.Tag)
-	b.WriteByte('>')
 }
 
 // escapeXML writes s escaped for XML character data, or for an attribute
