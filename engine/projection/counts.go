@@ -271,13 +271,9 @@ func sortCounts(cs []Count) {
 var docMembers = []string{"version", "title", "seats", "method", "min", "max", "threshold", "tie", "units"}
 var unitMembers = []string{"name", "population", "counts", "rse", "min", "max"}
 
-// CountsFromDoc reads counts from a parsed JSON document: a scenario
+// countsFromDoc reads counts from a parsed JSON document: a scenario
 // document whose units carry either a population (one undated count) or a
 // counts array of {date, population}, and optionally an rse.
-func CountsFromDoc(file string, v *jsondoc.Value) (*Counts, error) {
-	return countsFromDoc(file, v, input.Options{})
-}
-
 func countsFromDoc(file string, v *jsondoc.Value, opt input.Options) (*Counts, error) {
 	bad := func(line int, field, msg string) error {
 		return &input.Error{File: file, Line: line, Field: field, Msg: msg}
