@@ -491,20 +491,7 @@ func decimalOf(x *jsondoc.Value) (engine.Decimal, error) {
 func parseCount(text string) (engine.Decimal, error) {
 	d, err := engine.ParseDecimal(text)
 	if err != nil {
-		msg := strconv.Quote(strings.TrimSpace(text)) + " is not a count"
-		switch {
-		case errors.Is(err, engine.ErrNegative):
-			msg += ": counts cannot be negative"
-		case errors.Is(err, engine.ErrTooPrecise):
-			msg += ": more than 9 decimal places"
-		case errors.Is(err, engine.ErrTooLarge):
-			msg += ": larger than 10^18"
-		case errors.Is(err, engine.ErrEmpty):
-			msg = "empty"
-		default:
-			msg += ": write digits, with a decimal point if needed (no thousands separators or exponents)"
-		}
-		return engine.Decimal{}, errors.New(msg)
+		return engine.Decimal{}, errors.New(input.NumberProblem("count", text, err))
 	}
 	return d, nil
 }

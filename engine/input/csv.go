@@ -132,15 +132,22 @@ func unitFromRow(rec []string, col map[string]int, o Options) (engine.Unit, *Err
 // not one: `"North": "-5" is not a population: populations cannot be
 // negative`. err is the error of engine.ParseDecimal.
 func PopulationProblem(name, text string, err error) string {
-	return strconv.Quote(name) + ": " + strconv.Quote(strings.TrimSpace(text)) + " is not a population: " + decimalProblem(err)
+	return strconv.Quote(name) + ": " + NumberProblem("population", text, err)
 }
 
-func decimalProblem(err error) string {
+// NumberProblem says why text is not a kind of number (a population, a
+// count of votes), in the words every reader uses: `"-5" is not a count:
+// counts cannot be negative`. err is the error of engine.ParseDecimal.
+func NumberProblem(kind, text string, err error) string {
+	return strconv.Quote(strings.TrimSpace(text)) + " is not a " + kind + ": " + decimalProblem(kind, err)
+}
+
+func decimalProblem(kind string, err error) string {
 	switch {
 	case errors.Is(err, engine.ErrEmpty):
 		return "missing"
 	case errors.Is(err, engine.ErrNegative):
-		return "populations cannot be negative"
+		return kind + "s cannot be negative"
 	case errors.Is(err, engine.ErrTooPrecise):
 		return "at most 9 decimal places"
 	case errors.Is(err, engine.ErrTooLarge):
