@@ -49,7 +49,7 @@ func Allotment(title string, res *engine.Result, s *engine.Scenario, opt AllotOp
 	d.Body = append(d.Body, explanation(res, opt.Order)...)
 	d.Data = AllotmentData(res, s, !opt.skipped("margins"))
 	d.Tree = func() *Tree {
-		root := allotment(title, res, jsondoc.NewArray())
+		root := allotment(title, res, jsondoc.NewArray(), jsondoc.NewArray())
 		if len(opt.Skipped) > 0 {
 			arr := jsondoc.NewArray()
 			for _, s := range opt.Skipped {
@@ -57,7 +57,12 @@ func Allotment(title string, res *engine.Result, s *engine.Scenario, opt AllotOp
 			}
 			root.Set("skipped", arr)
 		}
-		return &Tree{Root: root, Streams: []Stream{{Key: "units", N: len(res.Units), Item: func(i int) *jsondoc.Value { return unitDoc(&res.Units[i], res.Method) }}}}
+		// The units and the seat order (a million seats with -order) are
+		// made one at a time as they are written.
+		return &Tree{Root: root, Streams: []Stream{
+			{Key: "units", N: len(res.Units), Item: func(i int) *jsondoc.Value { return unitDoc(&res.Units[i], res.Method) }},
+			{Key: "order", N: len(res.Order), Item: func(i int) *jsondoc.Value { return awardDoc(&res.Order[i]) }},
+		}}
 	}
 	return d
 }
@@ -69,7 +74,7 @@ func AllotmentJSON(title string, res *engine.Result) *jsondoc.Value {
 	for i := range res.Units {
 		units.Append(unitDoc(&res.Units[i], res.Method))
 	}
-	return allotment(title, res, units)
+	return allotment(title, res, units, awardsDoc(res.Order))
 }
 
 // allotHead is the line under an allotment's title: method, house size
@@ -284,7 +289,9 @@ func AllotmentData(res *engine.Result, s *engine.Scenario, margins bool) *Table 
 
 // The JSON form.
 
-func allotment(title string, res *engine.Result, units *jsondoc.Value) *jsondoc.Value {
+// allotment builds the allotment document with the given units and seat
+// order arrays (empty ones when they are streamed).
+func allotment(title string, res *engine.Result, units, order *jsondoc.Value) *jsondoc.Value {
 	v := header("allotment", title)
 	v.Set("method", jsondoc.Str(res.Method.String()))
 	v.Set("method_name", jsondoc.Str(res.Method.Name()))
@@ -299,7 +306,7 @@ func allotment(title string, res *engine.Result, units *jsondoc.Value) *jsondoc.
 	} else {
 		v.Set("divisor", nil)
 	}
-	v.Set("order", awardsDoc(res.Order))
+	v.Set("order", order)
 	v.Set("beyond", awardsDoc(res.Beyond))
 	if res.Quota != nil {
 		v.Set("quota", jsondoc.Str(res.Quota.Text))
@@ -401,11 +408,15 @@ func valueDoc(v *engine.Value) *jsondoc.Value {
 func awardsDoc(as []engine.SeatAward) *jsondoc.Value {
 	arr := jsondoc.NewArray()
 	for i := range as {
-		a := &as[i]
-		arr.Append(jsondoc.NewObject().Set("seat", jsondoc.Int(a.Seat)).Set("unit", jsondoc.Str(a.Name)).
-			Set("nth", jsondoc.Int(a.Nth)).Set("priority", valueDoc(&a.Priority)))
+		arr.Append(awardDoc(&as[i]))
 	}
 	return arr
+}
+
+// awardDoc writes one seat of the seat order: {seat, unit, nth, priority}.
+func awardDoc(a *engine.SeatAward) *jsondoc.Value {
+	return jsondoc.NewObject().Set("seat", jsondoc.Int(a.Seat)).Set("unit", jsondoc.Str(a.Name)).
+		Set("nth", jsondoc.Int(a.Nth)).Set("priority", valueDoc(&a.Priority))
 }
 
 // unitName gives the names of res's units by index.

@@ -58,7 +58,7 @@ func TestAllotmentJSON(t *testing.T) {
 }
 
 // TestStreamedJSONMatchesTree: the JSON encoder, which makes the units of
-// an allotment one at a time, writes byte for byte the indented tree, for
+// an allotment and its seat order one at a time, writes byte for byte the indented tree, for
 // every method, with and without a title and ties.
 func TestStreamedJSONMatchesTree(t *testing.T) {
 	for _, m := range engine.Methods() {
