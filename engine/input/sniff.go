@@ -11,10 +11,12 @@ import (
 // (a disk image, /dev/zero, a log) is refused at once instead of being
 // held in memory.
 const (
-	// MaxJSONBytes is the largest JSON document read (a JSON document is
-	// parsed whole; large tables belong in CSV, which is read as it
-	// streams).
-	MaxJSONBytes = 256 << 20
+	// MaxJSONBytes is the largest JSON document read: about a million
+	// units. A JSON document is parsed whole, at about 18 bytes of memory
+	// a byte of JSON (a 47 MB document of a million units peaks near
+	// 850 MB), so this bounds a run near 1.2 GB; large tables belong in
+	// CSV, which is read as it streams.
+	MaxJSONBytes = 64 << 20
 	// MaxRecordBytes is the longest CSV record (a row, with any line
 	// breaks inside its quoted fields).
 	MaxRecordBytes = 1 << 20

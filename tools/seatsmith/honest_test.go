@@ -286,3 +286,28 @@ func TestSignalLeavesNoTemporaryFile(t *testing.T) {
 		t.Errorf("the file was changed: %.60q", b)
 	}
 }
+
+// TestEndlessInputsStopAtALimit: an input that never ends is refused at a
+// limit the message names: a CSV record of more than 1 MiB, a JSON
+// document of more than 64 MiB (it is parsed whole).
+func TestEndlessInputsStopAtALimit(t *testing.T) {
+	long := "name,population\n" + strings.Repeat("a", 2<<20)
+	_, errOut, code := cli(t, long, "allot", "-method", "webster", "-seats", "3", "-")
+	if code != 1 || !strings.Contains(errOut, "stdin:2: column 1: a record longer than 1 MiB: this does not look like a table") {
+		t.Errorf("endless record: exit %d, %q", code, errOut)
+	}
+	if testing.Short() {
+		return
+	}
+	var b strings.Builder
+	b.WriteString("{\"units\": [\n")
+	for b.Len() <= 64<<20 {
+		b.WriteString("{\"name\": \"x\", \"population\": 1},\n")
+	}
+	for _, cmd := range []string{"allot", "project"} {
+		_, errOut, code = cli(t, b.String(), cmd, "-method", "webster", "-seats", "3", "-")
+		if code != 1 || !strings.Contains(errOut, "stdin: the JSON document is larger than the limit of 64 MiB; give a large table as CSV") {
+			t.Errorf("%s, endless JSON: exit %d, %q", cmd, code, errOut)
+		}
+	}
+}
