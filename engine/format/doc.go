@@ -5,7 +5,8 @@
 //
 // A [Document] is built once per result, by [Allotment], [Comparison],
 // [Sweep], [Paradoxes], [Growth], [Admit], [Diff], [Measures], [House],
-// [Derived], [Bias] or [Projection], and holds every part any format
+// [FixedRatio], [BaseSeats], [Derived], [Bias], [Projection] or
+// [Election], and holds every part any format
 // shows: a title and a body of headings, paragraphs, lists and tables for
 // people; a data table for CSV; the JSON tree; a chart. One [Encoder] a
 // format writes it, each in a package of its own, in the style of a small
@@ -19,7 +20,8 @@
 //
 // So a wording lives in one place whatever the format, and a tie, a
 // skipped explanation or a unit's note reads the same in every format and
-// on the pages, which use [UnitNotes], [MarginLegend] and [Caution] too.
+// on the pages, which use [UnitNotes], [MarginLegend], [TieText],
+// [SeatChanges], [ShareText] and [Caution] too.
 // Tables whose rows are many (a million units, a million house sizes) make
 // each row as it is written; nothing here holds the output in memory.
 //
@@ -39,10 +41,14 @@
 // size), default_min, default_max (empty: no cap), threshold (a share,
 // 0 for none) and tie_rule ("none", "order" or "lot:SEED"); a unit's own
 // bounds are its min and max columns. Multi-method files have one row a
-// method and unit. Every file that apportions more than once has tied and
-// unassigned columns, so that a column of seats never sums short in
-// silence. Text cells a spreadsheet would run as formulas are guarded
-// (see package csv).
+// method and unit. An election's files lead with its own settings
+// (system, methods, house size, base and compensatory seats, overhang
+// rule, upper basis, each threshold with its scope and base, the district
+// seats that qualify a party, tie rule); a fixed ratio's, its method,
+// ratio and the house size it gives. Every file that apportions more than
+// once has tied and unassigned columns, so that a column of seats never
+// sums short in silence. Text cells a spreadsheet would run as formulas
+// are guarded (see package csv).
 //
 // # The allotment document (JSON, version 1)
 //
