@@ -6,8 +6,8 @@ import (
 
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
-	"seatsmith/site/claim"
 	. "seatsmith/engine/render"
+	"seatsmith/site/claim"
 )
 
 // An AdmitOutcome is an admit block's scenario apportioned, then again

@@ -8,8 +8,8 @@ import (
 
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
-	"seatsmith/site/claim"
 	. "seatsmith/engine/render"
+	"seatsmith/site/claim"
 )
 
 // A GrowthOutcome is a growth block's scenario apportioned with its first

@@ -4,8 +4,8 @@ import (
 	"math"
 	"strconv"
 
-	"seatsmith/engine/projection"
 	"seatsmith/engine/format"
+	"seatsmith/engine/projection"
 	. "seatsmith/engine/render"
 )
 
