@@ -31,14 +31,16 @@ type lrRound struct {
 	// ranked holds the positions in units: first those whose remainder is
 	// above the cut value (the extra-th largest remainder), then those
 	// equal to it from index gt, then those below it from index ge, each
-	// group in input order (the group at the cut as cutGroups orders it).
-	// Once sorted is set (rankAll), ranked is the full ranking, largest
-	// remainder first and equal remainders in input order.
-	ranked []int
-	gt, ge int
-	sorted bool
-	near   bool // rankNear has reordered the groups
-	extra  int  // seats handed out by remainder
+	// group in input order (the group at the cut as cutGroups orders it),
+	// and last, from index empty, the units without people, which take no
+	// seat by remainder. Once sorted is set (rankAll), ranked is the full
+	// ranking, largest remainder first and equal remainders in input order,
+	// the units without people last.
+	ranked        []int
+	gt, ge, empty int
+	sorted        bool
+	near          bool // rankNear has reordered the groups
+	extra         int  // seats handed out by remainder
 	// bound is at least every remainder; hist, when set, counts the
 	// remainders by their leading bits below it (see kthLargest).
 	bound u128
@@ -77,6 +79,7 @@ func (pr *problem) lrPass(units []int, seats int, total u128, whole []int) (*lrR
 		}
 		r.rem64 = make([]uint64, len(units))
 		r.cutOrder()
+		r.setAsideEmpty(pr.pops)
 		return r, nil
 	}
 	switch pr.m {
@@ -117,12 +120,50 @@ func (pr *problem) lrPass(units []int, seats int, total u128, whole []int) (*lrR
 		}
 	}
 	r.extra = seats - sum
-	if r.extra < 0 || r.extra > len(units) {
+	populated := 0
+	for _, u := range units {
+		if pr.pops[u] > 0 {
+			populated++
+		}
+	}
+	if r.extra < 0 || r.extra > populated {
 		return nil, scenarioError("seats", "the "+pr.m.Name()+" leaves "+strconv.Itoa(r.extra)+
-			" seats over for "+strconv.Itoa(len(units))+" units: too few people for this house size")
+			" seats over for "+strconv.Itoa(populated)+" units with people: too few people for this house size")
 	}
 	r.cutOrder()
+	if populated < len(units) {
+		r.setAsideEmpty(pr.pops)
+	}
 	return r, nil
+}
+
+// setAsideEmpty moves the units without people to the end of the ranking:
+// a unit with no people takes no seat by remainder, even where its
+// remainder (zero) equals the cut value. They were in the group at the
+// cut or below it, never above it.
+func (r *lrRound) setAsideEmpty(pops []uint64) {
+	var kept, empty []int
+	for _, j := range r.ranked[r.gt:] {
+		if pops[r.units[j]] == 0 {
+			empty = append(empty, j)
+		} else {
+			kept = append(kept, j)
+		}
+	}
+	if len(empty) == 0 {
+		r.empty = len(r.ranked)
+		return
+	}
+	ge := r.ge
+	for _, j := range r.ranked[r.gt:r.ge] {
+		if pops[r.units[j]] == 0 {
+			ge--
+		}
+	}
+	sortInts(empty)
+	copy(r.ranked[r.gt:], kept)
+	copy(r.ranked[r.gt+len(kept):], empty)
+	r.ge, r.empty = ge, len(r.ranked)-len(empty)
 }
 
 // hareFloors fills the whole parts and remainders of p·seats/total for a

@@ -171,9 +171,11 @@ func median3(a, b, c u128) u128 {
 // largest), equal to it, and below it; r.gt and r.ge are where the second
 // and third groups start. With no seats over every position is in the
 // group below the cut; with one for every unit, in the group above it.
+// (setAsideEmpty then moves the units without people to the end.)
 func (r *lrRound) cutOrder() {
 	n := len(r.units)
 	r.ranked = make([]int, n)
+	r.empty = n
 	if r.extra == 0 || r.extra == n {
 		for j := range r.ranked {
 			r.ranked[j] = j
@@ -246,7 +248,7 @@ func (r *lrRound) rankAll() {
 	if r.ranked == nil || r.sorted {
 		return
 	}
-	for _, g := range [][]int{r.ranked[:r.gt], r.ranked[r.ge:]} {
+	for _, g := range [][]int{r.ranked[:r.gt], r.ranked[r.ge:r.empty]} {
 		if r.rem64 != nil && len(g) >= selectSmall && !r.near {
 			radixRank(g, r.rem64, bitLen128(r.bound))
 		} else {
@@ -308,7 +310,7 @@ func (r *lrRound) rankNear(k int) {
 		r.bestTo(above, k, func(x, y int) int { return -r.before(x, y) })
 		slices.Reverse(above)
 	}
-	below := r.ranked[r.ge:]
+	below := r.ranked[r.ge:r.empty]
 	if k >= len(below) {
 		slices.SortFunc(below, r.before)
 	} else {
