@@ -32,15 +32,16 @@ type lrRound struct {
 	// above the cut value (the extra-th largest remainder), then those
 	// equal to it from index gt, then those below it from index ge, each
 	// group in input order (the group at the cut as cutGroups orders it),
-	// and last, from index empty, the units without people, which take no
-	// seat by remainder. Once sorted is set (rankAll), ranked is the full
+	// and last the noPeople units without people, which take no seat by
+	// remainder. Once sorted is set (rankAll), ranked is the full
 	// ranking, largest remainder first and equal remainders in input order,
 	// the units without people last.
-	ranked        []int
-	gt, ge, empty int
-	sorted        bool
-	near          bool // rankNear has reordered the groups
-	extra         int  // seats handed out by remainder
+	ranked   []int
+	gt, ge   int
+	noPeople int
+	sorted   bool
+	near     bool // rankNear has reordered the groups
+	extra    int  // seats handed out by remainder
 	// bound is at least every remainder; hist, when set, counts the
 	// remainders by their leading bits below it (see kthLargest).
 	bound u128
@@ -151,7 +152,6 @@ func (r *lrRound) setAsideEmpty(pops []uint64) {
 		}
 	}
 	if len(empty) == 0 {
-		r.empty = len(r.ranked)
 		return
 	}
 	ge := r.ge
@@ -163,7 +163,7 @@ func (r *lrRound) setAsideEmpty(pops []uint64) {
 	sortInts(empty)
 	copy(r.ranked[r.gt:], kept)
 	copy(r.ranked[r.gt+len(kept):], empty)
-	r.ge, r.empty = ge, len(r.ranked)-len(empty)
+	r.ge, r.noPeople = ge, len(empty)
 }
 
 // hareFloors fills the whole parts and remainders of p·seats/total for a

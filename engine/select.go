@@ -175,7 +175,6 @@ func median3(a, b, c u128) u128 {
 func (r *lrRound) cutOrder() {
 	n := len(r.units)
 	r.ranked = make([]int, n)
-	r.empty = n
 	if r.extra == 0 || r.extra == n {
 		for j := range r.ranked {
 			r.ranked[j] = j
@@ -248,7 +247,7 @@ func (r *lrRound) rankAll() {
 	if r.ranked == nil || r.sorted {
 		return
 	}
-	for _, g := range [][]int{r.ranked[:r.gt], r.ranked[r.ge:r.empty]} {
+	for _, g := range [][]int{r.ranked[:r.gt], r.ranked[r.ge : len(r.ranked)-r.noPeople]} {
 		if r.rem64 != nil && len(g) >= selectSmall && !r.near {
 			radixRank(g, r.rem64, bitLen128(r.bound))
 		} else {
@@ -310,7 +309,7 @@ func (r *lrRound) rankNear(k int) {
 		r.bestTo(above, k, func(x, y int) int { return -r.before(x, y) })
 		slices.Reverse(above)
 	}
-	below := r.ranked[r.ge:r.empty]
+	below := r.ranked[r.ge : len(r.ranked)-r.noPeople]
 	if k >= len(below) {
 		slices.SortFunc(below, r.before)
 	} else {
