@@ -1,0 +1,272 @@
+package engine
+
+// This file finds a margin under a largest-remainder method when some
+// units have a minimum or a maximum (or when the Droop quota could leave
+// more seats over than units with people): the passes that fix units at a
+// bound, and so the units and seats of the pass that decides unit i's
+// seats, change with its population. The changes are taken in stretches
+// over which the passes provably stay what they are, and inside each
+// stretch the seats of unit i come from counting claims in its final pass
+// (claims.go).
+//
+// What the procedure decides in a pass depends on the population only
+// through the whole parts, the quota and which remainders rank above
+// which. While only unit i's population moves, the whole parts and the
+// quota move monotonically, and with them fixed every remainder is linear
+// in the population (the numerator p·S - f·T over the pass's total T, or
+// p - f·Q under a fixed Droop quota). So if at both ends of a stretch the
+// whole parts and the quota are the same and a set of remainders ranks
+// above another, the smallest of the first set less the largest of the
+// second is a concave function of the population, positive at both ends:
+// the first set ranks above the second all along. Hence two runs of the
+// procedure at the ends of a stretch prove it (certify):
+//
+//   - every pass but the last has the same units, seats, whole parts and
+//     quota at both ends, and the same remainders above the cut value,
+//     equal to it and below it: it is the same pass all along;
+//   - the last pass has the same units, seats, whole parts and quota, so
+//     that it is the last all along if no unit's remainder seat decides a
+//     bound: the units that need the seat to reach their minimum rank above
+//     every unit without a seat, and those at their maximum below every
+//     unit with one, at both ends. Inside, only remainder seats change,
+//     and unit i's are counted.
+//
+// A stretch as long as it can be proven is found by galloping and
+// bisection from its start; the next starts where the passes change.
+
+// boundedStretch finds the least change in [x, e] at which unit i's seats
+// meet the wish of dir, over which the units taking part stay the same.
+func (w *marginWorker) boundedStretch(i, a, dir int, x, e uint64) (uint64, bool) {
+	meets := func(s int) bool { return s >= 0 && ((dir > 0 && s > a) || (dir < 0 && s < a)) }
+	for lo := x; lo <= e; {
+		s := w.traceAt(i, dir, lo, 0)
+		if meets(s) {
+			return lo, true
+		}
+		if lo == e {
+			return 0, false
+		}
+		// The longest stretch from lo the two runs prove.
+		kind := certifyNone
+		last := lo
+		hi, found := leastWhere(lo+1, e, lo+1, func(y uint64) bool {
+			w.traceAt(i, dir, y, 1)
+			k := w.certify(i)
+			if k == certifyNone {
+				return true
+			}
+			last, kind = y, k
+			return false
+		})
+		if !found {
+			hi = e + 1
+		}
+		end := hi - 1 // the stretch [lo, end] is proven
+		if last != end {
+			w.traceAt(i, dir, end, 1)
+			kind = w.certify(i)
+		}
+		if kind == certifyPasses && end > lo {
+			if got, ok := w.finalSearch(i, a, dir, lo+1, end); ok {
+				return got, true
+			}
+		}
+		lo = end + 1
+	}
+	return 0, false
+}
+
+// Kinds of stretch the two runs prove.
+const (
+	certifyNone   = iota // nothing: the passes may change inside
+	certifySame          // the whole run, unit i's seats included
+	certifyPasses        // the passes; unit i's remainder seat may change
+)
+
+// traceAt runs the procedure with unit i's population after the change y,
+// recording it in w.tr[k], and returns unit i's outright seats (-1 when
+// there is no apportionment).
+func (w *marginWorker) traceAt(i, dir int, y uint64, k int) int {
+	w.setPop(i, w.popAt(i, dir, y))
+	t := &w.tr[k]
+	t.reset()
+	if w.q.checkFeasible() != nil {
+		t.failed = true
+		return -1
+	}
+	w.q.trace = t
+	o, err := w.q.remainderCut()
+	w.q.trace = nil
+	if err != nil {
+		return -1
+	}
+	return o.seats[i]
+}
+
+// certify compares the runs in w.tr[0] and w.tr[1] (see the top of the
+// file).
+func (w *marginWorker) certify(i int) int {
+	x, y := &w.tr[0], &w.tr[1]
+	if x.failed != y.failed || x.n != y.n {
+		return certifyNone
+	}
+	same := true
+	for k := 0; k < x.n; k++ {
+		a, b := &x.passes[k], &y.passes[k]
+		if a.seats != b.seats || a.extra != b.extra || a.quota != b.quota ||
+			!equalInts(a.units, b.units) || !equalInts(a.whole, b.whole) {
+			return certifyNone
+		}
+		cut := equalInt8s(a.place, b.place) && equalBools(a.win, b.win)
+		if k < x.n-1 || x.failed {
+			if !cut {
+				return certifyNone
+			}
+			continue
+		}
+		same = cut
+	}
+	if same {
+		return certifySame
+	}
+	if x.failed || !w.boundsHold(&x.passes[x.n-1], &y.passes[y.n-1]) {
+		return certifyNone
+	}
+	return certifyPasses
+}
+
+func equalInts(a, b []int) bool {
+	if len(a) != len(b) {
+		return false
+	}
+	for k := range a {
+		if a[k] != b[k] {
+			return false
+		}
+	}
+	return true
+}
+
+func equalInt8s(a, b []int8) bool {
+	if len(a) != len(b) {
+		return false
+	}
+	for k := range a {
+		if a[k] != b[k] {
+			return false
+		}
+	}
+	return true
+}
+
+func equalBools(a, b []bool) bool {
+	if len(a) != len(b) {
+		return false
+	}
+	for k := range a {
+		if a[k] != b[k] {
+			return false
+		}
+	}
+	return true
+}
+
+// boundsHold reports whether, in the last pass run at both ends (a, with
+// the seats as a decided them, and b), every unit that needs its remainder
+// seat to reach its minimum ranks above every unit without a remainder
+// seat, and every unit at its maximum below every unit with one.
+func (w *marginWorker) boundsHold(a, b *lrPassTrace) bool {
+	pr := w.pr
+	for _, t := range []*lrPassTrace{a, b} {
+		var minWin, maxLose, minNeed, maxFull u128
+		hasWin, hasLose, hasNeed, hasFull := false, false, false, false
+		for j, u := range a.units {
+			if a.place[j] == 3 {
+				continue
+			}
+			r := t.rems[j]
+			f := a.whole[j]
+			if a.win[j] {
+				if !hasWin || r.cmp(minWin) < 0 {
+					minWin, hasWin = r, true
+				}
+				if f+1 == pr.min[u] && (!hasNeed || r.cmp(minNeed) < 0) {
+					minNeed, hasNeed = r, true
+				}
+			} else {
+				if !hasLose || r.cmp(maxLose) > 0 {
+					maxLose, hasLose = r, true
+				}
+				if f == pr.max[u] && (!hasFull || r.cmp(maxFull) > 0) {
+					maxFull, hasFull = r, true
+				}
+			}
+		}
+		if hasNeed && hasLose && minNeed.cmp(maxLose) <= 0 {
+			return false
+		}
+		if hasFull && hasWin && maxFull.cmp(minWin) >= 0 {
+			return false
+		}
+	}
+	return true
+}
+
+// finalSearch finds the least change in [lo, hi] at which unit i's seats
+// meet the wish of dir, where the passes stay as w.tr[0] records them and
+// only the remainder seats of the last pass change: by counting claims in
+// that pass.
+func (w *marginWorker) finalSearch(i, a, dir int, lo, hi uint64) (uint64, bool) {
+	t := &w.tr[0]
+	f := &t.passes[t.n-1]
+	pos := -1
+	for j, u := range f.units {
+		if u == i {
+			pos = j
+		}
+	}
+	if pos < 0 {
+		return 0, false // unit i is fixed at a bound all along
+	}
+	pr := w.pr
+	c := &w.pass
+	*c = claimPass{m: pr.m, pops: w.q.pops, units: f.units, i: i, seats: f.seats, sc: pow10(pr.places)}
+	for _, u := range f.units {
+		if u != i {
+			c.rest, _ = c.rest.add64(w.q.pops[u])
+		}
+	}
+	if cap(w.group) < pr.n() {
+		w.group, w.floor = make([]int8, pr.n()), make([]int, pr.n())
+	}
+	c.group, c.floor = w.group[:pr.n()], w.floor[:pr.n()]
+	for j, u := range f.units {
+		c.floor[u] = f.whole[j]
+		switch {
+		case f.whole[j]+1 == pr.min[u]:
+			c.group[u] = 0
+		case f.whole[j] == pr.max[u]:
+			c.group[u] = 2
+		default:
+			c.group[u] = 1
+		}
+	}
+	// Unit i's seats beyond this pass's: none, as it takes part in it.
+	s, k := a, f.seats-a-1 // gain: count <= k
+	if dir < 0 {
+		s, k = a-1, f.seats-a+1 // lose: count >= k
+	}
+	if s < 0 {
+		return 0, false
+	}
+	return leastWhere(lo, hi, lo, func(y uint64) bool {
+		n, ok := c.count(w.popAt(i, dir, y), s)
+		if !ok {
+			return false
+		}
+		if dir > 0 {
+			return n <= k
+		}
+		return n >= k
+	})
+}
