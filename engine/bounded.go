@@ -1,5 +1,7 @@
 package engine
 
+import "slices"
+
 // This file finds a margin under a largest-remainder method when some
 // units have a minimum or a maximum (or when the Droop quota could leave
 // more seats over than units with people): the passes that fix units at a
@@ -88,6 +90,7 @@ const (
 // there is no apportionment).
 func (w *marginWorker) traceAt(i, dir int, y uint64, k int) int {
 	w.setPop(i, w.popAt(i, dir, y))
+	w.trPop[k] = w.q.pops[i]
 	t := &w.tr[k]
 	t.reset()
 	if w.q.checkFeasible() != nil {
@@ -113,103 +116,156 @@ func (w *marginWorker) certify(i int) int {
 	same := true
 	for k := 0; k < x.n; k++ {
 		a, b := &x.passes[k], &y.passes[k]
-		if a.seats != b.seats || a.extra != b.extra || a.quota != b.quota ||
-			!equalInts(a.units, b.units) || !equalInts(a.whole, b.whole) {
+		if a.seats != b.seats || a.extra != b.extra ||
+			!slices.Equal(a.units, b.units) || !slices.Equal(a.whole, b.whole) {
 			return certifyNone
 		}
-		cut := equalInt8s(a.place, b.place) && equalBools(a.win, b.win)
-		if k < x.n-1 || x.failed {
-			if !cut {
+		final := k == x.n-1 && !x.failed
+		cut := slices.Equal(a.place, b.place) && slices.Equal(a.win, b.win)
+		switch {
+		case a.quota != b.quota:
+			// The Droop quota moves with the total between the ends.
+			if !w.cornersHold(i, a, b, final) {
 				return certifyNone
 			}
-			continue
+			same = same && !final
+		case final:
+			same = cut
+			if !cut && (!w.boundsHold(a, a.rems) || !w.boundsHold(a, b.rems)) {
+				return certifyNone
+			}
+		case !cut:
+			return certifyNone
 		}
-		same = cut
 	}
 	if same {
 		return certifySame
 	}
-	if x.failed || !w.boundsHold(&x.passes[x.n-1], &y.passes[y.n-1]) {
-		return certifyNone
-	}
 	return certifyPasses
 }
 
-func equalInts(a, b []int) bool {
-	if len(a) != len(b) {
-		return false
-	}
-	for k := range a {
-		if a[k] != b[k] {
-			return false
-		}
-	}
-	return true
-}
-
-func equalInt8s(a, b []int8) bool {
-	if len(a) != len(b) {
-		return false
-	}
-	for k := range a {
-		if a[k] != b[k] {
-			return false
-		}
-	}
-	return true
-}
-
-func equalBools(a, b []bool) bool {
-	if len(a) != len(b) {
-		return false
-	}
-	for k := range a {
-		if a[k] != b[k] {
-			return false
-		}
-	}
-	return true
-}
-
-// boundsHold reports whether, in the last pass run at both ends (a, with
-// the seats as a decided them, and b), every unit that needs its remainder
-// seat to reach its minimum ranks above every unit without a remainder
-// seat, and every unit at its maximum below every unit with one.
-func (w *marginWorker) boundsHold(a, b *lrPassTrace) bool {
+// boundsHold reports whether, in the last pass a, with the remainders
+// rems, every unit that needs its remainder seat to reach its minimum ranks
+// above every unit without a remainder seat, and every unit at its maximum
+// below every unit with one (a deciding which units have one).
+func (w *marginWorker) boundsHold(a *lrPassTrace, rems []u128) bool {
 	pr := w.pr
-	for _, t := range []*lrPassTrace{a, b} {
-		var minWin, maxLose, minNeed, maxFull u128
-		hasWin, hasLose, hasNeed, hasFull := false, false, false, false
-		for j, u := range a.units {
-			if a.place[j] == 3 {
-				continue
+	var minWin, maxLose, minNeed, maxFull u128
+	hasWin, hasLose, hasNeed, hasFull := false, false, false, false
+	for j, u := range a.units {
+		if a.place[j] == 3 {
+			continue
+		}
+		r := rems[j]
+		f := a.whole[j]
+		if a.win[j] {
+			if !hasWin || r.cmp(minWin) < 0 {
+				minWin, hasWin = r, true
 			}
-			r := t.rems[j]
-			f := a.whole[j]
-			if a.win[j] {
-				if !hasWin || r.cmp(minWin) < 0 {
-					minWin, hasWin = r, true
-				}
-				if f+1 == pr.min[u] && (!hasNeed || r.cmp(minNeed) < 0) {
-					minNeed, hasNeed = r, true
-				}
-			} else {
-				if !hasLose || r.cmp(maxLose) > 0 {
-					maxLose, hasLose = r, true
-				}
-				if f == pr.max[u] && (!hasFull || r.cmp(maxFull) > 0) {
-					maxFull, hasFull = r, true
-				}
+			if f+1 == pr.min[u] && (!hasNeed || r.cmp(minNeed) < 0) {
+				minNeed, hasNeed = r, true
+			}
+		} else {
+			if !hasLose || r.cmp(maxLose) > 0 {
+				maxLose, hasLose = r, true
+			}
+			if f == pr.max[u] && (!hasFull || r.cmp(maxFull) > 0) {
+				maxFull, hasFull = r, true
 			}
 		}
-		if hasNeed && hasLose && minNeed.cmp(maxLose) <= 0 {
-			return false
-		}
-		if hasFull && hasWin && maxFull.cmp(minWin) >= 0 {
-			return false
+	}
+	return !(hasNeed && hasLose && minNeed.cmp(maxLose) <= 0) && !(hasFull && hasWin && maxFull.cmp(minWin) >= 0)
+}
+
+// cornersHold proves a pass of the Droop quota the same all along when the
+// quota differs at the ends (a and b): it rises with the total, a person at
+// a time, as unit i's population moves. With the whole parts fixed, every
+// remainder p_u - f_u·Q is linear in the population of unit i and in the
+// quota, so the smallest of one set of remainders less the largest of
+// another is concave in both, and positive over the rectangle of
+// populations and quotas between the ends if it is at its four corners.
+// There every remainder must keep its place around the cut (a pass before
+// the last) or the bounds their hold (the last); and unit i's whole part
+// must be the same where it is least and where greatest.
+func (w *marginWorker) cornersHold(i int, a, b *lrPassTrace, final bool) bool {
+	p0, p1 := min(w.trPop[0], w.trPop[1]), max(w.trPop[0], w.trPop[1])
+	q0, q1 := a.quota, b.quota
+	if q0.cmp(q1) > 0 {
+		q0, q1 = q1, q0
+	}
+	pos := slices.Index(a.units, i)
+	if pos < 0 || !final && !(slices.Equal(a.place, b.place) && slices.Equal(a.win, b.win)) {
+		return false
+	}
+	f := a.whole[pos]
+	if wholeOf(p0, q1) != f || wholeOf(p1, q0) != f {
+		return false
+	}
+	for _, p := range [2]uint64{p0, p1} {
+		for _, q := range [2]u128{q0, q1} {
+			rems := w.cornerRems(a, i, p, q)
+			if final && !w.boundsHold(a, rems) || !final && !groupsHold(a, rems) {
+				return false
+			}
 		}
 	}
 	return true
+}
+
+// wholeOf is floor(p/q).
+func wholeOf(p uint64, q u128) int {
+	if q.hi != 0 || q.lo == 0 {
+		return 0
+	}
+	return int(p / q.lo)
+}
+
+// cornerRems returns the remainders p_u - f_u·q of pass a's units, unit i
+// at population p, in scratch.
+func (w *marginWorker) cornerRems(a *lrPassTrace, i int, p uint64, q u128) []u128 {
+	w.rems = resize(w.rems, len(a.units))
+	for j, u := range a.units {
+		pu := w.q.pops[u]
+		if u == i {
+			pu = p
+		}
+		fq, ok := q.mulSmall(uint64(a.whole[j]))
+		if !ok || fq.cmp(u128{0, pu}) > 0 {
+			fq = u128{0, pu}
+		}
+		w.rems[j] = u128{0, pu}.sub(fq)
+	}
+	return w.rems
+}
+
+// groupsHold reports whether the remainders rems keep the places pass a
+// gave them around the cut: those above it above those equal to it, which
+// are all equal, above those below it.
+func groupsHold(a *lrPassTrace, rems []u128) bool {
+	var v, minAbove, maxBelow u128
+	hasV, hasAbove, hasBelow := false, false, false
+	for j, pl := range a.place {
+		r := rems[j]
+		switch pl {
+		case 0:
+			if !hasAbove || r.cmp(minAbove) < 0 {
+				minAbove, hasAbove = r, true
+			}
+		case 1:
+			if hasV && r != v {
+				return false
+			}
+			v, hasV = r, true
+		case 2:
+			if !hasBelow || r.cmp(maxBelow) > 0 {
+				maxBelow, hasBelow = r, true
+			}
+		}
+	}
+	if !hasV {
+		return !hasAbove || !hasBelow || minAbove.cmp(maxBelow) > 0
+	}
+	return (!hasAbove || minAbove.cmp(v) > 0) && (!hasBelow || v.cmp(maxBelow) > 0)
 }
 
 // finalSearch finds the least change in [lo, hi] at which unit i's seats
@@ -227,6 +283,9 @@ func (w *marginWorker) finalSearch(i, a, dir int, lo, hi uint64) (uint64, bool) 
 	}
 	if pos < 0 {
 		return 0, false // unit i is fixed at a bound all along
+	}
+	if f.whole[pos]+1 == w.pr.min[i] || f.whole[pos] == w.pr.max[i] {
+		return 0, false // its remainder seat is given, or withheld, all along
 	}
 	pr := w.pr
 	c := &w.pass
@@ -251,22 +310,14 @@ func (w *marginWorker) finalSearch(i, a, dir int, lo, hi uint64) (uint64, bool) 
 			c.group[u] = 1
 		}
 	}
-	// Unit i's seats beyond this pass's: none, as it takes part in it.
-	s, k := a, f.seats-a-1 // gain: count <= k
-	if dir < 0 {
-		s, k = a-1, f.seats-a+1 // lose: count >= k
-	}
+	// Unit i's seats all come from this pass, as it takes part in it.
+	s, k := c.wish(a, dir)
 	if s < 0 {
 		return 0, false
 	}
-	return leastWhere(lo, hi, lo, func(y uint64) bool {
-		n, ok := c.count(w.popAt(i, dir, y), s)
-		if !ok {
-			return false
-		}
-		if dir > 0 {
-			return n <= k
-		}
-		return n >= k
-	})
+	ok := func(y uint64) bool { return c.meets(w.popAt(i, dir, y), s, k, dir) }
+	if pr.m == Droop {
+		return w.droopSearch(c, i, dir, lo, hi, lo, ok, func(a, b uint64) (uint64, bool) { return leastWhere(a, b, a, ok) })
+	}
+	return leastWhere(lo, hi, lo, ok)
 }

@@ -181,15 +181,9 @@ func (c *cut) cmpBig(p uint64, k int) int {
 	l, r := bigU(p), bigU(c.x)
 	if s.sq {
 		l.Mul(l, l)
-		r.Mul(r, bigU(s.n))
-		if c.s >= 0 {
-			l.Lsh(l, uint(c.s))
-		} else {
-			r.Lsh(r, uint(-c.s))
-		}
-		return l.Cmp(r)
+	} else {
+		l.Mul(l, bigU(s.d))
 	}
-	l.Mul(l, bigU(s.d))
 	r.Mul(r, bigU(s.n))
 	if c.s >= 0 {
 		l.Lsh(l, uint(c.s))

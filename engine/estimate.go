@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"cmp"
 	"math"
 	"slices"
 	"sync"
@@ -297,16 +298,6 @@ func (j *divisorRun) gather(i int, p uint64, x float64, k, lo, hi int, cn, ch fl
 	}
 }
 
-func cmpFloat(x, y float64) int {
-	switch {
-	case x < y:
-		return -1
-	case x > y:
-		return 1
-	}
-	return 0
-}
-
 // firstSeats puts the m seats that come first (highest value first when
 // desc, lowest first otherwise), or all of them if there are fewer, at the
 // front of seats in that order. Few are wanted after a good estimate, and
@@ -319,9 +310,9 @@ func firstSeats(seats []jumpSeat, m int, desc bool) {
 	if m > firstSeatsByInsertion {
 		slices.SortFunc(seats, func(x, y jumpSeat) int {
 			if desc {
-				return cmpFloat(y.v, x.v)
+				return cmp.Compare(y.v, x.v)
 			}
-			return cmpFloat(x.v, y.v)
+			return cmp.Compare(x.v, y.v)
 		})
 		return
 	}

@@ -90,15 +90,6 @@ func cmpProd3(a, b, c, d, e, f uint64) int {
 	return x.Cmp(y)
 }
 
-// cmpProd2 compares a*b with c*d exactly.
-func cmpProd2(a, b, c, d uint64) int {
-	if !forceBig {
-		return mul128(a, b).cmp(mul128(c, d))
-	}
-	x := new(big.Int).Mul(bigU(a), bigU(b))
-	return x.Cmp(new(big.Int).Mul(bigU(c), bigU(d)))
-}
-
 // sum128 adds non-negative values; 128 bits hold the sum of 2^64 values of
 // up to 2^64 each, far beyond any scenario the engine accepts.
 func sum128(vs []uint64) u128 {

@@ -236,26 +236,11 @@ func (m Method) overtake(w prio, a int) (uint64, bool) {
 	if w.p == 0 {
 		return 1, true
 	}
-	if q, ok := scaledFloor(w.p, s, sw); ok {
-		return q + 1, q+1 != 0
-	}
-	var need *big.Int
-	if s.sq {
-		x := new(big.Int).Mul(bigU(w.p), bigU(w.p))
-		x.Mul(x, bigU(s.n))
-		x.Quo(x, bigU(sw.n))
-		need = x.Sqrt(x)
-	} else {
-		num := new(big.Int).Mul(bigU(w.p), bigU(sw.d))
-		num.Mul(num, bigU(s.n))
-		den := new(big.Int).Mul(bigU(s.d), bigU(sw.n))
-		need = num.Quo(num, den)
-	}
-	need.Add(need, big.NewInt(1))
-	if !need.IsUint64() {
+	q, ok := scaledFloor(w.p, s, sw)
+	if !ok || q == ^uint64(0) {
 		return 0, false
 	}
-	return need.Uint64(), true
+	return q + 1, true
 }
 
 // overtakenBelow returns the greatest population whose (a+1)-th seat
@@ -269,32 +254,38 @@ func (m Method) overtakenBelow(best prio, a int) (uint64, bool) {
 	if best.p == 0 {
 		return 0, true
 	}
-	t := m.signpost(a)
-	if k, ok := scaledFloor(best.p, t, sb); ok {
-		return k, true
+	k, ok := scaledFloor(best.p, m.signpost(a), sb)
+	if !ok {
+		return ^uint64(0), true // beyond every population
 	}
-	var keep *big.Int
-	if t.sq {
-		x := new(big.Int).Mul(bigU(best.p), bigU(best.p))
-		x.Mul(x, bigU(t.n))
-		x.Quo(x, bigU(sb.n))
-		keep = x.Sqrt(x)
-	} else {
-		num := new(big.Int).Mul(bigU(best.p), bigU(sb.d))
-		num.Mul(num, bigU(t.n))
-		den := new(big.Int).Mul(bigU(t.d), bigU(sb.n))
-		keep = num.Quo(num, den)
-	}
-	if !keep.IsUint64() {
-		return ^uint64(0), true
-	}
-	return keep.Uint64(), true
+	return k, true
 }
 
 // scaledFloor returns floor(p·s/w) for signposts s and w (both nonzero),
-// the population at which a quotient over s equals p over w, in 128-bit
-// arithmetic; false when that does not fit, for the math/big path.
+// the population at which a quotient over s equals p over w: in 128-bit
+// arithmetic, or math/big where that does not fit. False when it does not
+// fit in 64 bits.
 func scaledFloor(p uint64, s, w signpost) (uint64, bool) {
+	if q, ok := scaledFloor128(p, s, w); ok {
+		return q, true
+	}
+	var q *big.Int
+	if s.sq {
+		x := new(big.Int).Mul(bigU(p), bigU(p))
+		x.Mul(x, bigU(s.n))
+		x.Quo(x, bigU(w.n))
+		q = x.Sqrt(x)
+	} else {
+		num := new(big.Int).Mul(bigU(p), bigU(w.d))
+		num.Mul(num, bigU(s.n))
+		q = num.Quo(num, new(big.Int).Mul(bigU(s.d), bigU(w.n)))
+	}
+	return q.Uint64(), q.IsUint64()
+}
+
+// scaledFloor128 is scaledFloor in 128-bit arithmetic; false when that
+// does not fit.
+func scaledFloor128(p uint64, s, w signpost) (uint64, bool) {
 	if forceBig {
 		return 0, false
 	}
@@ -322,34 +313,13 @@ func scaledFloor(p uint64, s, w signpost) (uint64, bool) {
 	return q.lo, true
 }
 
-// withPop returns a copy of the problem with unit i's population set to p,
-// ties left open and eligibility recomputed, or nil if that is infeasible.
-func (pr *problem) withPop(i int, p uint64) *problem {
-	q := *pr
-	q.pops = append([]uint64(nil), pr.pops...)
-	q.pops[i] = p
-	q.tie = TieRule{}
-	q.quotas = nil
-	if !pr.threshold.IsZero() {
-		q.eligible = make([]bool, len(q.pops))
-		total := sum128(q.pops)
-		for j, v := range q.pops {
-			q.eligible[j] = !belowShare(v, total, pr.threshold)
-		}
-	}
-	if q.checkFeasible() != nil {
-		return nil
-	}
-	return &q
-}
-
 // feasibleWith reports whether the problem can be apportioned with unit
 // i's population set to p, the units taking part as they are.
 func (pr *problem) feasibleWith(i int, p uint64) bool {
 	return pr.checkFeasibleWith(i, p) == nil
 }
 
-// gainLimit bounds the useful gain of unit i: past it every other unit has
+// gainLimitWith bounds the useful gain of unit i: past it every other unit has
 // dropped below the threshold (if there is one) and unit i takes every seat
 // the bounds leave it, so more people change nothing. With rest the other
 // units' population and s one person in scaled units, (2H+2)·(rest +
@@ -357,9 +327,7 @@ func (pr *problem) feasibleWith(i int, p uint64) bool {
 // H-1 seats once p > (H-1)·rest and the last one once its remainder beats
 // every other quota, p > (2H-1)·rest; the Droop quota gives it H seats
 // once p >= H·(rest + (H+1)·s). Add rest/threshold for the threshold.
-func (pr *problem) gainLimit(i int) uint64 { return pr.gainLimitWith(i, sum128(pr.pops)) }
-
-// gainLimitWith is gainLimit given the total population.
+// total is the population of every unit.
 func (pr *problem) gainLimitWith(i int, total u128) uint64 {
 	rest := total.sub(u128{0, pr.pops[i]})
 	h := uint64(pr.h)

@@ -468,7 +468,7 @@ func genSearchScenario(t *rapid.T, m Method) *Scenario {
 		s.Tie = rapid.SampledFrom([]TieRule{{}, {Kind: TieByOrder}}).Draw(t, "tie")
 		return s
 	}
-	maxPop := rapid.SampledFrom([]uint64{40, 5_000, 3_000_000}).Draw(t, "maxPop")
+	maxPop := rapid.SampledFrom([]uint64{40, 5_000, 300_000}).Draw(t, "maxPop")
 	s := genScenario(t, m, 7, maxPop, rapid.SampledFrom([]int{8, 30, 120}).Draw(t, "maxSeats"), rapid.Bool().Draw(t, "bounds"))
 	s.Tie = rapid.SampledFrom([]TieRule{{}, {}, {Kind: TieByOrder}, {Kind: TieByLot, Seed: 5}}).Draw(t, "tie")
 	return s
@@ -503,17 +503,19 @@ func TestMarginsMatchSearch(t *testing.T) {
 				for i := range got.Units {
 					g, w := got.Units[i], want.Units[i]
 					if decPtr(g.Gain) != decPtr(w.Gain) {
-						checkByCount(t, s, i, "gain", g.Gain, w.Gain, func(limit uint64) (uint64, bool) {
-							if g.Max >= 0 && g.Seats >= g.Max {
-								return 0, false
-							}
-							return bruteGain(s, i, g.Seats, limit)
+						checkByCount(t, s, i, "gain", g.Gain, w.Gain, func(x uint64) bool {
+							pops, places, _ := scaledPops(s)
+							return (g.Max < 0 || g.Seats < g.Max) && outrightSeats(s, i, pops[i]+x, places) > g.Seats
 						})
 					}
 					if decPtr(g.Lose) != decPtr(w.Lose) {
-						checkByCount(t, s, i, "lose", g.Lose, w.Lose, func(limit uint64) (uint64, bool) {
-							x, ok := bruteLose(s, i, g.Seats)
-							return x, ok && x <= limit
+						checkByCount(t, s, i, "lose", g.Lose, w.Lose, func(x uint64) bool {
+							pops, places, _ := scaledPops(s)
+							if x > pops[i] {
+								return false
+							}
+							k := outrightSeats(s, i, pops[i]-x, places)
+							return k >= 0 && k < g.Seats
 						})
 					}
 				}
@@ -523,8 +525,11 @@ func TestMarginsMatchSearch(t *testing.T) {
 }
 
 // checkByCount decides between a margin and the search's, which differ,
-// by counting changes one at a time up to the larger of the two.
-func checkByCount(t *rapid.T, s *Scenario, i int, what string, got, search *Decimal, count func(limit uint64) (uint64, bool)) {
+// by counting changes one at a time up to the larger of the two (meets
+// says whether a change does what the margin is for). Past countLimit
+// changes it checks the margin's own change and the one before, the
+// search's, and a thousand changes spread below the margin.
+func checkByCount(t *rapid.T, s *Scenario, i int, what string, got, search *Decimal, meets func(x uint64) bool) {
 	t.Helper()
 	_, places, _ := scaledPops(s)
 	scaled := func(d *Decimal) uint64 {
@@ -533,12 +538,62 @@ func checkByCount(t *rapid.T, s *Scenario, i int, what string, got, search *Deci
 		}
 		return d.Coef * pow10(int(places-d.Places))
 	}
-	limit := max(scaled(got), scaled(search))
-	if limit > 2_000_000 {
-		t.Fatalf("unit %d %s margin %s, search %s: too far apart to count", i, what, decPtr(got), decPtr(search))
+	g, w := scaled(got), scaled(search)
+	fail := func(why string) {
+		t.Fatalf("unit %d %s margin %s, search %s: %s", i, what, decPtr(got), decPtr(search), why)
 	}
-	want, ok := count(limit)
-	if ok != (got != nil) || (ok && want != scaled(got)) {
-		t.Fatalf("unit %d %s margin %s, search %s, counting %d (%v)", i, what, decPtr(got), decPtr(search), want, ok)
+	if limit := max(g, w); limit <= countLimit {
+		for x := uint64(1); x <= limit; x++ {
+			if meets(x) {
+				if got == nil || x != g {
+					fail("counting finds " + strconv.FormatUint(x, 10))
+				}
+				return
+			}
+		}
+		if got != nil {
+			fail("counting finds none")
+		}
+		return
+	}
+	if got != nil && (!meets(g) || (g > 1 && meets(g-1))) {
+		fail("its own change does not hold")
+	}
+	if search != nil && (got == nil || w < g) && meets(w) {
+		fail("the search's change holds")
+	}
+	if got != nil {
+		for k := uint64(1); k < 1000 && g > 1; k++ {
+			if x := g * k / 1000; x >= 1 && meets(x) {
+				fail("change " + strconv.FormatUint(x, 10) + " holds")
+			}
+		}
 	}
 }
+
+// countLimit is the most changes checkByCount counts one at a time.
+const countLimit = 200_000
+
+// withPop returns a copy of the problem with unit i's population set to p,
+// ties left open and eligibility recomputed, or nil if that is infeasible.
+func (pr *problem) withPop(i int, p uint64) *problem {
+	q := *pr
+	q.pops = append([]uint64(nil), pr.pops...)
+	q.pops[i] = p
+	q.tie = TieRule{}
+	q.quotas = nil
+	if !pr.threshold.IsZero() {
+		q.eligible = make([]bool, len(q.pops))
+		total := sum128(q.pops)
+		for j, v := range q.pops {
+			q.eligible[j] = !belowShare(v, total, pr.threshold)
+		}
+	}
+	if q.checkFeasible() != nil {
+		return nil
+	}
+	return &q
+}
+
+// gainLimit bounds the useful gain of unit i (see gainLimitWith).
+func (pr *problem) gainLimit(i int) uint64 { return pr.gainLimitWith(i, sum128(pr.pops)) }

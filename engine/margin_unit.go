@@ -23,6 +23,8 @@ type marginWorker struct {
 	group   []int8
 	floor   []int
 	tr      [2]lrTrace
+	trPop   [2]uint64 // unit i's population in each run
+	rems    []u128
 	bounded bool // some unit has a bound: the passes can change
 	// Without a threshold: the units taking part, always the same, and
 	// their population.
@@ -133,29 +135,27 @@ func (w *marginWorker) nextBreak(i, dir int, x uint64) uint64 {
 		return next
 	}
 	p := pr.pops[i]
-	rest := sum128Except(pr.pops, i, w.total, w.q.pops[i])
+	rest := w.total.sub(u128{0, w.q.pops[i]}) // the others' population
 	unit := pow10(int(th.Places))
 	c := th.Coef
-	consider := func(b u128, ok bool) {
-		if ok && b.hi == 0 && b.lo > x && b.lo < next {
+	pp := u128{0, p}
+	consider := func(b u128) {
+		if b.hi == 0 && b.lo > x && b.lo < next {
 			next = b.lo
 		}
 	}
 	// Unit i takes part once p'·(10^k - c) >= c·rest.
 	if c < unit {
-		cr, ok := rest.mulSmall(c)
-		if ok {
-			d := unit - c
-			u, r := cr.div64(d)
+		if cr, ok := rest.mulSmall(c); ok {
+			u, r := cr.div64(unit - c)
 			if r != 0 {
-				u, _ = u.add64(1) // the least population taking part
+				u = u.plus(1) // the least population taking part
 			}
-			if dir > 0 && u.cmp(u128{0, p}) > 0 {
-				consider(u.sub(u128{0, p}), true)
-			}
-			if dir < 0 && u.cmp(u128{0, p}) <= 0 {
-				b, _ := u128{0, p}.sub(u).add64(1)
-				consider(b, true)
+			switch {
+			case dir > 0 && u.cmp(pp) > 0:
+				consider(u.sub(pp))
+			case dir < 0 && u.cmp(pp) <= 0:
+				consider(pp.sub(u).plus(1))
 			}
 		}
 	}
@@ -164,35 +164,19 @@ func (w *marginWorker) nextBreak(i, dir int, x uint64) uint64 {
 		if j == i {
 			continue
 		}
-		vj, ok := mul128(v, unit).mulSmall(1)
-		if !ok {
-			continue
-		}
-		vj, _ = vj.div64(c)
+		vj, _ := mul128(v, unit).div64(c)
 		if vj.cmp(rest) < 0 {
-			if dir < 0 {
-				// Not taking part at any population of unit i.
-				continue
-			}
-			continue
+			continue // out at every population of unit i
 		}
 		vj = vj.sub(rest) // the greatest p' with j taking part
-		pp := u128{0, p}
-		if dir > 0 && vj.cmp(pp) >= 0 {
-			b, _ := vj.sub(pp).add64(1)
-			consider(b, true)
-		}
-		if dir < 0 && vj.cmp(pp) < 0 {
-			consider(pp.sub(vj), true)
+		switch {
+		case dir > 0 && vj.cmp(pp) >= 0:
+			consider(vj.sub(pp).plus(1))
+		case dir < 0 && vj.cmp(pp) < 0:
+			consider(pp.sub(vj))
 		}
 	}
 	return next
-}
-
-// sum128Except is the total of pops without unit i, from the total with
-// unit i at population cur.
-func sum128Except(pops []uint64, i int, total u128, cur uint64) u128 {
-	return total.sub(u128{0, cur})
 }
 
 // leastWhere returns the least x in [lo, hi] with ok(x), where ok is false
@@ -380,22 +364,12 @@ func (w *marginWorker) remainderStretch(i, a, dir int, x, e uint64) (uint64, boo
 		return 0, false
 	}
 	c := w.plainPass(i)
-	if pr.m == Droop && !w.droopFeasible(c, dir, x, e) {
-		return w.boundedStretch(i, a, dir, x, e)
-	}
-	s, k := a, pr.h-a-1 // gain: count <= k
-	if dir < 0 {
-		s, k = a-1, pr.h-a+1 // lose: count >= k
-	}
-	ok := func(y uint64) bool {
-		n, feasible := c.count(w.popAt(i, dir, y), s)
-		if !feasible {
-			return false
+	s, k := c.wish(a, dir)
+	ok := func(y uint64) bool { return c.meets(w.popAt(i, dir, y), s, k, dir) }
+	if pr.m == Hamilton && c.tab != nil {
+		if y, found, decided := c.tab.hamiltonChange(c, s, k, dir, x, e); decided {
+			return y, found
 		}
-		if dir > 0 {
-			return n <= k
-		}
-		return n >= k
 	}
 	hint := x
 	if c.tab != nil {
@@ -404,7 +378,14 @@ func (w *marginWorker) remainderStretch(i, a, dir int, x, e uint64) (uint64, boo
 	if pr.m == Hamilton {
 		return leastWhere(x, e, hint, ok)
 	}
-	return w.droopSearch(c, i, dir, x, e, hint, ok)
+	return w.droopSearch(c, i, dir, x, e, hint, ok, func(lo, hi uint64) (uint64, bool) {
+		if c.tab != nil {
+			if y, found, decided := c.tab.droopChange(c, s, k, dir, lo, hi); decided {
+				return y, found
+			}
+		}
+		return leastWhere(lo, hi, hint, ok)
+	})
 }
 
 // plainPass returns the claim pass over the units taking part in the
@@ -413,7 +394,7 @@ func (w *marginWorker) remainderStretch(i, a, dir int, x, e uint64) (uint64, boo
 func (w *marginWorker) plainPass(i int) *claimPass {
 	pr := w.pr
 	c := &w.pass
-	*c = claimPass{m: pr.m, pops: w.q.pops, i: i, seats: pr.h, sc: pow10(pr.places)}
+	*c = claimPass{m: pr.m, pops: w.q.pops, i: i, seats: pr.h, sc: pow10(pr.places), cands: c.cands}
 	if pr.threshold.IsZero() && w.all != nil {
 		c.units, c.tab = w.all, w.tab
 		c.rest = w.allTotal.sub(u128{0, pr.pops[i]})
@@ -437,58 +418,63 @@ func (w *marginWorker) plainPass(i int) *claimPass {
 	return c
 }
 
-// droopFeasible reports whether the Droop quota leaves at most as many
-// seats over as there are units with people, at every change in [x, e]:
-// it does once the total passes (H+1)^2 people, for the quota is then more
-// than P/(H+1) - 1 and the whole parts add up to more than H - n. Below,
-// a stretch can have no apportionment amid ones that have, and the general
-// search takes it.
-func (w *marginWorker) droopFeasible(c *claimPass, dir int, x, e uint64) bool {
-	low := w.popAt(c.i, dir, x)
-	if dir < 0 {
-		low = w.popAt(c.i, dir, e)
-	}
-	t, _ := c.rest.add64(low)
-	h := uint64(w.pr.h) + 1
-	need, ok := mul128(h, h).mulSmall(c.sc)
-	return ok && t.cmp(need) > 0
-}
-
-// droopSearch finds the least change in [x, e] with ok under the Droop
-// quota: first the stretch of constant quota whose end is the first to
-// meet ok (ok at the stretch ends rises with the change), then the change
-// inside it (ok rises there too).
-func (w *marginWorker) droopSearch(c *claimPass, i, dir int, x, e, hint uint64, ok func(uint64) bool) (uint64, bool) {
-	b, fits := mul128(uint64(c.seats)+1, c.sc).mulSmall(1)
-	if !fits || b.hi != 0 {
-		return leastWhere(x, e, hint, ok)
-	}
-	width := b.lo
-	// The end of the stretch holding change x.
+// droopSearch finds the least change in [x, e] at which unit i's count
+// meets ok under the Droop quota and the pass can be apportioned. The count
+// meets ok from some point on within each stretch where the quota stays
+// the same, and at the stretch ends from some stretch on: within finds the
+// point inside a stretch. Whether the pass can be apportioned changes
+// within a stretch only with unit i's whole part, so that it holds from
+// some point on adding people, and up to some point taking them away.
+func (w *marginWorker) droopSearch(c *claimPass, i, dir int, x, e, hint uint64, ok func(uint64) bool, within func(lo, hi uint64) (uint64, bool)) (uint64, bool) {
+	feasible := func(y uint64) bool { return c.feasible(w.popAt(i, dir, y)) }
+	width := (uint64(c.seats) + 1) * c.sc // the totals of one stretch
 	t, _ := c.rest.add64(w.popAt(i, dir, x))
 	_, r := t.div64(width)
-	var first uint64 // the changes left in x's stretch after x
+	first := r // the changes left in x's stretch after x
 	if dir > 0 {
 		first = width - 1 - r
-	} else {
-		first = r
 	}
-	if first >= e-x {
-		return leastWhere(x, e, hint, ok)
+	// The stretches in [x, e]: those that end inside it, j = 0..last, the
+	// j-th at end(j), then the rest of the one that goes on past e. Only
+	// the ends of stretches are in order.
+	last := -1
+	if first <= e-x {
+		last = int((e - x - first) / width)
 	}
-	end := func(j uint64) uint64 { return min(e, x+first+j*width) }
-	stretches := (e - x - first + width - 1) / width
-	j0 := uint64(0)
-	if hint > x+first {
-		j0 = (hint - x - first + width - 1) / width
+	end := func(j int) uint64 { return x + first + uint64(j)*width }
+	j := last + 1 // the first stretch whose end meets ok, if any
+	if last >= 0 {
+		j0 := uint64(0)
+		if hint > x+first {
+			j0 = min(uint64(last), (hint-x-first)/width)
+		}
+		if jj, found := leastWhere(0, uint64(last), j0, func(j uint64) bool { return ok(end(int(j))) }); found {
+			j = int(jj)
+		}
 	}
-	j, found := leastWhere(0, stretches, j0, func(j uint64) bool { return ok(end(j)) })
-	if !found {
-		return 0, false
+	for ; j <= last+1; j++ {
+		lo, hi := x, e
+		if j > 0 {
+			lo = end(j-1) + 1
+		}
+		if j <= last {
+			hi = end(j)
+		}
+		if lo > hi {
+			break
+		}
+		y, found := within(lo, hi)
+		if !found {
+			continue
+		}
+		if feasible(y) {
+			return y, true
+		}
+		if dir > 0 {
+			if y, found := leastWhere(y, hi, y, feasible); found {
+				return y, true
+			}
+		}
 	}
-	lo := x
-	if j > 0 {
-		lo = end(j-1) + 1
-	}
-	return leastWhere(lo, end(j), hint, ok)
+	return 0, false
 }

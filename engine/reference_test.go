@@ -439,6 +439,17 @@ func genScenario(t *rapid.T, m Method, maxUnits int, maxPop uint64, maxSeats int
 	return s
 }
 
+// drawTieRule draws no tie rule, input order, or lot with a drawn seed.
+func drawTieRule(t *rapid.T) TieRule {
+	switch rapid.IntRange(0, 2).Draw(t, "tie") {
+	case 1:
+		return TieRule{Kind: TieByOrder}
+	case 2:
+		return TieRule{Kind: TieByLot, Seed: rapid.Uint64().Draw(t, "seed")}
+	}
+	return TieRule{}
+}
+
 func suffix(i int) string {
 	if i < len(testNames) {
 		return ""

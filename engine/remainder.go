@@ -263,6 +263,19 @@ func (r *lrRound) setAsideEmpty(pops []uint64) {
 	r.ge, r.noPeople = ge, len(empty)
 }
 
+// narrowRems makes the pass's remainders 64-bit, every one below bound,
+// and the histogram of their leading bits that kthLargest needs (nil for a
+// pass too small to want one) with its shift.
+func (r *lrRound) narrowRems(bound uint64) ([]uint64, *[selectBuckets]int32, int) {
+	r.bound = u128{0, bound}
+	var hist *[selectBuckets]int32
+	if len(r.units) >= selectSmall {
+		hist = new([selectBuckets]int32)
+	}
+	r.rem64 = make([]uint64, len(r.units))
+	return r.rem64, hist, selectShift(r.bound)
+}
+
 // hareFloors fills the whole parts and remainders of p·seats/total for a
 // 64-bit total and returns the sum of the whole parts. A floating-point
 // quotient is only the first guess; the 128-bit remainder corrects it
@@ -270,14 +283,7 @@ func (r *lrRound) setAsideEmpty(pops []uint64) {
 func (r *lrRound) hareFloors(pops []uint64, seats uint64) (sum int) {
 	t := r.total.lo
 	ratio := float64(seats) / float64(t)
-	r.bound = u128{0, t}
-	var hist *[selectBuckets]int32 // the histogram kthLargest needs, if any
-	if len(r.units) >= selectSmall {
-		hist = new([selectBuckets]int32)
-	}
-	shift := selectShift(r.bound)
-	rems := make([]uint64, len(r.units))
-	r.rem64 = rems
+	rems, hist, shift := r.narrowRems(t)
 	for j, u := range r.units {
 		num := mul128(pops[u], seats)
 		q := uint64(float64(pops[u]) * ratio)
@@ -306,14 +312,7 @@ func (r *lrRound) hareFloors(pops []uint64, seats uint64) (sum int) {
 // floating-point first guess exactly.
 func (r *lrRound) droopFloors(pops []uint64, q uint64) (sum int) {
 	inv := 1 / float64(q)
-	r.bound = u128{0, q}
-	var hist *[selectBuckets]int32 // the histogram kthLargest needs, if any
-	if len(r.units) >= selectSmall {
-		hist = new([selectBuckets]int32)
-	}
-	shift := selectShift(r.bound)
-	rems := make([]uint64, len(r.units))
-	r.rem64 = rems
+	rems, hist, shift := r.narrowRems(q)
 	for j, u := range r.units {
 		p := pops[u]
 		f := uint64(float64(p) * inv)
@@ -420,16 +419,6 @@ func (pr *problem) cutGroups(r *lrRound) (aw, lf []int, forced bool) {
 		start += len(grp)
 	}
 	return nil, nil, false
-}
-
-// remainderSeats runs the largest-remainder procedure with bounds and ranks
-// every remainder of the final pass, as the explanation shows them.
-func (pr *problem) remainderSeats() (*lrOutcome, error) {
-	o, err := pr.remainderCut()
-	if err == nil && o.final != nil {
-		o.final.rankAll()
-	}
-	return o, err
 }
 
 // remainderCut runs the largest-remainder procedure with bounds. Its passes

@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"cmp"
 	"math/bits"
 	"slices"
 )
@@ -38,14 +39,7 @@ func kthLargest(wide []u128, narrow []uint64, e int, bound u128, count *[selectB
 			in = append(in, u128{0, k})
 		}
 		v = quickSelect(in, e)
-		for _, k := range in {
-			switch k.cmp(v) {
-			case 1:
-				gt++
-			case 0:
-				eq++
-			}
-		}
+		gt, eq = countAround(in, v)
 		return v, gt, eq
 	}
 	shift := selectShift(bound)
@@ -81,8 +75,13 @@ func kthLargest(wide []u128, narrow []uint64, e int, bound u128, count *[selectB
 		}
 	}
 	v = quickSelect(in, e-above)
-	gt = above
-	for _, k := range in {
+	gt, eq = countAround(in, v)
+	return v, above + gt, eq
+}
+
+// countAround counts the keys above v and equal to it.
+func countAround(keys []u128, v u128) (gt, eq int) {
+	for _, k := range keys {
 		switch k.cmp(v) {
 		case 1:
 			gt++
@@ -90,7 +89,7 @@ func kthLargest(wide []u128, narrow []uint64, e int, bound u128, count *[selectB
 			eq++
 		}
 	}
-	return v, gt, eq
+	return gt, eq
 }
 
 func bitLen128(x u128) int {
@@ -191,20 +190,13 @@ func (r *lrRound) cutOrder() {
 	// fill r.ranked from the front and those below it from the back (in
 	// reverse), each written at both frontiers and kept by the one that
 	// moves; the few equal to v are set aside and fill the gap between.
-	front, back := 0, n-1
-	eqs := make([]int, 0, eq)
+	p := partition{ranked: r.ranked, back: n - 1, eqs: make([]int, 0, eq)}
 	if r.rem64 != nil {
 		vv := v.lo
 		for j, x := range r.rem64 {
 			_, up := bits.Sub64(vv, x, 0)   // x > v
 			_, down := bits.Sub64(x, vv, 0) // x < v
-			r.ranked[front] = j
-			r.ranked[back] = j
-			front += int(up)
-			back -= int(down)
-			if up|down == 0 {
-				eqs = append(eqs, j)
-			}
+			p.put(j, up, down)
 		}
 	}
 	for j, x := range r.rems {
@@ -212,17 +204,34 @@ func (r *lrRound) cutOrder() {
 		_, up = bits.Sub64(v.hi, x.hi, up) // x > v
 		_, down := bits.Sub64(x.lo, v.lo, 0)
 		_, down = bits.Sub64(x.hi, v.hi, down) // x < v
-		r.ranked[front] = j
-		r.ranked[back] = j
-		front += int(up)
-		back -= int(down)
-		if up|down == 0 {
-			eqs = append(eqs, j)
-		}
+		p.put(j, up, down)
 	}
+	eqs := p.eqs
 	copy(r.ranked[gt:], eqs)
 	slices.Reverse(r.ranked[gt+eq:])
 	r.gt, r.ge = gt, gt+eq
+}
+
+// A partition fills ranked from the front with the positions above the
+// cut value and from the back with those below it; the equal ones wait in
+// eqs.
+type partition struct {
+	ranked      []int
+	front, back int
+	eqs         []int
+}
+
+// put places position j: up is 1 when it is above the cut value, down 1
+// when below. It is written at both frontiers, and kept by the one that
+// moves.
+func (p *partition) put(j int, up, down uint64) {
+	p.ranked[p.front] = j
+	p.ranked[p.back] = j
+	p.front += int(up)
+	p.back -= int(down)
+	if up|down == 0 {
+		p.eqs = append(p.eqs, j)
+	}
 }
 
 // before reports whether position x ranks before position y: a larger
@@ -230,7 +239,7 @@ func (r *lrRound) cutOrder() {
 func (r *lrRound) before(x, y int) int {
 	if r.rem64 != nil {
 		if a, b := r.rem64[x], r.rem64[y]; a != b {
-			return cmpU(b, a)
+			return cmp.Compare(b, a)
 		}
 		return x - y
 	}

@@ -218,3 +218,13 @@ func TestRemainderRanks(t *testing.T) {
 		})
 	}
 }
+
+// remainderSeats runs the largest-remainder procedure with bounds and ranks
+// every remainder of the final pass, as the explanation shows them.
+func (pr *problem) remainderSeats() (*lrOutcome, error) {
+	o, err := pr.remainderCut()
+	if err == nil && o.final != nil {
+		o.final.rankAll()
+	}
+	return o, err
+}
