@@ -23,18 +23,26 @@ import "slices"
 // the first set ranks above the second all along. Hence two runs of the
 // procedure at the ends of a stretch prove it (certify):
 //
-//   - every pass but the last has the same units, seats, whole parts and
-//     quota at both ends, and the same remainders above the cut value,
-//     equal to it and below it: it is the same pass all along;
-//   - the last pass has the same units, seats, whole parts and quota, so
-//     that it is the last all along if no unit's remainder seat decides a
-//     bound: the units that need the seat to reach their minimum rank above
-//     every unit without a seat, and those at their maximum below every
-//     unit with one, at both ends. Inside, only remainder seats change,
-//     and unit i's are counted.
+//   - every pass has the same units, seats and whole parts at both ends;
+//   - in every pass, either the same remainders lie above the cut value,
+//     equal to it and below it at both ends (it is the same pass all
+//     along), or no unit's remainder seat decides a bound: the units that
+//     need the seat to reach their minimum rank above every unit without
+//     one, and those at their maximum below every unit with one, at both
+//     ends. A pass's remainder seats then change only among units they
+//     decide nothing for: it fixes the same units at their bounds, and the
+//     next pass has the same units and seats. Inside such a stretch unit
+//     i's seats change only with its remainder seat in the last pass (a
+//     unit that needs, or is at its maximum, has none to change), and are
+//     counted.
+//
+// Under the Droop quota the quota may differ at the ends; every remainder
+// is then linear in the population and the quota together, and the bounds
+// are checked at the four corners of the two (cornersHold).
 //
 // A stretch as long as it can be proven is found by galloping and
-// bisection from its start; the next starts where the passes change.
+// bisection from where a whole part is next due to change; the next
+// stretch starts where the passes change.
 
 // boundedStretch finds the least change in [x, e] at which unit i's seats
 // meet the wish of dir, over which the units taking part stay the same.
@@ -48,10 +56,11 @@ func (w *marginWorker) boundedStretch(i, a, dir int, x, e uint64) (uint64, bool)
 		if lo == e {
 			return 0, false
 		}
-		// The longest stretch from lo the two runs prove.
+		// The longest stretch from lo the two runs prove, looked for from
+		// where a whole part is next due to change.
 		kind := certifyNone
 		last := lo
-		hi, found := leastWhere(lo+1, e, lo+1, func(y uint64) bool {
+		hi, found := leastWhere(lo+1, e, w.nextWhole(i, dir, lo), func(y uint64) bool {
 			w.traceAt(i, dir, y, 1)
 			k := w.certify(i)
 			if k == certifyNone {
@@ -76,6 +85,85 @@ func (w *marginWorker) boundedStretch(i, a, dir int, x, e uint64) (uint64, bool)
 		lo = end + 1
 	}
 	return 0, false
+}
+
+// nextWhole returns the least change after lo at which a whole part of a
+// pass that unit i takes part in, as w.tr[0] records them at lo, is due to
+// change, if the passes stayed as they are; lo+1 when it cannot tell. Only
+// a guess where to look: no result depends on it.
+func (w *marginWorker) nextWhole(i, dir int, lo uint64) uint64 {
+	t := &w.tr[0]
+	next := ^uint64(0)
+	p := w.trPop[0]
+	for k := 0; k < t.n; k++ {
+		x := &t.passes[k]
+		pos := slices.Index(x.units, i)
+		if pos < 0 || x.seats == 0 {
+			continue
+		}
+		var tot u128
+		for _, u := range x.units {
+			if u == i {
+				tot, _ = tot.add64(p)
+			} else {
+				tot, _ = tot.add64(w.q.pops[u])
+			}
+		}
+		if tot.hi != 0 || w.pr.m != Hamilton {
+			return lo + 1
+		}
+		next = min(next, hareWholeChange(x, w.q.pops, pos, p, tot.lo, dir))
+	}
+	if next == ^uint64(0) || next > ^uint64(0)-lo {
+		return lo + 1
+	}
+	return lo + max(next, 1)
+}
+
+// hareWholeChange returns after how many more people of change (dir) a
+// whole part floor(p_u·S/T) of the Hamilton pass x changes, unit i (at
+// position pos) moving from population p, and with it the total from t.
+func hareWholeChange(x *lrPassTrace, pops []uint64, pos int, p, t uint64, dir int) uint64 {
+	s := uint64(x.seats)
+	best := ^uint64(0)
+	for j, u := range x.units {
+		f := uint64(x.whole[j])
+		var d u128
+		switch {
+		case j == pos && dir > 0:
+			// Unit i's rises to f+1 once (p+d)·S >= (f+1)·(t+d).
+			if s <= f+1 {
+				continue
+			}
+			num := mul128(f+1, t).sub(mul128(p, s))
+			q, r := num.div64(s - f - 1)
+			if d = q; r != 0 {
+				d = q.plus(1)
+			}
+		case j == pos:
+			// Unit i's falls below f once (p-d)·S < f·(t-d).
+			if f == 0 || s <= f {
+				continue
+			}
+			q, _ := mul128(p, s).sub(mul128(f, t)).div64(s - f)
+			d = q.plus(1)
+		case dir > 0:
+			// Another's falls below f once t+d > p_u·S/f.
+			if f == 0 {
+				continue
+			}
+			q, _ := mul128(pops[u], s).div64(f)
+			d = q.plus(1).sub(u128{0, t})
+		default:
+			// Another's rises to f+1 once t-d <= p_u·S/(f+1).
+			q, _ := mul128(pops[u], s).div64(f + 1)
+			d = u128{0, t}.sub(q)
+		}
+		if d.hi == 0 {
+			best = min(best, d.lo)
+		}
+	}
+	return best
 }
 
 // Kinds of stretch the two runs prove.
@@ -120,23 +208,24 @@ func (w *marginWorker) certify(i int) int {
 			!slices.Equal(a.units, b.units) || !slices.Equal(a.whole, b.whole) {
 			return certifyNone
 		}
-		final := k == x.n-1 && !x.failed
-		cut := slices.Equal(a.place, b.place) && slices.Equal(a.win, b.win)
-		switch {
-		case a.quota != b.quota:
+		if len(a.place) == 0 {
+			continue // a pass that failed on its whole parts: they decide
+		}
+		if a.quota != b.quota {
 			// The Droop quota moves with the total between the ends.
-			if !w.cornersHold(i, a, b, final) {
+			if !w.cornersHold(i, a, b) {
 				return certifyNone
 			}
-			same = same && !final
-		case final:
-			same = cut
-			if !cut && (!w.boundsHold(a, a.rems) || !w.boundsHold(a, b.rems)) {
-				return certifyNone
-			}
-		case !cut:
+			same = false
+			continue
+		}
+		if slices.Equal(a.place, b.place) && slices.Equal(a.win, b.win) {
+			continue
+		}
+		if !w.boundsHold(a, a.rems) || !w.boundsHold(a, b.rems) {
 			return certifyNone
 		}
+		same = false
 	}
 	if same {
 		return certifySame
@@ -144,10 +233,11 @@ func (w *marginWorker) certify(i int) int {
 	return certifyPasses
 }
 
-// boundsHold reports whether, in the last pass a, with the remainders
-// rems, every unit that needs its remainder seat to reach its minimum ranks
-// above every unit without a remainder seat, and every unit at its maximum
-// below every unit with one (a deciding which units have one).
+// boundsHold reports whether, in the pass a, with the remainders rems,
+// every unit that needs its remainder seat to reach its minimum ranks above
+// every unit without a remainder seat, and every unit at its maximum below
+// every unit with one (a deciding which units have one): then no unit's
+// remainder seat decides whether the pass fixes it at a bound.
 func (w *marginWorker) boundsHold(a *lrPassTrace, rems []u128) bool {
 	pr := w.pr
 	var minWin, maxLose, minNeed, maxFull u128
@@ -184,17 +274,16 @@ func (w *marginWorker) boundsHold(a *lrPassTrace, rems []u128) bool {
 // quota, so the smallest of one set of remainders less the largest of
 // another is concave in both, and positive over the rectangle of
 // populations and quotas between the ends if it is at its four corners.
-// There every remainder must keep its place around the cut (a pass before
-// the last) or the bounds their hold (the last); and unit i's whole part
-// must be the same where it is least and where greatest.
-func (w *marginWorker) cornersHold(i int, a, b *lrPassTrace, final bool) bool {
+// There the bounds must hold as boundsHold has them, and unit i's whole
+// part must be the same where it is least and where greatest.
+func (w *marginWorker) cornersHold(i int, a, b *lrPassTrace) bool {
 	p0, p1 := min(w.trPop[0], w.trPop[1]), max(w.trPop[0], w.trPop[1])
 	q0, q1 := a.quota, b.quota
 	if q0.cmp(q1) > 0 {
 		q0, q1 = q1, q0
 	}
 	pos := slices.Index(a.units, i)
-	if pos < 0 || !final && !(slices.Equal(a.place, b.place) && slices.Equal(a.win, b.win)) {
+	if pos < 0 {
 		return false
 	}
 	f := a.whole[pos]
@@ -203,8 +292,7 @@ func (w *marginWorker) cornersHold(i int, a, b *lrPassTrace, final bool) bool {
 	}
 	for _, p := range [2]uint64{p0, p1} {
 		for _, q := range [2]u128{q0, q1} {
-			rems := w.cornerRems(a, i, p, q)
-			if final && !w.boundsHold(a, rems) || !final && !groupsHold(a, rems) {
+			if !w.boundsHold(a, w.cornerRems(a, i, p, q)) {
 				return false
 			}
 		}
@@ -236,36 +324,6 @@ func (w *marginWorker) cornerRems(a *lrPassTrace, i int, p uint64, q u128) []u12
 		w.rems[j] = u128{0, pu}.sub(fq)
 	}
 	return w.rems
-}
-
-// groupsHold reports whether the remainders rems keep the places pass a
-// gave them around the cut: those above it above those equal to it, which
-// are all equal, above those below it.
-func groupsHold(a *lrPassTrace, rems []u128) bool {
-	var v, minAbove, maxBelow u128
-	hasV, hasAbove, hasBelow := false, false, false
-	for j, pl := range a.place {
-		r := rems[j]
-		switch pl {
-		case 0:
-			if !hasAbove || r.cmp(minAbove) < 0 {
-				minAbove, hasAbove = r, true
-			}
-		case 1:
-			if hasV && r != v {
-				return false
-			}
-			v, hasV = r, true
-		case 2:
-			if !hasBelow || r.cmp(maxBelow) > 0 {
-				maxBelow, hasBelow = r, true
-			}
-		}
-	}
-	if !hasV {
-		return !hasAbove || !hasBelow || minAbove.cmp(maxBelow) > 0
-	}
-	return (!hasAbove || minAbove.cmp(v) > 0) && (!hasBelow || v.cmp(maxBelow) > 0)
 }
 
 // finalSearch finds the least change in [lo, hi] at which unit i's seats

@@ -64,15 +64,12 @@ func (c *claimPass) quota(p uint64) (num u128, den uint64) {
 	return droopQuota(t, c.seats, c.sc), 1
 }
 
-// droopQuota is floor(t/(seats+1)) + 1 people, in scaled units.
+// droopQuota is floor(t/(seats+1)) + 1 people, in scaled units (sc, one
+// person, at most 10^9, and seats at most MaxSeats).
 func droopQuota(t u128, seats int, sc uint64) u128 {
-	w, ok := u128{0, uint64(seats) + 1}.mulSmall(sc)
-	if !ok || w.hi != 0 {
-		return u128{0, sc}
-	}
-	q, _ := t.div64(w.lo)
+	q, _ := t.div64((uint64(seats) + 1) * sc)
 	q, _ = q.add64(1)
-	q, ok = q.mulSmall(sc)
+	q, ok := q.mulSmall(sc)
 	if !ok {
 		return u128{^uint64(0), ^uint64(0)}
 	}
@@ -81,13 +78,12 @@ func droopQuota(t u128, seats int, sc uint64) u128 {
 
 // count returns how many claims of the pass's other units rank at or above
 // unit i's (s+1)-th claim when i has population p (whether the pass can
-// then be apportioned at all is feasible's question). False when the
-// table was asked and could not tell, and the units are counted one by
-// one; the count is always made.
-func (c *claimPass) count(p uint64, s int) (int, bool) {
+// then be apportioned at all is feasible's question): from the table when
+// it can tell, otherwise unit by unit.
+func (c *claimPass) count(p uint64, s int) int {
 	if c.tab != nil {
 		if n, ok := c.tab.count(c, p, s); ok {
-			return n, true
+			return n
 		}
 	}
 	num, den := c.quota(p)
@@ -112,7 +108,7 @@ func (c *claimPass) count(p uint64, s int) (int, bool) {
 			n += int(k)
 		}
 	}
-	return n, true
+	return n
 }
 
 // feasible reports whether the pass can be apportioned with unit i at
@@ -157,32 +153,25 @@ func (c *claimPass) wish(a, dir int) (s, k int) {
 // meets reports whether, with unit i at population p, the count of claims
 // at or above its (s+1)-th is what wish asked for.
 func (c *claimPass) meets(p uint64, s, k, dir int) bool {
-	n, _ := c.count(p, s)
+	n := c.count(p, s)
 	if dir > 0 {
 		return n <= k
 	}
 	return n >= k
 }
 
-// floorDiv returns floor(d·den/num) for a signed d and a fraction num/den > 0.
+// floorDiv returns floor(d/(num/den)) = floor(d·den/num) for num > 0,
+// saturating at ±2^62 (beyond every count of seats).
 func floorDiv(d int64, num u128, den uint64) int64 {
-	k, _ := floorDivExact(d, num, den)
-	return k
-}
-
-// floorDivExact returns floor(d/(num/den)) = floor(d·den/num) for num > 0,
-// and whether the division is exact.
-func floorDivExact(d int64, num u128, den uint64) (int64, bool) {
-	neg := d < 0
 	a := uint64(d)
-	if neg {
+	if d < 0 {
 		a = uint64(-d)
 	}
 	x := mul128(a, den)
 	var q u128
-	var exact bool
+	exact := true
 	switch {
-	case num.hi == 0 && num.lo != 0:
+	case num.hi == 0:
 		var r uint64
 		q, r = x.div64(num.lo)
 		exact = r == 0
@@ -190,19 +179,22 @@ func floorDivExact(d int64, num u128, den uint64) (int64, bool) {
 		exact = x.hi == 0 && x.lo == 0
 	default:
 		qq, rr := new(big.Int).QuoRem(x.big(), num.big(), new(big.Int))
-		q, exact = u128{0, qq.Uint64()}, rr.Sign() == 0
+		q, exact = u128{1, 0}, rr.Sign() == 0
+		if qq.IsUint64() {
+			q = u128{0, qq.Uint64()}
+		}
 	}
-	k := int64(q.lo)
-	if q.hi != 0 || q.lo > 1<<62 {
-		k = 1 << 62
+	k := int64(1 << 62)
+	if q.hi == 0 && q.lo < 1<<62 {
+		k = int64(q.lo)
 	}
-	if neg {
+	if d < 0 {
 		k = -k
 		if !exact {
 			k--
 		}
 	}
-	return k, exact
+	return k
 }
 
 // A claimTable holds the claims of the scenario's units near the cut at
