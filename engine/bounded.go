@@ -227,7 +227,10 @@ func (w *marginWorker) certify(i int) int {
 		}
 		same = false
 	}
-	if same {
+	if same || x.failed {
+		// Unchanged; or failing all along, for the same reason: why a run
+		// fails (whole parts, units fixed at their bounds) is proven the
+		// same.
 		return certifySame
 	}
 	return certifyPasses

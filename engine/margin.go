@@ -53,7 +53,7 @@ func (pr *problem) margins(o *outcome, res *Result) {
 		return
 	}
 	var tab *claimTable
-	if pr.m.IsLargestRemainder() {
+	if pr.m.IsLargestRemainder() && !pr.anyBounds() {
 		tab = pr.newClaimTable()
 	}
 	n := pr.n()
@@ -86,6 +86,16 @@ func (pr *problem) margins(o *outcome, res *Result) {
 		}()
 	}
 	wg.Wait()
+}
+
+// anyBounds reports whether some unit has a minimum or a maximum.
+func (pr *problem) anyBounds() bool {
+	for j := range pr.pops {
+		if pr.min[j] > 0 || pr.max[j] != noCap {
+			return true
+		}
+	}
+	return false
 }
 
 // marginDecimal writes a margin in scaled units as a Decimal; nil when

@@ -38,9 +38,7 @@ func (pr *problem) newMarginWorker(tab *claimTable) *marginWorker {
 	w.q.eligible = append([]bool(nil), pr.eligible...)
 	w.q.tie = TieRule{} // outright seats: ties left open
 	w.q.quotas = nil
-	for j := range pr.pops {
-		w.bounded = w.bounded || pr.min[j] > 0 || pr.max[j] != noCap
-	}
+	w.bounded = pr.anyBounds()
 	if pr.m.IsLargestRemainder() && pr.threshold.IsZero() {
 		for j, el := range pr.eligible {
 			if el {
