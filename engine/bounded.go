@@ -26,10 +26,10 @@ import "slices"
 //   - every pass has the same units, seats and whole parts at both ends;
 //   - in every pass, either the same remainders lie above the cut value,
 //     equal to it and below it at both ends (it is the same pass all
-//     along), or no unit's remainder seat decides a bound: the units that
-//     need the seat to reach their minimum rank above every unit without
-//     one, and those at their maximum below every unit with one, at both
-//     ends. A pass's remainder seats then change only among units they
+//     along), or no unit's remainder seat decides a bound: every unit
+//     whose seat decides one (it needs the seat to reach its minimum, or is
+//     at its maximum) ranks above every unit without a seat if it has one,
+//     and below every unit with one if it has none, at both ends. A pass's remainder seats then change only among units they
 //     decide nothing for: it fixes the same units at their bounds, and the
 //     next pass has the same units and seats. Inside such a stretch unit
 //     i's seats change only with its remainder seat in the last pass (a
@@ -236,38 +236,40 @@ func (w *marginWorker) certify(i int) int {
 	return certifyPasses
 }
 
-// boundsHold reports whether, in the pass a, with the remainders rems,
-// every unit that needs its remainder seat to reach its minimum ranks above
-// every unit without a remainder seat, and every unit at its maximum below
-// every unit with one (a deciding which units have one): then no unit's
-// remainder seat decides whether the pass fixes it at a bound.
+// boundsHold reports whether, in the pass a, with the remainders rems, no
+// unit's remainder seat decides whether the pass fixes it at a bound:
+// every unit for which it does (one that needs the seat to reach its
+// minimum, or is at its maximum) and has the seat ranks above every unit
+// without one, and every such unit without it ranks below every unit with
+// one (a deciding which units have one).
 func (w *marginWorker) boundsHold(a *lrPassTrace, rems []u128) bool {
 	pr := w.pr
-	var minWin, maxLose, minNeed, maxFull u128
-	hasWin, hasLose, hasNeed, hasFull := false, false, false, false
+	var minWin, maxLose, minDecWin, maxDecLose u128
+	hasWin, hasLose, hasDecWin, hasDecLose := false, false, false, false
 	for j, u := range a.units {
 		if a.place[j] == 3 {
 			continue
 		}
 		r := rems[j]
 		f := a.whole[j]
+		decides := f+1 == pr.min[u] || f == pr.max[u]
 		if a.win[j] {
 			if !hasWin || r.cmp(minWin) < 0 {
 				minWin, hasWin = r, true
 			}
-			if f+1 == pr.min[u] && (!hasNeed || r.cmp(minNeed) < 0) {
-				minNeed, hasNeed = r, true
+			if decides && (!hasDecWin || r.cmp(minDecWin) < 0) {
+				minDecWin, hasDecWin = r, true
 			}
 		} else {
 			if !hasLose || r.cmp(maxLose) > 0 {
 				maxLose, hasLose = r, true
 			}
-			if f == pr.max[u] && (!hasFull || r.cmp(maxFull) > 0) {
-				maxFull, hasFull = r, true
+			if decides && (!hasDecLose || r.cmp(maxDecLose) > 0) {
+				maxDecLose, hasDecLose = r, true
 			}
 		}
 	}
-	return !(hasNeed && hasLose && minNeed.cmp(maxLose) <= 0) && !(hasFull && hasWin && maxFull.cmp(minWin) >= 0)
+	return !(hasDecWin && hasLose && minDecWin.cmp(maxLose) <= 0) && !(hasDecLose && hasWin && maxDecLose.cmp(minWin) >= 0)
 }
 
 // cornersHold proves a pass of the Droop quota the same all along when the
