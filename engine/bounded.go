@@ -251,8 +251,7 @@ func (w *marginWorker) boundsHold(a *lrPassTrace, rems []u128) bool {
 			continue
 		}
 		r := rems[j]
-		f := a.whole[j]
-		decides := f+1 == pr.min[u] || f == pr.max[u]
+		decides := pr.remainderRole(u, a.whole[j]) != seatFree
 		if a.win[j] {
 			if !hasWin || r.cmp(minWin) < 0 {
 				minWin, hasWin = r, true
@@ -336,21 +335,16 @@ func (w *marginWorker) cornerRems(a *lrPassTrace, i int, p uint64, q u128) []u12
 // only the remainder seats of the last pass change: by counting claims in
 // that pass.
 func (w *marginWorker) finalSearch(i, a, dir int, lo, hi uint64) (uint64, bool) {
+	pr := w.pr
 	t := &w.tr[0]
 	f := &t.passes[t.n-1]
-	pos := -1
-	for j, u := range f.units {
-		if u == i {
-			pos = j
-		}
-	}
+	pos := slices.Index(f.units, i)
 	if pos < 0 {
 		return 0, false // unit i is fixed at a bound all along
 	}
-	if f.whole[pos]+1 == w.pr.min[i] || f.whole[pos] == w.pr.max[i] {
+	if pr.remainderRole(i, f.whole[pos]) != seatFree {
 		return 0, false // its remainder seat is given, or withheld, all along
 	}
-	pr := w.pr
 	c := &w.pass
 	*c = claimPass{m: pr.m, pops: w.q.pops, units: f.units, i: i, seats: f.seats, sc: pow10(pr.places)}
 	for _, u := range f.units {
@@ -364,14 +358,7 @@ func (w *marginWorker) finalSearch(i, a, dir int, lo, hi uint64) (uint64, bool) 
 	c.group, c.floor = w.group[:pr.n()], w.floor[:pr.n()]
 	for j, u := range f.units {
 		c.floor[u] = f.whole[j]
-		switch {
-		case f.whole[j]+1 == pr.min[u]:
-			c.group[u] = 0
-		case f.whole[j] == pr.max[u]:
-			c.group[u] = 2
-		default:
-			c.group[u] = 1
-		}
+		c.group[u] = pr.remainderRole(u, f.whole[j])
 	}
 	// Unit i's seats all come from this pass, as it takes part in it.
 	s, k := c.wish(a, dir)

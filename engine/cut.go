@@ -88,20 +88,6 @@ func newCut(pr *problem, d float64) cut {
 	return c
 }
 
-// shl returns x·2^s as 128 bits (0 <= s <= 64) and whether it fits.
-func shl(hi, lo uint64, s int) (u128, bool) {
-	switch {
-	case s == 0:
-		return u128{hi, lo}, true
-	case s == 64:
-		return u128{lo, 0}, hi == 0
-	}
-	if hi>>(64-s) != 0 {
-		return u128{}, false
-	}
-	return u128{hi<<s | lo>>(64-s), lo << s}, true
-}
-
 // cmp compares the priority value p/s(k) of a unit with population p > 0
 // with D exactly.
 func (c *cut) cmp(p uint64, k int) int {
@@ -154,13 +140,13 @@ func (c *cut) cmp(p uint64, k int) int {
 func (c *cut) cmpScaled(hi, lo, n uint64) int {
 	r := mul128(c.x, n)
 	if c.s >= 0 {
-		l, ok := shl(hi, lo, c.s)
+		l, ok := u128{hi, lo}.shlFits(c.s)
 		if !ok {
 			return 1
 		}
 		return l.cmp(r)
 	}
-	rr, ok := shl(r.hi, r.lo, -c.s)
+	rr, ok := r.shlFits(-c.s)
 	if !ok {
 		return -1
 	}

@@ -51,9 +51,11 @@ type divisorOutcome struct {
 
 // A divisorStart says where the divisor procedure starts.
 type divisorStart struct {
-	// d is a divisor estimate in scaled units (people per seat); zero
+	// d is a divisor estimate in scaled units (people per seat) for a
+	// population taking part of at (zero: the population taking part
+	// now); the procedure scales it to the population taking part. Zero
 	// takes the standard divisor.
-	d float64
+	d, at float64
 	// sequential starts every unit at its minimum instead: the sequential
 	// form, which hands out every seat in order; order records them.
 	sequential, order bool
@@ -64,7 +66,7 @@ type divisorStart struct {
 type divisorScratch struct {
 	a          []int
 	idx        []int32
-	next, held []jumpSeat
+	next, held []nearSeat
 }
 
 // divisorSeats runs the divisor procedure from the standard divisor, or,
@@ -124,6 +126,9 @@ func (pr *problem) divisor(out *divisorOutcome, st divisorStart, sc *divisorScra
 	} else {
 		j := divisorRun{pr: pr, a: a, plain: plain, total: total, next: sc.next, held: sc.held, idx: sc.idx}
 		d := st.d
+		if st.at > 0 {
+			d *= total / st.at
+		}
 		if !(d > 0) {
 			d = total / float64(pr.h)
 		}
@@ -179,7 +184,7 @@ func errMaximums() error {
 func (pr *problem) stepTo(a []int, sum int, order *[]award, sc *divisorScratch) (bool, error) {
 	s := pr.newStepper(a, sum > pr.h, sc.idx)
 	for ; sum < pr.h; sum++ {
-		u, ok := s.give()
+		u, ok := s.step()
 		if !ok {
 			return false, errMaximums()
 		}
@@ -188,7 +193,7 @@ func (pr *problem) stepTo(a []int, sum int, order *[]award, sc *divisorScratch) 
 		}
 	}
 	for ; sum > pr.h; sum-- {
-		if _, ok := s.take(); !ok {
+		if _, ok := s.step(); !ok {
 			return false, errMinimums()
 		}
 	}
@@ -197,9 +202,8 @@ func (pr *problem) stepTo(a []int, sum int, order *[]award, sc *divisorScratch) 
 }
 
 // A stepper moves the seats of a consistent result one at a time, keeping
-// it consistent: give hands a seat to the greatest next priority, take
-// takes back the least held priority beyond a minimum. A stepper made to
-// give only gives, and one made to take only takes.
+// it consistent: it either gives, each seat to the greatest next priority,
+// or takes, each time the least held priority beyond a minimum.
 type stepper struct {
 	pr   *problem
 	h    seatHeap
@@ -223,35 +227,23 @@ func (pr *problem) newStepper(a []int, held bool, idx []int32) stepper {
 	return s
 }
 
-// give hands the next seat to the unit with the greatest next priority
-// and returns it; false when no unit can take another seat.
-func (s *stepper) give() (int, bool) {
+// step moves one seat and returns its unit: a stepper that gives hands
+// the next seat to the unit with the greatest next priority, one that
+// takes takes back the seat with the least held priority. False when no
+// unit can move (every one at its maximum, or at its minimum).
+func (s *stepper) step() (int, bool) {
 	h := &s.h
 	if len(h.idx) == 0 {
 		return 0, false
 	}
 	u := h.top()
-	s.last = prio{h.pops[u], h.a[u]}
-	h.a[u]++
-	if h.a[u] < s.pr.max[u] {
-		h.down(0)
+	s.last = h.key(0)
+	if h.held {
+		h.a[u]--
 	} else {
-		h.pop()
+		h.a[u]++
 	}
-	return u, true
-}
-
-// take takes back the seat with the least held priority and returns its
-// unit; false when every unit is at its minimum.
-func (s *stepper) take() (int, bool) {
-	h := &s.h
-	if len(h.idx) == 0 {
-		return 0, false
-	}
-	u := h.top()
-	h.a[u]--
-	s.last = prio{h.pops[u], h.a[u]}
-	if h.a[u] > s.pr.min[u] {
+	if (h.held && h.a[u] > s.pr.min[u]) || (!h.held && h.a[u] < s.pr.max[u]) {
 		h.down(0)
 	} else {
 		h.pop()

@@ -327,14 +327,14 @@ func TestJumpRandomLarge(t *testing.T) {
 func TestFirstSeats(t *testing.T) {
 	rapid.Check(t, func(t *rapid.T) {
 		n := rapid.IntRange(0, 80).Draw(t, "n")
-		seats := make([]jumpSeat, n)
+		seats := make([]nearSeat, n)
 		for i := range seats {
-			seats[i] = jumpSeat{float64(rapid.IntRange(0, 20).Draw(t, "v")), int32(i)}
+			seats[i] = nearSeat{float64(rapid.IntRange(0, 20).Draw(t, "v")), int32(i)}
 		}
 		m := rapid.IntRange(1, 40).Draw(t, "m")
 		desc := rapid.Bool().Draw(t, "desc")
 		want := slices.Clone(seats)
-		slices.SortFunc(want, func(x, y jumpSeat) int {
+		slices.SortFunc(want, func(x, y nearSeat) int {
 			if desc {
 				return cmp.Compare(y.v, x.v)
 			}
@@ -347,7 +347,7 @@ func TestFirstSeats(t *testing.T) {
 				t.Fatalf("seat %d of the first %d: %v, want %v (all %v)", k, m, got[k].v, want[k].v, got)
 			}
 		}
-		sortByUnit := func(s []jumpSeat) { slices.SortFunc(s, func(x, y jumpSeat) int { return int(x.u - y.u) }) }
+		sortByUnit := func(s []nearSeat) { slices.SortFunc(s, func(x, y nearSeat) int { return int(x.u - y.u) }) }
 		sortByUnit(got)
 		sortByUnit(seats)
 		if !slices.Equal(got, seats) {

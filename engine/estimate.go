@@ -86,12 +86,13 @@ type divisorRun struct {
 	// s(k) is taken as s(len(sT)-1) + k - (len(sT)-1), exact for the
 	// linear signposts and within 10^-5 for Dean and Huntington–Hill.
 	sT         []float64
-	next, held []jumpSeat // seats near the estimate (see collect)
+	next, held []nearSeat // seats near the estimate (see collect)
 	idx        []int32
 }
 
-// jumpSeat is a seat of unit u with floating-point priority v.
-type jumpSeat struct {
+// nearSeat is a seat near the estimate: unit u's, with floating-point
+// priority v.
+type nearSeat struct {
 	v float64
 	u int32
 }
@@ -288,12 +289,12 @@ func (j *divisorRun) gather(i int, p uint64, x float64, k, lo, hi int, cn, ch fl
 	pf := float64(p)
 	if k < hi && j.sf(k) < x*cn && len(j.next) <= limit {
 		for q := k; q < hi && j.sf(q) < x*cn; q++ {
-			j.next = append(j.next, jumpSeat{pf / j.sf(q), int32(i)})
+			j.next = append(j.next, nearSeat{pf / j.sf(q), int32(i)})
 		}
 	}
 	if k > lo && j.sf(k-1) > x*ch && len(j.held) <= limit {
 		for q := k; q > lo && j.sf(q-1) > x*ch; q-- {
-			j.held = append(j.held, jumpSeat{pf / j.sf(q-1), int32(i)})
+			j.held = append(j.held, nearSeat{pf / j.sf(q-1), int32(i)})
 		}
 	}
 }
@@ -302,13 +303,13 @@ func (j *divisorRun) gather(i int, p uint64, x float64, k, lo, hi int, cn, ch fl
 // desc, lowest first otherwise), or all of them if there are fewer, at the
 // front of seats in that order. Few are wanted after a good estimate, and
 // picking them costs less than sorting the window.
-func firstSeats(seats []jumpSeat, m int, desc bool) {
-	before := func(x, y jumpSeat) bool { return x.v < y.v }
+func firstSeats(seats []nearSeat, m int, desc bool) {
+	before := func(x, y nearSeat) bool { return x.v < y.v }
 	if desc {
-		before = func(x, y jumpSeat) bool { return x.v > y.v }
+		before = func(x, y nearSeat) bool { return x.v > y.v }
 	}
 	if m > firstSeatsByInsertion {
-		slices.SortFunc(seats, func(x, y jumpSeat) int {
+		slices.SortFunc(seats, func(x, y nearSeat) int {
 			if desc {
 				return cmp.Compare(y.v, x.v)
 			}
@@ -319,7 +320,7 @@ func firstSeats(seats []jumpSeat, m int, desc bool) {
 	m = min(m, len(seats))
 	for i := range seats {
 		// seats[:min(i, m)] holds the first of seats[:i], in order.
-		var x jumpSeat
+		var x nearSeat
 		var j int
 		switch {
 		case i < m:

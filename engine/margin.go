@@ -26,7 +26,7 @@ import (
 //     two tie). Without a threshold (and without an unsettled tie) that
 //     claim is the weakest seat another unit holds, or the best one it
 //     lacks, for every unit at once. With a threshold the units taking part
-//     change at known populations (eligibility.go); between those points the
+//     change at known populations (nextBreak); between those points the
 //     same closed form holds, from an apportionment at the start of each
 //     stretch.
 //   - Largest-remainder methods change every quota when one population

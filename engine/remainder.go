@@ -196,21 +196,16 @@ func (pr *problem) lrPass(units []int, seats int, total u128, whole []int) (*lrR
 		}
 	case Droop:
 		scale := pow10(pr.places)
-		div := new(big.Int).Mul(bigU(scale), big.NewInt(int64(seats)+1))
-		q := new(big.Int).Quo(r.total.big(), div)
-		q.Add(q, big.NewInt(1))
-		r.quota = new(big.Rat).SetInt(q)
-		q.Mul(q, bigU(scale)) // the quota in scaled units
-		if q.IsUint64() && !forceBig {
-			sum = r.droopFloors(pr.pops, q.Uint64())
+		q := droopQuota(r.total, seats, scale) // in scaled units
+		r.quota = new(big.Rat).SetFrac(q.big(), bigU(scale))
+		if q.hi == 0 && !forceBig {
+			sum = r.droopFloors(pr.pops, q.lo)
 		} else {
-			r.bound = bigToU128(q) // a quota beyond 128 bits is above every population
-			if q.BitLen() > 128 {
-				r.bound = u128{^uint64(0), ^uint64(0)}
-			}
+			r.bound = q
 			r.rems = make([]u128, len(units))
+			qb := q.big()
 			for j, u := range units {
-				f, rem := new(big.Int).QuoRem(bigU(pr.pops[u]), q, new(big.Int))
+				f, rem := new(big.Int).QuoRem(bigU(pr.pops[u]), qb, new(big.Int))
 				whole[u], r.rems[j] = int(f.Int64()), bigToU128(rem)
 				sum += whole[u]
 			}
@@ -363,6 +358,26 @@ func (r *lrRound) cutTie() (awarded, left []int) {
 	return awarded, left
 }
 
+// The roles of a unit's remainder seat in a pass (remainderRole).
+const (
+	seatNeeded int8 = iota // it needs the seat to reach its minimum: it ends with it either way
+	seatFree               // its remainder decides
+	seatBarred             // it is at its maximum: it ends without the seat either way
+)
+
+// remainderRole is the role of the remainder seat of unit u, with whole
+// part f in a pass: whether the seat decides that the pass fixes it at a
+// bound.
+func (pr *problem) remainderRole(u, f int) int8 {
+	switch {
+	case f+1 == pr.min[u]:
+		return seatNeeded
+	case f == pr.max[u]:
+		return seatBarred
+	}
+	return seatFree
+}
+
 // cutGroups orders the units tied at the cut and returns the tie that is
 // left once the bounds have spoken. Among the tied units, those that need
 // the contested seat to reach their minimum come first (they end with it
@@ -382,11 +397,10 @@ func (pr *problem) cutGroups(r *lrRound) (aw, lf []int, forced bool) {
 	var need, free, full []int
 	for _, j := range append(append([]int(nil), a0...), l0...) {
 		u := r.units[j]
-		f := r.whole[u]
-		switch {
-		case f+1 == pr.min[u]:
+		switch pr.remainderRole(u, r.whole[u]) {
+		case seatNeeded:
 			need = append(need, j)
-		case f == pr.max[u]:
+		case seatBarred:
 			full = append(full, j)
 		default:
 			free = append(free, j)
@@ -434,9 +448,7 @@ func (pr *problem) remainderCut() (*lrOutcome, error) {
 		if pr.eligible[i] {
 			active = append(active, i)
 			bounded = bounded || pr.min[i] > 0 || pr.max[i] != noCap
-			var c uint64
-			total.lo, c = bits.Add64(total.lo, pr.pops[i], 0)
-			total.hi += c
+			total, _ = total.add64(pr.pops[i])
 		}
 	}
 	left := pr.h

@@ -30,7 +30,7 @@ func selectShift(bound u128) int { return max(bitLen128(bound)-11, 0) }
 // kthLargest returns the e-th largest (1 <= e <= len(keys)) of the keys,
 // and how many keys are greater than it and equal to it. The keys are wide,
 // or narrow when wide is nil. Every key is at most bound, and count holds
-// the histogram of the keys by shr128(key, selectShift(bound)), or is nil.
+// the histogram of the keys by key.shr(selectShift(bound)), or is nil.
 func kthLargest(wide []u128, narrow []uint64, e int, bound u128, count *[selectBuckets]int32) (v u128, gt, eq int) {
 	if len(wide)+len(narrow) < selectSmall {
 		in := make([]u128, 0, len(wide)+len(narrow))
@@ -47,10 +47,10 @@ func kthLargest(wide []u128, narrow []uint64, e int, bound u128, count *[selectB
 	if count == nil {
 		count = new([selectBuckets]int32)
 		for _, k := range wide {
-			count[shr128(k, shift)&mask]++
+			count[k.shr(uint(shift)).lo&mask]++
 		}
 		for _, k := range narrow {
-			count[shr128(u128{0, k}, shift)&mask]++
+			count[u128{0, k}.shr(uint(shift)).lo&mask]++
 		}
 	}
 	b, above := selectBuckets-1, 0
@@ -59,7 +59,7 @@ func kthLargest(wide []u128, narrow []uint64, e int, bound u128, count *[selectB
 	}
 	in := make([]u128, 0, count[b])
 	for _, k := range wide {
-		if shr128(k, shift)&mask == uint64(b) {
+		if k.shr(uint(shift)).lo&mask == uint64(b) {
 			in = append(in, k)
 		}
 	}
@@ -90,24 +90,6 @@ func countAround(keys []u128, v u128) (gt, eq int) {
 		}
 	}
 	return gt, eq
-}
-
-func bitLen128(x u128) int {
-	if x.hi != 0 {
-		return 64 + bits.Len64(x.hi)
-	}
-	return bits.Len64(x.lo)
-}
-
-// shr128 returns the low 64 bits of x >> s.
-func shr128(x u128, s int) uint64 {
-	switch {
-	case s == 0:
-		return x.lo
-	case s >= 64:
-		return x.hi >> (s - 64)
-	}
-	return x.lo>>s | x.hi<<(64-s)
 }
 
 // quickSelect returns the e-th largest (1 <= e <= len(s)) of s, reordering

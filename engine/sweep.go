@@ -232,7 +232,7 @@ func (pr *problem) sweepDivisor(sw *SweepResult, record func(int, []int) []int) 
 	for k := range sw.Sizes {
 		z := &sw.Sizes[k]
 		for house < z.House && stuck == nil {
-			if _, ok := s.give(); !ok {
+			if _, ok := s.step(); !ok {
 				stuck = errMaximums()
 				break
 			}

@@ -14,19 +14,10 @@ import (
 // few. Largest-remainder methods have no divisor to start from; they are
 // apportioned in full for every call.
 
-// apportioned in full for every call.
-
 // MaxWarmContest is the most seats on each side of the cut a
 // [WarmAllotter] reports in [WarmResult.Last] and [WarmResult.Next].
 const MaxWarmContest = 32
 
-// A WarmAllotter apportions many variants of one scenario exactly and fast:
-// the same units, bounds, method, house size, threshold and tie rule, with
-// new populations for every call. Every result equals what [Allot] gives for
-// the scenario with those populations: the same seats, the same ties, the
-// same seats left unassigned.
-//
-// A WarmAllotter is not safe for concurrent use; give every goroutine its
 // A WarmAllotter apportions many variants of one scenario exactly and fast:
 // the same units, bounds, method, house size, threshold and tie rule, with
 // new populations for every call. Every result equals what [Allot] gives for
@@ -109,11 +100,7 @@ func NewWarmAllotter(s *Scenario, contest int) (*WarmAllotter, error) {
 // range of divisors that give its seats.
 func (sh *warmShared) setDivisor(seats []int) {
 	pr := sh.base
-	for i, p := range pr.pops {
-		if pr.eligible[i] {
-			sh.q0 += float64(p)
-		}
-	}
+	sh.q0 = pr.eligibleTotal().float()
 	low, lowOK, high, highOK := pr.divisorBounds(seats)
 	lf, hf := 0.0, math.Inf(1)
 	if lowOK {
@@ -214,21 +201,13 @@ func (r *WarmResult) reset(n int) {
 	r.Tied, r.Last, r.Next = r.Tied[:0], r.Last[:0], r.Next[:0]
 }
 
-// divisor runs steps 1 to 5 of the procedure described at the top of the
-// file.
-// divisor runs the divisor procedure from the baseline's divisor, scaled
-// to this call's total population.
+// divisor runs the divisor procedure from the baseline's divisor, which
+// it scales to this call's population taking part.
 func (w *WarmAllotter) divisor(r *WarmResult) error {
 	sh, pr := w.sh, &w.pr
-	var q float64
-	for i, p := range pr.pops {
-		if pr.eligible[i] {
-			q += float64(p)
-		}
-	}
 	w.sc.a = r.Seats
 	o := &w.out
-	if err := pr.divisor(o, divisorStart{d: sh.d0 * q / sh.q0}, &w.sc); err != nil {
+	if err := pr.divisor(o, divisorStart{d: sh.d0, at: sh.q0}, &w.sc); err != nil {
 		return err
 	}
 	if o.tie != nil {
