@@ -345,6 +345,12 @@ func (w *marginWorker) finalSearch(i, a, dir int, lo, hi uint64) (uint64, bool) 
 	if pr.remainderRole(i, f.whole[pos]) != seatFree {
 		return 0, false // its remainder seat is given, or withheld, all along
 	}
+	if fw := f.whole[pos]; fw+1 < pr.min[i] || fw > pr.max[i] {
+		// The last pass fixed every unit at a bound (there is no final
+		// pass): unit i is held at its bound all along, with its remainder
+		// seat or without.
+		return 0, false
+	}
 	c := &w.pass
 	*c = claimPass{m: pr.m, pops: w.q.pops, units: f.units, i: i, seats: f.seats, sc: pow10(pr.places)}
 	for _, u := range f.units {
