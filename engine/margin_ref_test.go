@@ -2,6 +2,7 @@ package engine
 
 import (
 	"math/big"
+	"slices"
 	"strconv"
 	"testing"
 
@@ -129,7 +130,7 @@ func (pr *problem) refEligibilityBreaks(i int, dir int, limit uint64) []uint64 {
 			}
 		}
 	}
-	refSortUint64s(out)
+	slices.Sort(out)
 	return out
 }
 
@@ -164,7 +165,7 @@ func (pr *problem) refPieceEnd(i int, x uint64, dir int, limit uint64) uint64 {
 	end := limit
 	w0 := bigU(pow10(pr.places))
 	for _, r := range passes {
-		if !refContainsInt(r.units, i) || r.seats == 0 {
+		if !slices.Contains(r.units, i) || r.seats == 0 {
 			continue
 		}
 		w := new(big.Int).Mul(w0, big.NewInt(int64(r.seats)+1))
@@ -198,23 +199,6 @@ func (pr *problem) refWithPopAnyway(i int, p uint64) *problem {
 		}
 	}
 	return &q
-}
-
-func refContainsInt(s []int, v int) bool {
-	for _, u := range s {
-		if u == v {
-			return true
-		}
-	}
-	return false
-}
-
-func refSortUint64s(s []uint64) {
-	for k := 1; k < len(s); k++ {
-		for j := k; j > 0 && s[j] < s[j-1]; j-- {
-			s[j], s[j-1] = s[j-1], s[j]
-		}
-	}
 }
 
 func (pr *problem) refSearchChange(i int, dir int, limit uint64, seats func(uint64) int, want func(int) bool) (uint64, bool) {
@@ -280,25 +264,32 @@ const refScanFirst = 4096
 
 const refMaxPieces = 256
 
+// refBisect returns the x in [a, b) with f(x) and not f(x+1), given f(a)
+// and not f(b).
+func refBisect(a, b uint64, f func(uint64) bool) uint64 {
+	for b-a > 1 {
+		m := a + (b-a)/2
+		if f(m) {
+			a = m
+		} else {
+			b = m
+		}
+	}
+	return a
+}
+
 func (pr *problem) refSearchPieceEnds(i int, x, e uint64, dir int, seats func(uint64) int, want func(int) bool) (uint64, bool) {
 	ok := func(y uint64) bool { s := seats(y); return s >= 0 && want(s) }
 	end := func(y uint64) uint64 { return min(pr.refPieceEnd(i, y, dir, e), e) }
 	if !ok(e) {
 		return 0, false
 	}
-	lo, hi := x, e // the piece holding lo fails at its end; e succeeds
-	if ok(end(lo)) {
-		return pr.refSearchSegments(i, lo, end(lo), dir, seats, want)
+	if ok(end(x)) {
+		return pr.refSearchSegments(i, x, end(x), dir, seats, want)
 	}
-	for hi-lo > 1 {
-		mid := lo + (hi-lo)/2
-		if ok(end(mid)) {
-			hi = mid
-		} else {
-			lo = mid
-		}
-	}
-	// hi's piece succeeds at its end and lo's does not: hi starts it.
+	// x's piece fails at its end and e succeeds: the first change whose
+	// piece succeeds at its end starts it.
+	hi := refBisect(x, e, func(y uint64) bool { return !ok(end(y)) }) + 1
 	return pr.refSearchSegments(i, hi, end(hi), dir, seats, want)
 }
 
@@ -320,16 +311,7 @@ func (pr *problem) refSearchPiece(lo, hi uint64, dir int, seats0 func(uint64) in
 		if !feasible(lo) {
 			return 0, false
 		}
-		a, b := lo, hi // feasible(a), !feasible(b)
-		for b-a > 1 {
-			m := a + (b-a)/2
-			if feasible(m) {
-				a = m
-			} else {
-				b = m
-			}
-		}
-		hi = a
+		hi = refBisect(lo, hi, feasible)
 	}
 	ok := func(x uint64) bool { s := seats(x); return s >= 0 && want(s) }
 	if !ok(hi) {
@@ -338,16 +320,7 @@ func (pr *problem) refSearchPiece(lo, hi uint64, dir int, seats0 func(uint64) in
 	if ok(lo) {
 		return lo, true
 	}
-	a, b := lo, hi // !ok(a), ok(b)
-	for b-a > 1 {
-		m := a + (b-a)/2
-		if ok(m) {
-			b = m
-		} else {
-			a = m
-		}
-	}
-	return b, true
+	return refBisect(lo, hi, func(x uint64) bool { return !ok(x) }) + 1, true
 }
 
 func (pr *problem) refGainSearch(i, a int) (uint64, bool) {
@@ -385,16 +358,7 @@ func (pr *problem) refSearchSegments(i int, lo, hi uint64, dir int, seats func(u
 		same := func(x uint64) bool { return refEqualInts(pr.refPinnedAt(i, pop(x)), sig) }
 		end := hi
 		if !same(hi) {
-			a, b := lo, hi // same(a), !same(b)
-			for b-a > 1 {
-				m := a + (b-a)/2
-				if same(m) {
-					a = m
-				} else {
-					b = m
-				}
-			}
-			end = a
+			end = refBisect(lo, hi, same)
 		}
 		if got, ok := pr.refSearchPiece(lo, end, dir, seats, want); ok {
 			return got, true
@@ -477,8 +441,8 @@ func genSearchScenario(t *rapid.T, m Method) *Scenario {
 // TestMarginsMatchSearch holds the margins to the search they replaced,
 // unit by unit, on every method: the same margins, or none alike. The
 // search assumed in places that the outcome rises with the change between
-// points it probed (beyond maxPieces stretches of the Droop quota, or
-// beyond scanFirst changes with bounds), which need not hold; where the
+// points it probed (beyond refMaxPieces stretches of the Droop quota, or
+// beyond refScanFirst changes with bounds), which need not hold; where the
 // two differ, counting one change at a time decides, and the margins must
 // agree with it.
 func TestMarginsMatchSearch(t *testing.T) {
