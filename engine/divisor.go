@@ -132,7 +132,7 @@ func (pr *problem) divisor(out *divisorOutcome, st divisorStart, sc *divisorScra
 		if !(d > 0) {
 			d = total / float64(pr.h)
 		}
-		c := newCut(pr, j.estimate(d))
+		c := newCut(pr, j.estimate(d, st.d > 0))
 		var onHeld, onNext bool
 		sum, onHeld, onNext = j.round(&c)
 		// Every held seat is at or above D and every next seat at or below

@@ -115,22 +115,28 @@ func (j *divisorRun) roundF(x float64) int {
 // estimate moves the divisor d > 0 in floating point until the roundings
 // add up to the house size, leaving the roundings at it in j.a; when ties
 // (or floating-point limits) leave none, it returns the best divisor
-// found.
-func (j *divisorRun) estimate(d float64) float64 {
+// found. near says that d is a close start (the warm start's): its first
+// pass already gathers the few seats such a start misses by. From the
+// standard divisor the miss is larger, and a first pass that only counts
+// it (sumAt) aims the first step.
+func (j *divisorRun) estimate(d float64, near bool) float64 {
 	pr := j.pr
 	j.sT, _ = signpostTable(pr.m)
 	if !(d > 0) || math.IsInf(d, 0) {
 		d = 1
 	}
 	lo, hi := 0.0, math.Inf(1) // the sum exceeds h at lo and falls short at hi
-	// Before the first pass the miss is unknown: its window is sized for a
-	// few seats, as a good starting divisor leaves.
 	diff, slope := 0, j.total/d
+	if !near {
+		if diff, slope = j.sumAt(d); diff != 0 {
+			lo, hi, d = j.step(d, diff, slope, lo, hi)
+		}
+	}
 	for iter, widen := 0, 1.0; iter < 40; iter++ {
 		// Collect the seats near d: about four times the square root of
 		// the seats now missing, as a Newton step leaves about that many.
 		want := (4*math.Sqrt(math.Abs(float64(diff))) + 64) * widen
-		if iter == 0 {
+		if iter == 0 && near {
 			want = firstWindow
 		}
 		w := min(want/max(slope, 1), 0.25)
@@ -139,31 +145,9 @@ func (j *divisorRun) estimate(d float64) float64 {
 			return e
 		}
 		diff, slope = ndiff, nslope
-		if diff > 0 {
-			lo = d
-		} else {
-			hi = d
-		}
-		if !math.IsInf(hi, 0) && hi-lo <= hi*0x1p-45 {
+		nlo, nhi, nd := j.step(d, diff, slope, lo, hi)
+		if !math.IsInf(nhi, 0) && nhi-nlo <= nhi*0x1p-45 {
 			break // a bracket this narrow holds a tie, or float limits
-		}
-		nd := d
-		if den := slope - float64(diff); slope > 0 && den > 0 {
-			nd = d * slope / den
-		} else if diff > 0 {
-			nd = d * 2
-		} else {
-			nd = d / 2
-		}
-		if !(nd > lo && nd < hi) {
-			switch {
-			case lo > 0 && !math.IsInf(hi, 0):
-				nd = math.Sqrt(lo) * math.Sqrt(hi)
-			case diff > 0:
-				nd = d * 4
-			default:
-				nd = d / 4
-			}
 		}
 		if !(nd > 0) || math.IsInf(nd, 0) {
 			break
@@ -171,10 +155,58 @@ func (j *divisorRun) estimate(d float64) float64 {
 		if nd == d {
 			widen *= 4 // the same divisor again: look wider around it
 		}
-		d = nd
+		lo, hi, d = nlo, nhi, nd
 	}
 	j.collect(d, 0, 0)
 	return d
+}
+
+// step narrows the bracket [lo, hi] with the miss diff (the sum of the
+// roundings less the house size, nonzero) at the divisor d and returns it
+// with the next divisor to try: a Newton step in log d with the slope,
+// safeguarded to stay inside the bracket.
+func (j *divisorRun) step(d float64, diff int, slope, lo, hi float64) (float64, float64, float64) {
+	if diff > 0 {
+		lo = d
+	} else {
+		hi = d
+	}
+	nd := d
+	if den := slope - float64(diff); slope > 0 && den > 0 {
+		nd = d * slope / den
+	} else if diff > 0 {
+		nd = d * 2
+	} else {
+		nd = d / 2
+	}
+	if !(nd > lo && nd < hi) {
+		switch {
+		case lo > 0 && !math.IsInf(hi, 0):
+			nd = math.Sqrt(lo) * math.Sqrt(hi)
+		case diff > 0:
+			nd = d * 4
+		default:
+			nd = d / 4
+		}
+	}
+	return lo, hi, nd
+}
+
+// sumAt returns what collect does of the roundings at the divisor d (their
+// sum less the house size, and the slope) without gathering seats: for
+// units without bounds, in a pass that only counts.
+func (j *divisorRun) sumAt(d float64) (diff int, slope float64) {
+	if !j.plain {
+		diff, slope, _, _ = j.collect(d, 0, 0)
+		return diff, slope
+	}
+	inv := 1 / d
+	hf := float64(j.pr.h)
+	sum := 0
+	for _, p := range j.pr.pops {
+		sum += j.roundF(min(float64(p)*inv, hf))
+	}
+	return sum - j.pr.h, j.total * inv
 }
 
 // firstWindow is the seats the first pass of the estimate looks for around
