@@ -164,12 +164,3 @@ func (m Method) signpost(a int) signpost {
 	}
 	panic("engine: signpost of a method that has none")
 }
-
-// SignpostString returns a readable form of s(a), such as "sqrt(26·27)".
-func (m Method) SignpostString(a int) string {
-	s := m.signpost(a)
-	if s.sq {
-		return "sqrt(" + itoa(a) + "·" + itoa(a+1) + ")"
-	}
-	return ratString(s.n, s.d)
-}

@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"cmp"
 	"math"
 	"math/big"
 	"math/rand/v2"
@@ -12,12 +13,25 @@ import (
 	"pgregory.net/rapid"
 )
 
-// The jump-and-step divisor procedure (jump.go) must give exactly what the
-// sequential procedure gives, seat by seat: the same seats, the same seats
-// as handed out before a tie is settled, the same tie (units, seats, value,
-// rule, winners), the same errors. These tests compare the two on random
-// scenarios with bounds, thresholds, decimals and ties, and check every
-// result by its divisor certificate.
+// The divisor procedure's fast form (from a divisor estimate) must give
+// exactly what its sequential form (from the minimums, seat by seat) gives:
+// the same seats, the same seats as handed out before a tie is settled, the
+// same tie (units, seats, value, rule, winners), the same errors. These
+// tests compare the two on random scenarios with bounds, thresholds,
+// decimals and ties, and check every result by its divisor certificate.
+
+// fastForm runs the divisor procedure from the standard divisor.
+func (pr *problem) fastForm() (*divisorOutcome, error) { return pr.divisorSeats(false) }
+
+// sequentialForm runs the divisor procedure from the minimums without
+// recording the seat order.
+func (pr *problem) sequentialForm() (*divisorOutcome, error) {
+	out := new(divisorOutcome)
+	if err := pr.divisor(out, divisorStart{sequential: true}, nil); err != nil {
+		return nil, err
+	}
+	return out, nil
+}
 
 // genJumpScenario draws a divisor-method scenario: small and tie-prone,
 // mid-sized with log-uniform populations, with huge populations (the
@@ -79,12 +93,7 @@ func genJumpScenario(t *rapid.T, m Method) *Scenario {
 			s.Max = rapid.IntRange(1, 50).Draw(t, "defaultMax")
 		}
 	}
-	switch rapid.IntRange(0, 2).Draw(t, "tie") {
-	case 1:
-		s.Tie = TieRule{Kind: TieByOrder}
-	case 2:
-		s.Tie = TieRule{Kind: TieByLot, Seed: rapid.Uint64().Draw(t, "seed")}
-	}
+	s.Tie = drawTieRule(t)
 	return s
 }
 
@@ -95,8 +104,8 @@ func compareJump(t *rapid.T, s *Scenario) {
 	if err != nil {
 		return
 	}
-	want, werr := pr.divisorSequential(false)
-	got, gerr := pr.divisorJump()
+	want, werr := pr.sequentialForm()
+	got, gerr := pr.fastForm()
 	if (werr == nil) != (gerr == nil) || (werr != nil && werr.Error() != gerr.Error()) {
 		t.Fatalf("sequential error %v, jump error %v", werr, gerr)
 	}
@@ -121,12 +130,17 @@ func compareJump(t *rapid.T, s *Scenario) {
 }
 
 func TestJumpMatchesSequential(t *testing.T) {
+	forDivisorMethods(t, func(t *rapid.T, m Method) { compareJump(t, genJumpScenario(t, m)) })
+}
+
+// forDivisorMethods checks f on every divisor method, in a subtest each.
+func forDivisorMethods(t *testing.T, f func(t *rapid.T, m Method)) {
 	for _, m := range Methods() {
 		if !m.IsDivisor() {
 			continue
 		}
 		t.Run(m.String(), func(t *testing.T) {
-			rapid.Check(t, func(t *rapid.T) { compareJump(t, genJumpScenario(t, m)) })
+			rapid.Check(t, func(t *rapid.T) { f(t, m) })
 		})
 	}
 }
@@ -134,56 +148,42 @@ func TestJumpMatchesSequential(t *testing.T) {
 // TestJumpBigPath repeats the comparison with every comparison forced onto
 // the math/big path.
 func TestJumpBigPath(t *testing.T) {
-	for _, m := range Methods() {
-		if !m.IsDivisor() {
-			continue
-		}
-		t.Run(m.String(), func(t *testing.T) {
-			rapid.Check(t, func(t *rapid.T) {
-				s := genJumpScenario(t, m)
-				withBig(func() { compareJump(t, s) })
-			})
-		})
-	}
+	forDivisorMethods(t, func(t *rapid.T, m Method) {
+		s := genJumpScenario(t, m)
+		withBig(func() { compareJump(t, s) })
+	})
 }
 
 // TestJumpAllot: Allot without the seat order (jump and step) explains the
 // same result as Allot with it (the sequential procedure), field by field
 // but for the order, and the result stands on its divisor certificate.
 func TestJumpAllot(t *testing.T) {
-	for _, m := range Methods() {
-		if !m.IsDivisor() {
-			continue
+	forDivisorMethods(t, func(t *rapid.T, m Method) {
+		s := genJumpScenario(t, m)
+		if len(s.Units) > 40 || s.Seats > 5000 {
+			return // the seat order of a large house costs too much here
 		}
-		t.Run(m.String(), func(t *testing.T) {
-			rapid.Check(t, func(t *rapid.T) {
-				s := genJumpScenario(t, m)
-				if len(s.Units) > 40 || s.Seats > 5000 {
-					return // the seat order of a large house costs too much here
-				}
-				got, gerr := Allot(s, 0)
-				want, werr := Allot(s, WithOrder)
-				if (werr == nil) != (gerr == nil) {
-					t.Fatalf("with order: %v; without: %v", werr, gerr)
-				}
-				if werr != nil {
-					return
-				}
-				// The quota's fraction is filled only with some detail; it
-				// does not depend on the procedure.
-				want.Order = nil
-				for i := range want.Units {
-					want.Units[i].Quota = got.Units[i].Quota
-				}
-				if !reflect.DeepEqual(got, want) {
-					t.Fatalf("without order %+v\nwith order %+v", got, want)
-				}
-				if s.Tie.Kind == TieReport {
-					checkCertificate(t, s, got)
-				}
-			})
-		})
-	}
+		got, gerr := Allot(s, 0)
+		want, werr := Allot(s, WithOrder)
+		if (werr == nil) != (gerr == nil) {
+			t.Fatalf("with order: %v; without: %v", werr, gerr)
+		}
+		if werr != nil {
+			return
+		}
+		// The quota's fraction is filled only with some detail; it
+		// does not depend on the procedure.
+		want.Order = nil
+		for i := range want.Units {
+			want.Units[i].Quota = got.Units[i].Quota
+		}
+		if !reflect.DeepEqual(got, want) {
+			t.Fatalf("without order %+v\nwith order %+v", got, want)
+		}
+		if s.Tie.Kind == TieReport {
+			checkCertificate(t, s, got)
+		}
+	})
 }
 
 // TestJumpLarge compares the two procedures on a few thousand units and a
@@ -208,11 +208,11 @@ func TestJumpLarge(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			want, err := pr.divisorSequential(false)
+			want, err := pr.sequentialForm()
 			if err != nil {
 				t.Fatal(err)
 			}
-			got, err := pr.divisorJump()
+			got, err := pr.fastForm()
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -241,55 +241,48 @@ func TestJumpLarge(t *testing.T) {
 // rational arithmetic, over divisors from tiny to huge, populations up to
 // MaxCoefficient and seat counts up to MaxSeats.
 func TestCutCompare(t *testing.T) {
-	for _, m := range Methods() {
-		if !m.IsDivisor() {
-			continue
+	forDivisorMethods(t, func(t *rapid.T, m Method) {
+		p := rapid.OneOf(rapid.Uint64Range(1, 1000), rapid.Uint64Range(1, MaxCoefficient), rapid.Uint64Range(MaxCoefficient-1000, MaxCoefficient)).Draw(t, "p")
+		k := rapid.OneOf(rapid.IntRange(0, 3), rapid.IntRange(0, 100_000), rapid.IntRange(MaxSeats-10, MaxSeats)).Draw(t, "k")
+		var d float64
+		if rapid.Bool().Draw(t, "near") && m.signpost(k).n != 0 {
+			// Near the priority value itself, where the comparison is
+			// close.
+			d = float64(p) / signpostFloat(m, k) * (1 + float64(rapid.IntRange(-1000, 1000).Draw(t, "ulps"))*0x1p-52)
+		} else {
+			d = math.Pow(10, rapid.Float64Range(-12, 30).Draw(t, "log"))
 		}
-		t.Run(m.String(), func(t *testing.T) {
-			rapid.Check(t, func(t *rapid.T) {
-				p := rapid.OneOf(rapid.Uint64Range(1, 1000), rapid.Uint64Range(1, MaxCoefficient), rapid.Uint64Range(MaxCoefficient-1000, MaxCoefficient)).Draw(t, "p")
-				k := rapid.OneOf(rapid.IntRange(0, 3), rapid.IntRange(0, 100_000), rapid.IntRange(MaxSeats-10, MaxSeats)).Draw(t, "k")
-				var d float64
-				if rapid.Bool().Draw(t, "near") && m.signpost(k).n != 0 {
-					// Near the priority value itself, where the comparison is
-					// close.
-					d = float64(p) / warmSignpostFloat(m, k) * (1 + float64(rapid.IntRange(-1000, 1000).Draw(t, "ulps"))*0x1p-52)
-				} else {
-					d = math.Pow(10, rapid.Float64Range(-12, 30).Draw(t, "log"))
-				}
-				pr := &problem{m: m, pops: []uint64{p, rapid.Uint64Range(1, MaxCoefficient).Draw(t, "other")}}
-				c := newCut(pr, d)
-				// D as a rational, squared.
-				var d2 *big.Rat
-				if c.kind == cutGeneral {
-					vp := new(big.Rat).SetInt(bigU(c.vp))
-					d2 = new(big.Rat).Quo(new(big.Rat).Mul(vp, vp), refSignpostSq(m, c.vk))
-				} else {
-					x := new(big.Rat).SetInt(bigU(c.x))
-					if c.s >= 0 {
-						x.Quo(x, new(big.Rat).SetInt(new(big.Int).Lsh(big.NewInt(1), uint(c.s))))
-					} else {
-						x.Mul(x, new(big.Rat).SetInt(new(big.Int).Lsh(big.NewInt(1), uint(-c.s))))
-					}
-					d2 = new(big.Rat).Mul(x, x)
-					if m == HuntingtonHill {
-						d2 = x // the cut holds D^2
-					}
-				}
-				// sign(p/s(k) - D) = sign(p^2 - D^2 s(k)^2).
-				pp := new(big.Rat).SetInt(new(big.Int).Mul(bigU(p), bigU(p)))
-				want := pp.Cmp(new(big.Rat).Mul(d2, refSignpostSq(m, k)))
-				if got := c.cmp(p, k); got != want {
-					t.Fatalf("cut %+v: cmp(%d, %d) = %d, want %d", c, p, k, got, want)
-				}
-				var viaBig int
-				withBig(func() { viaBig = c.cmp(p, k) })
-				if viaBig != want {
-					t.Fatalf("cut %+v: big-path cmp(%d, %d) = %d, want %d", c, p, k, viaBig, want)
-				}
-			})
-		})
-	}
+		pr := &problem{m: m, pops: []uint64{p, rapid.Uint64Range(1, MaxCoefficient).Draw(t, "other")}}
+		c := newCut(pr, d)
+		// D as a rational, squared.
+		var d2 *big.Rat
+		if c.kind == cutGeneral {
+			vp := new(big.Rat).SetInt(bigU(c.vp))
+			d2 = new(big.Rat).Quo(new(big.Rat).Mul(vp, vp), refSignpostSq(m, c.vk))
+		} else {
+			x := new(big.Rat).SetInt(bigU(c.x))
+			if c.s >= 0 {
+				x.Quo(x, new(big.Rat).SetInt(new(big.Int).Lsh(big.NewInt(1), uint(c.s))))
+			} else {
+				x.Mul(x, new(big.Rat).SetInt(new(big.Int).Lsh(big.NewInt(1), uint(-c.s))))
+			}
+			d2 = new(big.Rat).Mul(x, x)
+			if m == HuntingtonHill {
+				d2 = x // the cut holds D^2
+			}
+		}
+		// sign(p/s(k) - D) = sign(p^2 - D^2 s(k)^2).
+		pp := new(big.Rat).SetInt(new(big.Int).Mul(bigU(p), bigU(p)))
+		want := pp.Cmp(new(big.Rat).Mul(d2, refSignpostSq(m, k)))
+		if got := c.cmp(p, k); got != want {
+			t.Fatalf("cut %+v: cmp(%d, %d) = %d, want %d", c, p, k, got, want)
+		}
+		var viaBig int
+		withBig(func() { viaBig = c.cmp(p, k) })
+		if viaBig != want {
+			t.Fatalf("cut %+v: big-path cmp(%d, %d) = %d, want %d", c, p, k, viaBig, want)
+		}
+	})
 }
 
 // TestJumpRandomLarge draws a few larger scenarios with a plain generator
@@ -318,8 +311,8 @@ func TestJumpRandomLarge(t *testing.T) {
 			if err != nil {
 				continue
 			}
-			want, werr := pr.divisorSequential(false)
-			got, gerr := pr.divisorJump()
+			want, werr := pr.sequentialForm()
+			got, gerr := pr.fastForm()
 			if (werr == nil) != (gerr == nil) {
 				t.Fatalf("%s trial %d: sequential %v, jump %v", m, trial, werr, gerr)
 			}
@@ -334,18 +327,18 @@ func TestJumpRandomLarge(t *testing.T) {
 func TestFirstSeats(t *testing.T) {
 	rapid.Check(t, func(t *rapid.T) {
 		n := rapid.IntRange(0, 80).Draw(t, "n")
-		seats := make([]jumpSeat, n)
+		seats := make([]nearSeat, n)
 		for i := range seats {
-			seats[i] = jumpSeat{float64(rapid.IntRange(0, 20).Draw(t, "v")), int32(i)}
+			seats[i] = nearSeat{float64(rapid.IntRange(0, 20).Draw(t, "v")), int32(i)}
 		}
 		m := rapid.IntRange(1, 40).Draw(t, "m")
 		desc := rapid.Bool().Draw(t, "desc")
 		want := slices.Clone(seats)
-		slices.SortFunc(want, func(x, y jumpSeat) int {
+		slices.SortFunc(want, func(x, y nearSeat) int {
 			if desc {
-				return cmpFloat(y.v, x.v)
+				return cmp.Compare(y.v, x.v)
 			}
-			return cmpFloat(x.v, y.v)
+			return cmp.Compare(x.v, y.v)
 		})
 		got := slices.Clone(seats)
 		firstSeats(got, m, desc)
@@ -354,7 +347,7 @@ func TestFirstSeats(t *testing.T) {
 				t.Fatalf("seat %d of the first %d: %v, want %v (all %v)", k, m, got[k].v, want[k].v, got)
 			}
 		}
-		sortByUnit := func(s []jumpSeat) { slices.SortFunc(s, func(x, y jumpSeat) int { return int(x.u - y.u) }) }
+		sortByUnit := func(s []nearSeat) { slices.SortFunc(s, func(x, y nearSeat) int { return int(x.u - y.u) }) }
 		sortByUnit(got)
 		sortByUnit(seats)
 		if !slices.Equal(got, seats) {
