@@ -102,9 +102,9 @@ func ApplyRatio(s *engine.Scenario, ratio engine.Decimal) (*FixedRatio, error) {
 			// On the signpost between a and a+1.
 			ru.Tied = true
 		}
-		ru.Upper = m.SignpostString(a)
+		ru.Upper = m.SignpostText(a)
 		if a > 0 {
-			ru.Lower = m.SignpostString(a - 1)
+			ru.Lower = m.SignpostText(a - 1)
 		}
 		if ru.Tied {
 			ru.Lower, ru.Upper = ru.Upper, ""
@@ -247,29 +247,10 @@ func (b *BaseSeats) Text() string {
 // cmpSignpost compares q ≥ 0 with the method's signpost s(a), exactly
 // (Huntington–Hill through squares).
 func cmpSignpost(m engine.Method, q *big.Rat, a int) int {
-	x := int64(a)
-	var n, d int64
-	sq := false
-	switch m {
-	case engine.Jefferson:
-		n, d = x+1, 1
-	case engine.Webster:
-		n, d = 2*x+1, 2
-	case engine.Adams:
-		n, d = x, 1
-	case engine.Dean:
-		n, d = 2*x*(x+1), 2*x+1
-	case engine.HuntingtonHill:
-		n, d, sq = x*(x+1), 1, true
-	case engine.ModifiedSainteLague:
-		n, d = 2*x+1, 2
-		if a == 0 {
-			n, d = 7, 10
-		}
-	}
-	s := big.NewRat(n, d)
+	n, d, sq, _ := m.Signpost(a)
+	sp := new(big.Rat).SetFrac(new(big.Int).SetUint64(n), new(big.Int).SetUint64(d))
 	if sq {
-		return new(big.Rat).Mul(q, q).Cmp(s)
+		return new(big.Rat).Mul(q, q).Cmp(sp)
 	}
-	return q.Cmp(s)
+	return q.Cmp(sp)
 }

@@ -24,25 +24,11 @@ func roundingOf(m engine.Method) rounding {
 // sign returns the signpost s(a) (its square for Huntington–Hill) as the
 // fraction n/d, for a ≥ 0. n is zero for a zero signpost.
 func (r rounding) sign(a int) (n, d uint64) {
-	x := uint64(a)
-	switch r.m {
-	case engine.Jefferson:
-		return x + 1, 1
-	case engine.Webster:
-		return 2*x + 1, 2
-	case engine.Adams:
-		return x, 1
-	case engine.Dean:
-		return 2 * x * (x + 1), 2*x + 1
-	case engine.HuntingtonHill:
-		return x * (x + 1), 1
-	case engine.ModifiedSainteLague:
-		if a == 0 {
-			return 7, 10
-		}
-		return 2*x + 1, 2
+	n, d, _, ok := r.m.Signpost(a)
+	if !ok {
+		return 1, 1
 	}
-	return 1, 1
+	return n, d
 }
 
 // zeroFirst reports whether s(0) is zero, so that every cell with votes
