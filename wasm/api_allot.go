@@ -2,14 +2,14 @@ package main
 
 import (
 	"seatsmith/engine"
+	"seatsmith/engine/format"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 )
 
 func init() { register("allot", allot) }
 
 // allot apportions a scenario by its method with every explanation and
-// returns the allotment document (engine/report), the same content as
+// returns the allotment document (engine/format), the same content as
 // "seatsmith allot -format json".
 func allot(arg *jsondoc.Value) (*jsondoc.Value, error) {
 	src, err := scenarioArg(arg)
@@ -20,5 +20,5 @@ func allot(arg *jsondoc.Value) (*jsondoc.Value, error) {
 	if err != nil {
 		return nil, err
 	}
-	return report.Allotment(src.Title, res), nil
+	return format.AllotmentJSON(src.Title, res), nil
 }

@@ -5,12 +5,12 @@ import (
 	"errors"
 	"strconv"
 
+	"seatsmith/engine/format"
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
 	"seatsmith/engine/projection"
-	"seatsmith/engine/report"
-	"seatsmith/site/forecast"
 	"seatsmith/engine/render"
+	"seatsmith/site/forecast"
 )
 
 // The projection functions run a study in chunks, so that a page's worker
@@ -21,7 +21,7 @@ import (
 //	                             and prepares its study, no draws made
 //	projectRun({id, draws: k}) → {done, draws}: makes the next k draws
 //	projectResult({id, block}) → {document, view, claims}: the projection
-//	                             document (report.Projection), the result
+//	                             document (format.ProjectionJSON), the result
 //	                             markup (forecast.Output as a render tree,
 //	                             element ids prefixed by block) and each
 //	                             claim's {id, holds, found}
@@ -138,7 +138,7 @@ func projectResult(arg *jsondoc.Value) (*jsondoc.Value, error) {
 		v := c.Check(s)
 		claims.Append(jsondoc.NewObject().Set("id", jsondoc.Str(c.ID)).Set("holds", jsondoc.Boolean(v.Holds)).Set("found", jsondoc.Str(v.Found)))
 	}
-	return jsondoc.NewObject().Set("document", report.Projection(s)).
+	return jsondoc.NewObject().Set("document", format.ProjectionJSON(s)).
 		Set("view", render.JSON(forecast.Output(ls.cfg, s, block))).Set("claims", claims), nil
 }
 

@@ -5,7 +5,7 @@
 //
 //	globalThis.seatsmith = {
 //	  version: 1,             // APIVersion
-//	  caution: "...",         // the not-official caution (report.Caution)
+//	  caution: "...",         // the not-official caution (format.Caution)
 //	  methods(),              // [{id, name, divisor}]
 //	  allot(scenario),        // the allotment document
 //	  compare(scenario),      // the comparison document
@@ -26,7 +26,7 @@
 //
 // The documents returned are plain objects and arrays with exactly the
 // content of the command-line tool's JSON output (schemas in
-// engine/report): numbers as numbers, exact decimals as strings, null as
+// engine/format): numbers as numbers, exact decimals as strings, null as
 // null.
 //
 // No function throws. Every failure, bad input or an internal fault alike,

@@ -7,8 +7,8 @@ import (
 
 	"github.com/hack-pad/safejs"
 
+	"seatsmith/engine/format"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 )
 
 func main() {
@@ -40,7 +40,7 @@ func install() error {
 	if err := obj.Set("version", APIVersion); err != nil {
 		return err
 	}
-	if err := obj.Set("caution", report.Caution); err != nil {
+	if err := obj.Set("caution", format.Caution); err != nil {
 		return err
 	}
 	for _, name := range apiNames() {

@@ -407,7 +407,7 @@ func (s *Sheet) Units(c Columns) ([]engine.Unit, error) {
 		}
 		p, perr := engine.ParseDecimal(text)
 		if perr != nil {
-			return nil, &Error{Line: line, Field: s.columnName(c.Count, "count"), Msg: populationMsg(u.Name, r[c.Count], perr)}
+			return nil, &Error{Line: line, Field: s.columnName(c.Count, "count"), Msg: PopulationProblem(u.Name, r[c.Count], perr)}
 		}
 		u.Population = p
 		for _, b := range []struct {

@@ -125,7 +125,7 @@ func growthOutput(o *Outcome, out *Node) {
 		}
 		row.Add(Wrap("th", b.Name, "scope", "row"))
 		row.Add(Wrap("td", strconv.Itoa(b.Seats), "class", "num"), Wrap("td", strconv.Itoa(a.Seats), "class", "num sc-seats"))
-		row.Add(Wrap("td", seatDelta(b.Seats, a.Seats), "class", "num sc-delta"))
+		row.Add(Wrap("td", tiedDelta(b, a, r), "class", "num sc-delta"))
 		row.Add(Wrap("td", growthText(b.Population.String(), a.Population.String()), "class", "num"))
 		row.Add(Wrap("td", Group(b.Population.String()), "class", "num"), Wrap("td", Group(a.Population.String()), "class", "num"))
 		body.Add(row)
@@ -195,7 +195,11 @@ func movesText(before, after *engine.Result) string {
 	var parts []string
 	for i := range before.Units {
 		if i < len(after.Units) && before.Units[i].Seats != after.Units[i].Seats {
-			parts = append(parts, before.Units[i].Name+" "+strconv.Itoa(before.Units[i].Seats)+" → "+strconv.Itoa(after.Units[i].Seats))
+			p := before.Units[i].Name + " " + strconv.Itoa(before.Units[i].Seats) + " → " + strconv.Itoa(after.Units[i].Seats)
+			if (before.Units[i].Tied && before.Unassigned > 0) || (after.Units[i].Tied && after.Unassigned > 0) {
+				p += " (a tie, not settled)"
+			}
+			parts = append(parts, p)
 		}
 	}
 	if len(parts) == 0 {
@@ -222,6 +226,20 @@ func growthText(from, to string) string {
 		s = "−" + strings.TrimPrefix(s, "-")
 	}
 	return s
+}
+
+// tiedDelta is seatDelta for a unit before (b) and after (a), saying
+// "tied" where a tie leaves one of its seats unassigned: its change is
+// then not settled.
+func tiedDelta(b, a *engine.UnitResult, r *analysis.PopulationResult) string {
+	d := seatDelta(b.Seats, a.Seats)
+	if !(b.Tied && r.Before.Unassigned > 0) && !(a.Tied && r.After.Unassigned > 0) {
+		return d
+	}
+	if d == "" {
+		return "tied"
+	}
+	return d + ", tied"
 }
 
 // seatDelta writes a change of seats: "+1", "−1" or "".

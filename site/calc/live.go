@@ -7,9 +7,10 @@ import (
 	"strings"
 	"time"
 
+	"seatsmith/engine/format"
+	csvformat "seatsmith/engine/format/csv"
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 	"seatsmith/engine/render"
 )
 
@@ -31,7 +32,7 @@ import (
 //	export      true to add the CSV and JSON exports
 //	timings     true to add timings to the answer (for measuring speed)
 //	margins     false to leave out the margins where they are costly (see
-//	            RunQuick); the answer then has margins_pending true, and
+//	            Options.QuickMargins); the answer then has margins_pending true, and
 //	            margins_auto true when they are quick enough to fill in
 //	            without being asked
 //	order       false to leave out the seat order (see Options.NoOrder)
@@ -297,14 +298,14 @@ func Export(o *Outcome) (csv, js string) {
 		return "", ""
 	}
 	var b bytes.Buffer
-	if err := report.AllotTable(o.Result).WriteCSV(&b); err != nil {
+	if err := csvformat.WriteTable(&b, format.AllotmentData(o.Result, &o.Scenario, true)); err != nil {
 		b.Reset()
 	}
 	v := jsondoc.NewObject().Set("version", jsondoc.Int(1)).Set("kind", jsondoc.Str("calculator-export"))
-	v.Set("caution", jsondoc.Str(report.Caution))
+	v.Set("caution", jsondoc.Str(format.Caution))
 	v.Set("scenario", input.Encode(o.Title, &o.Scenario))
-	v.Set("allotment", report.Allotment(o.Title, o.Result))
-	v.Set("comparison", o.Comparison.Doc(o.Title))
+	v.Set("allotment", format.AllotmentJSON(o.Title, o.Result))
+	v.Set("comparison", format.ComparisonJSON(o.Title, o.Comparison))
 	cl := jsondoc.NewArray()
 	for _, vd := range o.Verdicts {
 		cl.Append(jsondoc.NewObject().Set("id", jsondoc.Str(vd.Claim.ID)).Set("holds", jsondoc.Boolean(vd.Holds)).Set("found", jsondoc.Str(vd.Found)))
@@ -316,14 +317,14 @@ func Export(o *Outcome) (csv, js string) {
 func exportSweep(o *Outcome) (csv, js string) {
 	set := o.Sweep.Set
 	var b bytes.Buffer
-	if err := report.SweepCSVTable(set).WriteCSV(&b); err != nil {
+	if err := csvformat.WriteTable(&b, format.SweepData(set)); err != nil {
 		b.Reset()
 	}
 	v := jsondoc.NewObject().Set("version", jsondoc.Int(1)).Set("kind", jsondoc.Str("sweep-export"))
-	v.Set("caution", jsondoc.Str(report.Caution))
+	v.Set("caution", jsondoc.Str(format.Caution))
 	v.Set("scenario", input.Encode(o.Title, &o.Scenario))
-	v.Set("sweep", set.Doc(o.Title))
-	v.Set("paradoxes", report.ParadoxDoc(o.Title, set, &o.Scenario))
+	v.Set("sweep", format.SweepJSON(o.Title, set))
+	v.Set("paradoxes", format.ParadoxJSON(o.Title, set))
 	v.Set("claims", verdictsDoc(o))
 	return b.String(), string(jsondoc.MarshalIndent(v, "  "))
 }

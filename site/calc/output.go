@@ -5,8 +5,8 @@ import (
 	"strings"
 
 	"seatsmith/engine"
+	"seatsmith/engine/format"
 	. "seatsmith/engine/render"
-	"seatsmith/engine/report"
 )
 
 // State is the calculator's data-state for an outcome rendered live:
@@ -61,7 +61,7 @@ func Output(o *Outcome) *Node {
 }
 
 func caution() *Node {
-	return Wrap("p", report.Caution, "class", "sc-caution", "data-role", "caution")
+	return Wrap("p", format.Caution, "class", "sc-caution", "data-role", "caution")
 }
 
 func plural(n int, w string) string {
@@ -118,7 +118,7 @@ func tiesView(r *engine.Result) *Node {
 			for _, w := range t.Winners {
 				ws = append(ws, r.Units[w].Name)
 			}
-			s += "The chosen rule (" + ruleText(t.Rule) + ") gives " + verb(t.Seats, "it", "them") + " to " + strings.Join(ws, ", ") + "."
+			s += "The chosen rule (" + format.TieRuleText(t.Rule) + ") gives " + verb(t.Seats, "it", "them") + " to " + strings.Join(ws, ", ") + "."
 		} else {
 			s += "No tie rule is chosen, so " + verb(t.Seats, "it is", "they are") + " left unassigned. The governing rule (often a drawing of lots) decides."
 		}
@@ -127,16 +127,6 @@ func tiesView(r *engine.Result) *Node {
 	}
 	box.Add(ul)
 	return box
-}
-
-func ruleText(rule string) string {
-	switch {
-	case rule == "order":
-		return "input order"
-	case strings.HasPrefix(rule, "lot:"):
-		return "lots drawn with seed " + rule[4:]
-	}
-	return rule
 }
 
 func valueText(v *engine.Value) string {
@@ -169,23 +159,6 @@ func quotaNote(u *engine.UnitResult) (text, class string) {
 		return "below lower quota " + strconv.Itoa(u.Lower), "sc-q-low"
 	}
 	return "above upper quota " + strconv.Itoa(u.Upper), "sc-q-high"
-}
-
-func notes(u *engine.UnitResult) string {
-	var n []string
-	if u.Excluded {
-		n = append(n, "below the threshold")
-	}
-	if u.AtMin {
-		n = append(n, "held up by its minimum of "+strconv.Itoa(u.Min))
-	}
-	if u.AtMax {
-		n = append(n, "held down by its maximum of "+strconv.Itoa(u.Max))
-	}
-	if u.Tied {
-		n = append(n, "tied")
-	}
-	return strings.Join(n, "; ")
 }
 
 func resultsTable(o *Outcome) *Node {
@@ -238,7 +211,7 @@ func resultsTable(o *Outcome) *Node {
 			}
 		}
 		row.Add(Wrap("td", marginText(u.Gain, o.MarginsPending), "class", "num"), Wrap("td", marginText(u.Lose, o.MarginsPending), "class", "num"))
-		row.Add(Wrap("td", notes(u), "class", "sc-notes"))
+		row.Add(Wrap("td", format.UnitNotes(u), "class", "sc-notes"))
 		body.Add(row)
 	}
 	t.Add(body)
@@ -261,9 +234,7 @@ func resultsTable(o *Outcome) *Node {
 		ask.Add(Wrap("button", "Compute the margins", "type", "button", "data-action", "margins"))
 	}
 	c := o.Block.Count
-	legend.AddText("Quota: the unit's exact share of the seats, " + c.Noun() + " × seats ÷ total. Gain margin: the fewest extra " + c.People() +
-		" " + c.who() + " would win the unit one more seat outright, all others fixed; lose margin: the fewest " + c.People() +
-		" whose loss, all others fixed, would cost it a seat or leave its last seat tied. A dash means no change of its " + c.Noun() + " alone does it.")
+	legend.AddText(format.MarginLegendIn(c.Noun(), c.People(), c.who()))
 	return El("div", "class", "sc-results-wrap").Add(wrap, ask, legend)
 }
 

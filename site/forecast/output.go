@@ -4,9 +4,9 @@ import (
 	"math"
 	"strconv"
 
+	"seatsmith/engine/format"
 	"seatsmith/engine/projection"
 	. "seatsmith/engine/render"
-	"seatsmith/engine/report"
 )
 
 // Form is the block's controls: the target date, growth model, error
@@ -140,7 +140,7 @@ func Output(c *Config, s *projection.Summary, id string) *Node {
 		}
 		out.Add(ul)
 	}
-	out.Add(Wrap("p", "A projection is an estimate from a growth model and an assumed error, not a forecast of record. "+report.Caution,
+	out.Add(Wrap("p", "A projection is an estimate from a growth model and an assumed error, not a forecast of record. "+format.Caution,
 		"class", "fc-caution", "data-role", "caution"))
 	return out
 }
@@ -154,22 +154,6 @@ func join(xs []string) string {
 		s += x
 	}
 	return s
-}
-
-// shareText writes a share of n draws for people: one decimal, "<0.1%"
-// and ">99.9%" near the ends, "0" and "100%" only when exact.
-func shareText(sh projection.Share, n int64) string {
-	switch {
-	case sh.Draws == 0:
-		return "0"
-	case sh.Draws == n:
-		return "100%"
-	case sh.P < 0.0005:
-		return "<0.1%"
-	case sh.P > 0.9995:
-		return ">99.9%"
-	}
-	return strconv.FormatFloat(100*sh.P, 'f', 1, 64) + "%"
 }
 
 func table(s *projection.Summary, id string) *Node {
@@ -195,14 +179,14 @@ func table(s *projection.Summary, id string) *Node {
 			proj += " (line below 0)"
 		}
 		tr.Add(Wrap("td", latest, "class", "num"), Wrap("td", proj, "class", "num"), Wrap("td", strconv.Itoa(u.BaselineSeats), "class", "num"),
-			Wrap("td", strconv.Itoa(u.CentralSeats), "class", "num"), Wrap("td", shareText(u.Lose, n), "class", "num"),
-			Wrap("td", shareText(u.Gain, n), "class", "num"))
+			Wrap("td", strconv.Itoa(u.CentralSeats), "class", "num"), Wrap("td", format.ShareText(u.Lose, n), "class", "num"),
+			Wrap("td", format.ShareText(u.Gain, n), "class", "num"))
 		dist := El("td", "class", "fc-dist")
 		for k, d := range u.Dist {
 			if k > 0 {
 				dist.AddText(" ")
 			}
-			dist.Add(Wrap("span", strconv.Itoa(d.Seats)+": "+shareText(d.Share, n), "data-seats", strconv.Itoa(d.Seats), "data-draws", strconv.FormatInt(d.Draws, 10)))
+			dist.Add(Wrap("span", strconv.Itoa(d.Seats)+": "+format.ShareText(d.Share, n), "data-seats", strconv.Itoa(d.Seats), "data-draws", strconv.FormatInt(d.Draws, 10)))
 		}
 		tr.Add(dist)
 		body.Add(tr)
@@ -249,7 +233,7 @@ func segments(g *Node, u *projection.UnitSummary, n int64, x0, y, w, h float64) 
 			cls = "fc-more"
 		}
 		seg := El("rect", "x", num(x), "y", num(y), "width", num(sw), "height", num(h), "class", "fc-seg "+cls)
-		seg.Add(Wrap("title", u.Name+": "+strconv.Itoa(d.Seats)+" seats in "+shareText(d.Share, n)+" of the draws"))
+		seg.Add(Wrap("title", u.Name+": "+strconv.Itoa(d.Seats)+" seats in "+format.ShareText(d.Share, n)+" of the draws"))
 		g.Add(seg)
 		if sw >= 16 {
 			g.Add(Wrap("text", strconv.Itoa(d.Seats), "x", num(x+sw/2), "y", num(y+h/2+4), "text-anchor", "middle", "class", "fc-seglabel "+cls))
@@ -287,7 +271,7 @@ func wideChart(s *projection.Summary, id, cap string) *Node {
 		g := El("g", "class", "fc-row", "data-unit", u.Name)
 		g.Add(Wrap("text", u.Name+" "+strconv.Itoa(u.BaselineSeats), "x", num(labelW), "y", num(y+rowH/2+4), "text-anchor", "end", "class", "fc-name"))
 		segments(g, u, n, barX, y+4, barW, rowH-8)
-		g.Add(Wrap("text", shareText(u.Lose, n)+" / "+shareText(u.Gain, n), "x", num(chartW-2), "y", num(y+rowH/2+4), "text-anchor", "end", "class", "fc-odds"))
+		g.Add(Wrap("text", format.ShareText(u.Lose, n)+" / "+format.ShareText(u.Gain, n), "x", num(chartW-2), "y", num(y+rowH/2+4), "text-anchor", "end", "class", "fc-odds"))
 		svg.Add(g)
 	}
 	legend(svg, barX, chartTop+rowH*float64(len(s.Units))+10)
@@ -322,7 +306,7 @@ func narrowChart(s *projection.Summary, id, cap string) *Node {
 		y := narrowTop + narrowRowH*float64(i)
 		g := El("g", "class", "fc-row", "data-unit", u.Name)
 		g.Add(Wrap("text", shortName(u.Name, 18)+" "+strconv.Itoa(u.BaselineSeats), "x", "2", "y", num(y+13), "class", "fc-name"))
-		g.Add(Wrap("text", shareText(u.Lose, n)+" / "+shareText(u.Gain, n), "x", num(narrowW-2), "y", num(y+13), "text-anchor", "end", "class", "fc-odds"))
+		g.Add(Wrap("text", format.ShareText(u.Lose, n)+" / "+format.ShareText(u.Gain, n), "x", num(narrowW-2), "y", num(y+13), "text-anchor", "end", "class", "fc-odds"))
 		segments(g, u, n, 2, y+narrowBarY, narrowW-4, narrowBarH)
 		svg.Add(g)
 	}
