@@ -310,7 +310,7 @@ func TestLiveGrowthTie(t *testing.T) {
 		t.Fatalf("error: %s", jsondoc.Marshal(resp.Get("error")))
 	}
 	h := outputHTML(t, resp)
-	for _, w := range []string{`<td class="num sc-delta">−1, tied</td>`, "East Ward 1 → 0 (a tie, not settled)"} {
+	for _, w := range []string{`<td class="num sc-delta" data-label="Change">−1, tied</td>`, "East Ward 1 → 0 (a tie, not settled)"} {
 		if !strings.Contains(h, w) {
 			t.Errorf("growth output lacks %s:\n%s", w, h)
 		}
