@@ -7,9 +7,9 @@ import (
 
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
+	. "seatsmith/engine/render"
 	"seatsmith/engine/report"
 	"seatsmith/site/claim"
-	. "seatsmith/engine/render"
 )
 
 // A SweepOutcome is a sweep block's scenario apportioned at every house
@@ -25,8 +25,8 @@ type SweepOutcome struct {
 // tables below it mark every one.
 const maxListed = 4
 
-func runSweep(o *Outcome, st *study) {
-	set := report.SweepAll(o.Scenario, st.Methods, st.From, st.To)
+func runSweep(o *Outcome, va *variation) {
+	set := report.SweepAll(o.Scenario, va.Methods, va.From, va.To)
 	if set.First() == nil {
 		o.Problem = sweepProblem(set.Errors[0])
 		return
@@ -40,7 +40,7 @@ func runSweep(o *Outcome, st *study) {
 		}
 	}
 	o.Sweep = so
-	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, st.context())
+	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, va.context())
 }
 
 // sweepProblem places a sweep's error at the range's fields: a sweep has

@@ -8,6 +8,7 @@ import (
 	"seatsmith/engine"
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
+	. "seatsmith/engine/render"
 	"seatsmith/site/claim"
 )
 
@@ -16,8 +17,9 @@ import (
 // browser quick.
 const MaxSweepSizes = 200
 
-// A study is what a sweep, growth or admit block adds to its scenario.
-type study struct {
+// A variation is what a variation block (sweep, growth or admit) adds to
+// its scenario: the one thing it varies.
+type variation struct {
 	// Sweep blocks: the house sizes and the methods swept.
 	From, To int
 	Methods  []engine.Method
@@ -31,176 +33,238 @@ type study struct {
 	Added int
 }
 
-// context is the claims' view of the study.
-func (st *study) context() claim.Context {
-	return claim.Context{From: st.From, To: st.To, Later: st.Later, Admit: st.Admit, Added: st.Added}
+// context is the claims' view of the variation.
+func (va *variation) context() claim.Context {
+	return claim.Context{From: va.From, To: va.To, Later: va.Later, Admit: va.Admit, Added: va.Added}
 }
 
-// studyMembers are the members each mode adds to a scenario document.
-var studyMembers = map[Mode][]string{
-	Sweep: {"from", "to", "methods"},
-	Admit: {"admit"},
+// A variationMode is the code of one variation mode: how it reads the
+// members it adds, runs, lays out its results and controls, and exports.
+// The modes are reached only through [variationModes], which only
+// [UseVariations] fills, so that a program that never calls it (the
+// WebAssembly calculator module) carries none of their code.
+type variationMode struct {
+	// members are the members the mode adds to the scenario document,
+	// taken out of it before the scenario is read; a growth block's later
+	// populations sit in its units and read takes them out itself.
+	members []string
+	// read reads the members from doc (the block's whole document) into
+	// va; sdoc is the scenario document without them, which read may
+	// change.
+	read     func(file string, doc, sdoc *jsondoc.Value, va *variation) *input.Error
+	run      func(o *Outcome, va *variation)
+	output   func(o *Outcome, out *Node)
+	controls func(fs *Node, b *Block, doc *jsondoc.Value, id func(string) string)
+	// export is nil for a mode without downloads.
+	export func(o *Outcome) (csv, js string)
 }
 
-// readStudy splits a block's document into the scenario document proper
-// and the study the mode adds to it, and reads the study. Errors are
-// *input.Error values naming the member at fault, as a scenario document's
-// path ("from", "units[2].later", "admit.population").
-func readStudy(file string, doc *jsondoc.Value, mode Mode) (*jsondoc.Value, *study, *input.Error) {
-	st := &study{Added: -1}
-	if doc == nil || doc.Kind != jsondoc.Object || (mode != Sweep && mode != Growth && mode != Admit) {
-		return doc, st, nil
+var variationModes [Admit + 1]*variationMode
+
+// UseVariations makes the variation modes available: sweep (every
+// method's seats across a range of house sizes), growth (two population
+// counts) and admit (a unit joins). Until it is called, a block of one of
+// these modes is refused with a message that says so. The site build and
+// the WebAssembly analysis module call it; the calculator module does not,
+// and so stays free of the analysis code these modes need.
+func UseVariations() {
+	claim.UseParadoxes()
+	variationModes[Sweep] = &variationMode{members: []string{"from", "to", "methods"},
+		read: readSweep, run: runSweep, output: sweepOutput, controls: sweepControls, export: exportSweep}
+	variationModes[Growth] = &variationMode{read: readGrowth, run: runGrowth, output: growthOutput, controls: growthControls}
+	variationModes[Admit] = &variationMode{members: []string{"admit"},
+		read: readAdmit, run: runAdmit, output: admitOutput, controls: admitControls}
+}
+
+// variationOf returns the code of mode m, nil for a calculator mode, or an
+// error when m is a variation mode this program does not carry.
+func variationOf(file string, line int, m Mode) (*variationMode, *input.Error) {
+	if !m.IsVariation() {
+		return nil, nil
 	}
-	bad := func(v *jsondoc.Value, field, msg string) *input.Error {
-		return &input.Error{File: file, Line: line(v), Field: field, Msg: msg}
+	if vm := variationModes[m]; vm != nil {
+		return vm, nil
 	}
-	own := studyMembers[mode]
+	return nil, &input.Error{File: file, Line: line, Field: "mode", Msg: "this engine has no " + blockWord(m) +
+		"s: they are in the analysis module (seatsmith-analysis.wasm)"}
+}
+
+// readVariation splits a block's document into the scenario document
+// proper and the variation the mode adds to it, and reads the variation.
+// Errors are *input.Error values naming the member at fault, as a scenario
+// document's path ("from", "units[2].later", "admit.population").
+func readVariation(file string, doc *jsondoc.Value, vm *variationMode) (*jsondoc.Value, *variation, *input.Error) {
+	va := &variation{Added: -1}
+	if vm == nil || doc == nil || doc.Kind != jsondoc.Object {
+		return doc, va, nil
+	}
 	sdoc := jsondoc.NewObject()
 	sdoc.Line = doc.Line
 	for _, f := range doc.Fields {
-		if !contains(own, f.Key) {
+		if !contains(vm.members, f.Key) {
 			sdoc.Fields = append(sdoc.Fields, f)
 		}
 	}
-	switch mode {
-	case Sweep:
-		for _, k := range []string{"from", "to"} {
-			v := doc.Get(k)
-			if v.IsNull() {
-				return nil, nil, bad(doc, k, "missing: a sweep block gives the house sizes it covers, from and to")
-			}
-			n, ok := wholeOf(v)
-			if !ok || n < 1 || n > engine.MaxSeats {
-				return nil, nil, bad(v, k, "must be a house size, a whole number of seats of at least 1")
-			}
-			if k == "from" {
-				st.From = n
-			} else {
-				st.To = n
-			}
-		}
-		if st.To < st.From {
-			return nil, nil, bad(doc.Get("to"), "to", "must not be below from ("+strconv.Itoa(st.From)+")")
-		}
-		if n := st.To - st.From + 1; n > MaxSweepSizes {
-			return nil, nil, bad(doc.Get("to"), "to", "the range covers "+strconv.Itoa(n)+" house sizes; a sweep here covers at most "+
-				strconv.Itoa(MaxSweepSizes)+" (the command-line tool takes more)")
-		}
-		ms := doc.Get("methods")
-		if ms.IsNull() {
-			st.Methods = engine.Methods()
-			break
-		}
-		if ms.Kind != jsondoc.Array {
-			return nil, nil, bad(ms, "methods", "must be an array of method ids")
-		}
-		if len(ms.Items) == 0 {
-			return nil, nil, bad(ms, "methods", "choose at least one method")
-		}
-		seen := map[engine.Method]bool{}
-		for i, mv := range ms.Items {
-			m, err := engine.ParseMethod(mv.Text)
-			if mv.Kind != jsondoc.String || err != nil {
-				return nil, nil, bad(mv, "methods["+strconv.Itoa(i)+"]", "unknown method "+strconv.Quote(mv.Text)+"; known: "+strings.Join(engine.MethodIDs(), ", "))
-			}
-			if !seen[m] {
-				seen[m] = true
-				st.Methods = append(st.Methods, m)
-			}
-		}
-	case Growth:
-		us := doc.Get("units")
-		if us == nil || us.Kind != jsondoc.Array {
-			break // the scenario reader names the problem
-		}
-		units := jsondoc.NewArray()
-		units.Line = us.Line
-		st.Later = make([]engine.Decimal, len(us.Items))
-		st.laterGiven = make([]bool, len(us.Items))
-		for i, u := range us.Items {
-			if u == nil || u.Kind != jsondoc.Object {
-				units.Append(u)
-				continue
-			}
-			cu := jsondoc.NewObject()
-			cu.Line = u.Line
-			var later *jsondoc.Value
-			for _, f := range u.Fields {
-				if f.Key == "later" {
-					later = f.Value
-					continue
-				}
-				cu.Fields = append(cu.Fields, f)
-			}
-			units.Append(cu)
-			if later.IsNull() {
-				continue // the unit keeps its population
-			}
-			field := "units[" + strconv.Itoa(i) + "].later"
-			name := strings.TrimSpace(str(u.Get("name")))
-			if later.Kind != jsondoc.Number && later.Kind != jsondoc.String {
-				return nil, nil, bad(later, field, strconv.Quote(name)+": the later population must be a number or a string holding one")
-			}
-			d, err := engine.ParseDecimal(later.Text)
-			if err != nil {
-				return nil, nil, bad(later, field, strconv.Quote(name)+": "+strconv.Quote(strings.TrimSpace(later.Text))+" is not a population: "+decimalProblem(err))
-			}
-			st.Later[i], st.laterGiven[i] = d, true
-		}
-		for i, f := range sdoc.Fields {
-			if f.Key == "units" {
-				sdoc.Fields[i].Value = units
-			}
-		}
-	case Admit:
-		a := doc.Get("admit")
-		if a.IsNull() {
-			return nil, nil, bad(doc, "admit", "missing: an admit block gives the unit it admits, {name, population}")
-		}
-		if a.Kind != jsondoc.Object {
-			return nil, nil, bad(a, "admit", "must be an object: {name, population, added}")
-		}
-		for _, f := range a.Fields {
-			if f.Key != "name" && f.Key != "population" && f.Key != "added" {
-				return nil, nil, bad(f.Value, "admit."+f.Key, "unknown member; the unit admitted has name, population and added")
-			}
-		}
-		name := strings.TrimSpace(str(a.Get("name")))
-		if name == "" {
-			return nil, nil, bad(a, "admit.name", "missing: name the unit admitted")
-		}
-		p := a.Get("population")
-		if p.IsNull() {
-			return nil, nil, bad(a, "admit.population", strconv.Quote(name)+": missing")
-		}
-		if p.Kind != jsondoc.Number && p.Kind != jsondoc.String {
-			return nil, nil, bad(p, "admit.population", strconv.Quote(name)+": must be a number or a string holding one")
-		}
-		d, err := engine.ParseDecimal(p.Text)
-		if err != nil {
-			return nil, nil, bad(p, "admit.population", strconv.Quote(name)+": "+strconv.Quote(strings.TrimSpace(p.Text))+" is not a population: "+decimalProblem(err))
-		}
-		st.Admit = &engine.Unit{Name: name, Population: d}
-		if x := a.Get("added"); !x.IsNull() {
-			n, ok := wholeOf(x)
-			if !ok || n > engine.MaxSeats {
-				return nil, nil, bad(x, "admit.added", "must be a whole number of seats (leave it out for the unit's fair share)")
-			}
-			st.Added = n
-		}
+	if err := vm.read(file, doc, sdoc, va); err != nil {
+		return nil, nil, err
 	}
-	return sdoc, st, nil
+	return sdoc, va, nil
 }
 
-// finish fills in what the study could only know once the scenario was
+// badMember places a message at a member of a block's document.
+func badMember(file string, v *jsondoc.Value, field, msg string) *input.Error {
+	return &input.Error{File: file, Line: line(v), Field: field, Msg: msg}
+}
+
+// readSweep reads a sweep block's from, to and methods.
+func readSweep(file string, doc, sdoc *jsondoc.Value, va *variation) *input.Error {
+	bad := func(v *jsondoc.Value, field, msg string) *input.Error { return badMember(file, v, field, msg) }
+	for _, k := range []string{"from", "to"} {
+		v := doc.Get(k)
+		if v.IsNull() {
+			return bad(doc, k, "missing: a sweep block gives the house sizes it covers, from and to")
+		}
+		n, ok := wholeOf(v)
+		if !ok || n < 1 || n > engine.MaxSeats {
+			return bad(v, k, "must be a house size, a whole number of seats of at least 1")
+		}
+		if k == "from" {
+			va.From = n
+		} else {
+			va.To = n
+		}
+	}
+	if va.To < va.From {
+		return bad(doc.Get("to"), "to", "must not be below from ("+strconv.Itoa(va.From)+")")
+	}
+	if n := va.To - va.From + 1; n > MaxSweepSizes {
+		return bad(doc.Get("to"), "to", "the range covers "+strconv.Itoa(n)+" house sizes; a sweep here covers at most "+
+			strconv.Itoa(MaxSweepSizes)+" (the command-line tool takes more)")
+	}
+	ms := doc.Get("methods")
+	if ms.IsNull() {
+		va.Methods = engine.Methods()
+		return nil
+	}
+	if ms.Kind != jsondoc.Array {
+		return bad(ms, "methods", "must be an array of method ids")
+	}
+	if len(ms.Items) == 0 {
+		return bad(ms, "methods", "choose at least one method")
+	}
+	seen := map[engine.Method]bool{}
+	for i, mv := range ms.Items {
+		m, err := engine.ParseMethod(mv.Text)
+		if mv.Kind != jsondoc.String || err != nil {
+			return bad(mv, "methods["+strconv.Itoa(i)+"]", "unknown method "+strconv.Quote(mv.Text)+"; known: "+strings.Join(engine.MethodIDs(), ", "))
+		}
+		if !seen[m] {
+			seen[m] = true
+			va.Methods = append(va.Methods, m)
+		}
+	}
+	return nil
+}
+
+// readGrowth takes each unit's later population out of its units.
+func readGrowth(file string, doc, sdoc *jsondoc.Value, va *variation) *input.Error {
+	bad := func(v *jsondoc.Value, field, msg string) *input.Error { return badMember(file, v, field, msg) }
+	us := doc.Get("units")
+	if us == nil || us.Kind != jsondoc.Array {
+		return nil // the scenario reader names the problem
+	}
+	units := jsondoc.NewArray()
+	units.Line = us.Line
+	va.Later = make([]engine.Decimal, len(us.Items))
+	va.laterGiven = make([]bool, len(us.Items))
+	for i, u := range us.Items {
+		if u == nil || u.Kind != jsondoc.Object {
+			units.Append(u)
+			continue
+		}
+		cu := jsondoc.NewObject()
+		cu.Line = u.Line
+		var later *jsondoc.Value
+		for _, f := range u.Fields {
+			if f.Key == "later" {
+				later = f.Value
+				continue
+			}
+			cu.Fields = append(cu.Fields, f)
+		}
+		units.Append(cu)
+		if later.IsNull() {
+			continue // the unit keeps its population
+		}
+		field := "units[" + strconv.Itoa(i) + "].later"
+		name := strings.TrimSpace(str(u.Get("name")))
+		if later.Kind != jsondoc.Number && later.Kind != jsondoc.String {
+			return bad(later, field, strconv.Quote(name)+": the later population must be a number or a string holding one")
+		}
+		d, err := engine.ParseDecimal(later.Text)
+		if err != nil {
+			return bad(later, field, strconv.Quote(name)+": "+strconv.Quote(strings.TrimSpace(later.Text))+" is not a population: "+decimalProblem(err))
+		}
+		va.Later[i], va.laterGiven[i] = d, true
+	}
+	for i, f := range sdoc.Fields {
+		if f.Key == "units" {
+			sdoc.Fields[i].Value = units
+		}
+	}
+	return nil
+}
+
+// readAdmit reads an admit block's unit admitted.
+func readAdmit(file string, doc, sdoc *jsondoc.Value, va *variation) *input.Error {
+	bad := func(v *jsondoc.Value, field, msg string) *input.Error { return badMember(file, v, field, msg) }
+	a := doc.Get("admit")
+	if a.IsNull() {
+		return bad(doc, "admit", "missing: an admit block gives the unit it admits, {name, population}")
+	}
+	if a.Kind != jsondoc.Object {
+		return bad(a, "admit", "must be an object: {name, population, added}")
+	}
+	for _, f := range a.Fields {
+		if f.Key != "name" && f.Key != "population" && f.Key != "added" {
+			return bad(f.Value, "admit."+f.Key, "unknown member; the unit admitted has name, population and added")
+		}
+	}
+	name := strings.TrimSpace(str(a.Get("name")))
+	if name == "" {
+		return bad(a, "admit.name", "missing: name the unit admitted")
+	}
+	p := a.Get("population")
+	if p.IsNull() {
+		return bad(a, "admit.population", strconv.Quote(name)+": missing")
+	}
+	if p.Kind != jsondoc.Number && p.Kind != jsondoc.String {
+		return bad(p, "admit.population", strconv.Quote(name)+": must be a number or a string holding one")
+	}
+	d, err := engine.ParseDecimal(p.Text)
+	if err != nil {
+		return bad(p, "admit.population", strconv.Quote(name)+": "+strconv.Quote(strings.TrimSpace(p.Text))+" is not a population: "+decimalProblem(err))
+	}
+	va.Admit = &engine.Unit{Name: name, Population: d}
+	if x := a.Get("added"); !x.IsNull() {
+		n, ok := wholeOf(x)
+		if !ok || n > engine.MaxSeats {
+			return bad(x, "admit.added", "must be a whole number of seats (leave it out for the unit's fair share)")
+		}
+		va.Added = n
+	}
+	return nil
+}
+
+// finish fills in what the variation could only know once the scenario was
 // read: the population of each unit that gives no later one.
-func (st *study) finish(s *engine.Scenario) {
-	if st.Later == nil {
+func (va *variation) finish(s *engine.Scenario) {
+	if va.Later == nil {
 		return
 	}
-	for i := range st.Later {
-		if i < len(s.Units) && !st.laterGiven[i] {
-			st.Later[i] = s.Units[i].Population
+	for i := range va.Later {
+		if i < len(s.Units) && !va.laterGiven[i] {
+			va.Later[i] = s.Units[i].Population
 		}
 	}
 }

@@ -43,7 +43,7 @@ func liveState(t *testing.T, resp *jsondoc.Value) string {
 }
 
 func TestLiveSweep(t *testing.T) {
-	resp := Live(studyRequest("sweep", sweepBlock, "editor", jsondoc.Boolean(true), "export", jsondoc.Boolean(true)))
+	resp := live(studyRequest("sweep", sweepBlock, "editor", jsondoc.Boolean(true), "export", jsondoc.Boolean(true)))
 	if liveState(t, resp) != "live" {
 		t.Fatalf("error: %s", jsondoc.Marshal(resp.Get("error")))
 	}
@@ -93,7 +93,7 @@ func renderTree(v *jsondoc.Value) (string, bool) {
 // An edit of the sweep's range changes the chart and the findings.
 func TestLiveSweepEdits(t *testing.T) {
 	doc, _ := jsondoc.Parse([]byte(`{"from": "30", "to": "45", "methods": ["droop"], "min": "1", ` + vessariaUnits + `}`))
-	h := outputHTML(t, Live(studyRequest("sweep", sweepBlock, "scenario", doc)))
+	h := outputHTML(t, live(studyRequest("sweep", sweepBlock, "scenario", doc)))
 	if strings.Contains(h, `data-method="hamilton"`) || !strings.Contains(h, "Found: 2 Alabama paradoxes") || !strings.Contains(h, "house of 38 but 1 in a house of 39") {
 		t.Errorf("the edited sweep shows %s", h[:min(len(h), 600)])
 	}
@@ -113,7 +113,7 @@ func TestLiveSweepEdits(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		resp := Live(studyRequest("sweep", sweepBlock, "scenario", d))
+		resp := live(studyRequest("sweep", sweepBlock, "scenario", d))
 		e := resp.Get("error")
 		if liveState(t, resp) != "error" || e.Get("field").Text != c.field || !strings.Contains(e.Get("message").Text, c.msg) {
 			t.Errorf("%s: %s", c.doc, jsondoc.Marshal(e))
@@ -139,7 +139,7 @@ const growthBlock = `{"seats": 40, "method": "hamilton", "min": 1, "units": [
              {"id": "w", "kind": "no-population-paradox", "method": "webster"}]}`
 
 func TestLiveGrowth(t *testing.T) {
-	resp := Live(studyRequest("growth", growthBlock, "editor", jsondoc.Boolean(true)))
+	resp := live(studyRequest("growth", growthBlock, "editor", jsondoc.Boolean(true)))
 	if liveState(t, resp) != "live" {
 		t.Fatalf("error: %s", jsondoc.Marshal(resp.Get("error")))
 	}
@@ -165,12 +165,12 @@ func TestLiveGrowth(t *testing.T) {
 	// A bad later population is named by unit and field; a later count
 	// that no longer shows the paradox makes the claim fail.
 	doc, _ := jsondoc.Parse([]byte(strings.Replace(growthBlock, `"later": "354900"`, `"later": "-3"`, 1)))
-	e := Live(studyRequest("growth", growthBlock, "scenario", doc)).Get("error")
+	e := live(studyRequest("growth", growthBlock, "scenario", doc)).Get("error")
 	if e == nil || e.Get("field").Text != "units.5.later" || !strings.Contains(e.Get("message").Text, "Unit 6, later population") || !strings.Contains(e.Get("message").Text, "negative") {
 		t.Errorf("bad later population: %s", jsondoc.Marshal(e))
 	}
 	doc, _ = jsondoc.Parse([]byte(strings.Replace(growthBlock, `"later": "354900"`, `"later": "344546"`, 1)))
-	for _, c := range Live(studyRequest("growth", growthBlock, "scenario", doc)).Get("claims").Items {
+	for _, c := range live(studyRequest("growth", growthBlock, "scenario", doc)).Get("claims").Items {
 		if c.Get("id").Text == "p" && c.Get("holds").Bool {
 			t.Error("the population-paradox claim holds with Sarrow unchanged")
 		}
@@ -182,7 +182,7 @@ const admitBlock = `{"seats": 40, "method": "hamilton", "min": 1, "admit": {"nam
   "claims": [{"id": "n", "kind": "new-states", "unit": "Sarrow"}, {"id": "h", "kind": "no-new-states", "method": "webster"}]}`
 
 func TestLiveAdmit(t *testing.T) {
-	resp := Live(studyRequest("admit", admitBlock, "editor", jsondoc.Boolean(true)))
+	resp := live(studyRequest("admit", admitBlock, "editor", jsondoc.Boolean(true)))
 	if liveState(t, resp) != "live" {
 		t.Fatalf("error: %s", jsondoc.Marshal(resp.Get("error")))
 	}
@@ -219,14 +219,14 @@ func TestLiveAdmit(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		e := Live(studyRequest("admit", admitBlock, "scenario", d)).Get("error")
+		e := live(studyRequest("admit", admitBlock, "scenario", d)).Get("error")
 		if e == nil || e.Get("field").Text != c.field || !strings.Contains(e.Get("message").Text, c.msg) {
 			t.Errorf("%s: %s", c.doc, jsondoc.Marshal(e))
 		}
 	}
 	// Chosen added seats replace the fair share.
 	d, _ := jsondoc.Parse([]byte(`{"seats": "40", "method": "webster", "admit": {"name": "X", "population": "350000", "added": "3"}, ` + vessariaUnits + `}`))
-	if h := outputHTML(t, Live(studyRequest("admit", admitBlock, "scenario", d))); !strings.Contains(h, "the number of added seats was chosen as 3") {
+	if h := outputHTML(t, live(studyRequest("admit", admitBlock, "scenario", d))); !strings.Contains(h, "the number of added seats was chosen as 3") {
 		t.Errorf("chosen added seats: %s", h[:min(len(h), 600)])
 	}
 }
@@ -288,7 +288,7 @@ func benchSweep(b *testing.B, from, to int) {
 	}
 	req := studyRequest("sweep", sweepBlock, "scenario", doc)
 	for b.Loop() {
-		if r := Live(req); r.Get("state").Text != "live" {
+		if r := live(req); r.Get("state").Text != "live" {
 			b.Fatal(jsondoc.Marshal(r.Get("error")))
 		}
 	}

@@ -1,9 +1,9 @@
-package forecast
+package projection
 
 import (
 	"strings"
 
-	"seatsmith/engine/projection"
+	model "seatsmith/engine/projection"
 	. "seatsmith/engine/render"
 )
 
@@ -11,8 +11,8 @@ import (
 // the root with data-state="static", the block's document (configJSON, a
 // JSON object that must not contain "</"), the controls (disabled) and the
 // result s computed by the native engine.
-func Prerender(c *Config, id, configJSON string, s *projection.Summary) string {
-	root := El("div", "class", "forecast", "id", id, "data-forecast", "", "data-state", "static")
+func Prerender(c *Config, id, configJSON string, s *model.Summary) string {
+	root := El("div", "class", "projection", "id", id, "data-projection", "", "data-state", "static")
 	h := strings.TrimSuffix(HTML(root), "</div>")
 	return h + `<script type="application/json">` + configJSON + `</script>` +
 		HTML(Form(c, id, false)) + HTML(Output(c, s, id)) + "</div>"

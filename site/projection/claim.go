@@ -1,11 +1,11 @@
-package forecast
+package projection
 
 import (
 	"strconv"
 
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/projection"
+	model "seatsmith/engine/projection"
 )
 
 // A Claim is a sentence about a unit's chances that the study can check:
@@ -75,7 +75,7 @@ func parseClaims(file string, line int, v *jsondoc.Value) ([]Claim, error) {
 				}
 				c.Seats, hasSeats = n, true
 			case "p":
-				p, err := projection.ParseRSE(t)
+				p, err := model.ParseRSE(t)
 				if err != nil {
 					return nil, bad(l, "claim "+strconv.Quote(c.ID)+": p "+strconv.Quote(t)+" is not a share from 0 to 1 or a percentage")
 				}
@@ -121,8 +121,8 @@ func (c *Claim) Statement() string {
 }
 
 // Check checks the claim against a summary.
-func (c *Claim) Check(s *projection.Summary) Verdict {
-	var u *projection.UnitSummary
+func (c *Claim) Check(s *model.Summary) Verdict {
+	var u *model.UnitSummary
 	for i := range s.Units {
 		if s.Units[i].Name == c.Unit {
 			u = &s.Units[i]
@@ -134,7 +134,7 @@ func (c *Claim) Check(s *projection.Summary) Verdict {
 	if s.Apportioned == 0 {
 		return Verdict{Found: "no draw could be apportioned"}
 	}
-	var sh projection.Share
+	var sh model.Share
 	what := ""
 	switch c.Kind {
 	case "lose-above", "lose-below":

@@ -1,18 +1,27 @@
-package forecast
+package projection
 
 import (
 	"context"
 	"strconv"
 	"strings"
+	"unicode/utf8"
 
 	"seatsmith/engine"
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/projection"
+	model "seatsmith/engine/projection"
 )
 
-// MaxDraws is the most draws one block makes: a page runs in one tab.
-const MaxDraws = 200_000
+// Limits of a projection block: a page runs in one tab, and every unit is
+// a row of the block's table and chart.
+const (
+	// MaxDraws is the most draws one block makes.
+	MaxDraws = 200_000
+	// MaxUnits is the most units its counts may have, and MaxNameLength
+	// the most characters of a unit's name.
+	MaxUnits      = 1_000
+	MaxNameLength = 200
+)
 
 // A Config is one projection block: the counts, the scenario settings the
 // counts leave open, the projection and error model, the draws and the
@@ -27,10 +36,10 @@ type Config struct {
 	Seats      int
 	Method     engine.Method
 	Min        int
-	Target     projection.Date
-	Growth     projection.Growth
-	Fit        projection.Fit
-	Error      projection.Distribution
+	Target     model.Date
+	Growth     model.Growth
+	Fit        model.Fit
+	Error      model.Distribution
 	RSE        float64
 	RSEText    string // the relative standard error as written
 	Draws      int
@@ -63,7 +72,7 @@ func Parse(file string, line int, v *jsondoc.Value) (*Config, error) {
 	if v == nil || v.Kind != jsondoc.Object {
 		return nil, bad("", "a projection block is a JSON object")
 	}
-	c := &Config{File: file, Line: line, Growth: projection.Linear, Error: projection.Normal, Draws: 2000, Seed: 1}
+	c := &Config{File: file, Line: line, Growth: model.Linear, Error: model.Normal, Draws: 2000, Seed: 1}
 	for _, f := range v.Fields {
 		x := f.Value
 		text := scalarText(x)
@@ -106,31 +115,31 @@ func Parse(file string, line int, v *jsondoc.Value) (*Config, error) {
 			}
 			c.Method = m
 		case "target":
-			d, err := projection.ParseDate(strings.TrimSpace(text))
+			d, err := model.ParseDate(strings.TrimSpace(text))
 			if err != nil {
 				return nil, bad("target", err.Error())
 			}
 			c.Target = d
 		case "growth":
-			g, err := projection.ParseGrowth(strings.TrimSpace(text))
+			g, err := model.ParseGrowth(strings.TrimSpace(text))
 			if err != nil {
 				return nil, bad("growth", err.Error())
 			}
 			c.Growth = g
 		case "fit":
-			ft, err := projection.ParseFit(strings.TrimSpace(text))
+			ft, err := model.ParseFit(strings.TrimSpace(text))
 			if err != nil {
 				return nil, bad("fit", err.Error())
 			}
 			c.Fit = ft
 		case "error":
-			d, err := projection.ParseDistribution(strings.TrimSpace(text))
+			d, err := model.ParseDistribution(strings.TrimSpace(text))
 			if err != nil {
 				return nil, bad("error", err.Error())
 			}
 			c.Error = d
 		case "rse":
-			r, err := projection.ParseRSE(strings.TrimSpace(text))
+			r, err := model.ParseRSE(strings.TrimSpace(text))
 			if err != nil {
 				return nil, bad("rse", err.Error())
 			}
@@ -148,7 +157,7 @@ func Parse(file string, line int, v *jsondoc.Value) (*Config, error) {
 	if c.Counts == "" {
 		return nil, bad("counts", "missing: give the counts")
 	}
-	if c.Target == (projection.Date{}) {
+	if c.Target == (model.Date{}) {
 		return nil, bad("target", "missing: give the date to project to")
 	}
 	return c, nil
@@ -168,14 +177,24 @@ func scalarText(v *jsondoc.Value) string {
 
 // Study reads the counts and prepares the study (no draws made yet).
 // Errors name the counts file, line and field.
-func (c *Config) Study() (*projection.Study, error) {
+func (c *Config) Study() (*model.Study, error) {
 	name := c.CountsFile
 	if name == "" {
 		name = "counts"
 	}
-	counts, err := projection.ReadCounts(name, strings.NewReader(c.Counts))
+	counts, err := model.ReadCounts(name, strings.NewReader(c.Counts))
 	if err != nil {
 		return nil, err
+	}
+	if n := len(counts.Series); n > MaxUnits {
+		return nil, &input.Error{File: c.File, Line: c.Line, Field: "counts", Msg: strconv.Itoa(n) + " units is more than the limit of " +
+			strconv.Itoa(MaxUnits) + " units a projection block shows; the command-line tool takes more"}
+	}
+	for i, s := range counts.Series {
+		if n := utf8.RuneCountInString(s.Name); n > MaxNameLength {
+			return nil, &input.Error{File: c.File, Line: c.Line, Field: "counts", Msg: "unit " + strconv.Itoa(i+1) + ": a name of " + strconv.Itoa(n) +
+				" characters is longer than the limit of " + strconv.Itoa(MaxNameLength) + " characters"}
+		}
 	}
 	if !counts.Given["seats"] && c.Seats > 0 {
 		counts.Scenario.Seats = c.Seats
@@ -202,14 +221,14 @@ func (c *Config) Study() (*projection.Study, error) {
 		}
 	}
 	target := c.Target
-	return projection.New(counts, projection.Options{
+	return model.New(counts, model.Options{
 		Target: &target, Growth: c.Growth, Fit: c.Fit, Error: c.Error, RSE: c.RSE,
-		Draws: c.Draws, Seed: c.Seed, Workers: 1, Contest: projection.DefaultContest,
+		Draws: c.Draws, Seed: c.Seed, Workers: 1, Contest: model.DefaultContest,
 	})
 }
 
 // Run prepares the study and makes every draw: what the site build does.
-func (c *Config) Run(ctx context.Context) (*projection.Summary, error) {
+func (c *Config) Run(ctx context.Context) (*model.Summary, error) {
 	st, err := c.Study()
 	if err != nil {
 		return nil, err

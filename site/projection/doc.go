@@ -1,4 +1,4 @@
-// Package forecast is the projection block of the seatsmith site: a set of
+// Package projection is the projection block of the seatsmith site: a set of
 // dated counts projected to a target date, a seeded Monte Carlo study of a
 // count error around the projection, and every unit's chance of each seat
 // count and of gaining or losing a seat against the apportionment of the
@@ -21,4 +21,4 @@
 // WebAssembly engine. Results are estimates under an assumed growth and
 // error model, not official figures: the governing law, the official counts
 // and the responsible authority decide any apportionment.
-package forecast
+package projection

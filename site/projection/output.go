@@ -1,20 +1,20 @@
-package forecast
+package projection
 
 import (
 	"math"
 	"strconv"
 
-	"seatsmith/engine/projection"
-	"seatsmith/engine/report"
+	model "seatsmith/engine/projection"
 	. "seatsmith/engine/render"
+	"seatsmith/engine/report"
 )
 
 // Form is the block's controls: the target date, growth model, error
 // model, relative standard error, draws, seed and the counts. enabled is
 // false for the prerendered page, where the controls wait for the engine.
 func Form(c *Config, id string, enabled bool) *Node {
-	f := El("form", "class", "fc-form", "data-role", "forecast-form", "novalidate", "", "aria-describedby", id+"-form-note")
-	fs := El("fieldset", "class", "fc-fields")
+	f := El("form", "class", "pj-form", "data-role", "projection-form", "novalidate", "", "aria-describedby", id+"-form-note")
+	fs := El("fieldset", "class", "pj-fields")
 	if !enabled {
 		fs.Set("disabled", "")
 	}
@@ -22,11 +22,11 @@ func Form(c *Config, id string, enabled bool) *Node {
 	field := func(name, label, hint string, control *Node) {
 		fid := id + "-" + name
 		control.Set("id", fid).Set("name", name)
-		wrap := El("div", "class", "fc-field")
+		wrap := El("div", "class", "pj-field")
 		wrap.Add(Wrap("label", label, "for", fid))
 		if hint != "" {
 			control.Set("aria-describedby", fid+"-hint")
-			wrap.Add(control, Wrap("small", hint, "id", fid+"-hint", "class", "fc-hint"))
+			wrap.Add(control, Wrap("small", hint, "id", fid+"-hint", "class", "pj-hint"))
 		} else {
 			wrap.Add(control)
 		}
@@ -43,35 +43,35 @@ func Form(c *Config, id string, enabled bool) *Node {
 	field("draws", "Draws", "1 to "+strconv.Itoa(MaxDraws), El("input", "type", "text", "inputmode", "numeric", "autocomplete", "off", "value", strconv.Itoa(c.Draws), "data-field", "draws"))
 	field("seed", "Seed", "the same seed gives the same numbers", El("input", "type", "text", "inputmode", "numeric", "autocomplete", "off", "value", strconv.FormatUint(c.Seed, 10), "data-field", "seed"))
 	f.Add(fs)
-	det := El("details", "class", "fc-counts")
+	det := El("details", "class", "pj-counts")
 	det.Add(Wrap("summary", "The dated counts (CSV: name, date, population, rse)"))
 	cid := id + "-counts"
-	det.Add(Wrap("label", "Counts", "for", cid, "class", "fc-counts-label"))
+	det.Add(Wrap("label", "Counts", "for", cid, "class", "pj-counts-label"))
 	ta := El("textarea", "id", cid, "name", "counts", "rows", "12", "spellcheck", "false", "data-field", "counts")
 	if !enabled {
 		ta.Set("disabled", "")
 	}
 	det.Add(ta.AddText(c.Counts))
 	f.Add(det)
-	bar := El("div", "class", "fc-actions")
-	run := El("button", "type", "submit", "data-role", "forecast-run").AddText("Run the draws")
-	cancel := El("button", "type", "button", "data-role", "forecast-cancel", "disabled", "").AddText("Cancel")
+	bar := El("div", "class", "pj-actions")
+	run := El("button", "type", "submit", "data-role", "projection-run").AddText("Run the draws")
+	cancel := El("button", "type", "button", "data-role", "projection-cancel", "disabled", "").AddText("Cancel")
 	if !enabled {
 		run.Set("disabled", "")
 	}
 	bar.Add(run, cancel)
 	f.Add(bar)
-	prog := El("div", "class", "fc-progress", "data-role", "forecast-progress", "role", "progressbar", "aria-label", "Draws made",
+	prog := El("div", "class", "pj-progress", "data-role", "projection-progress", "role", "progressbar", "aria-label", "Draws made",
 		"aria-valuemin", "0", "aria-valuemax", strconv.Itoa(c.Draws), "aria-valuenow", "0")
-	prog.Add(El("span", "class", "fc-progress-bar", "data-role", "forecast-progress-bar"))
+	prog.Add(El("span", "class", "pj-progress-bar", "data-role", "projection-progress-bar"))
 	f.Add(prog)
-	f.Add(Wrap("p", "", "class", "fc-status", "data-role", "forecast-status", "aria-live", "polite"))
-	f.Add(Wrap("p", "", "class", "fc-error", "data-role", "forecast-error", "role", "alert", "hidden", ""))
+	f.Add(Wrap("p", "", "class", "pj-status", "data-role", "projection-status", "aria-live", "polite"))
+	f.Add(Wrap("p", "", "class", "pj-error", "data-role", "projection-error", "role", "alert", "hidden", ""))
 	note := "The draws run in the background of this page, in your browser; nothing is sent anywhere."
 	if !enabled {
 		note = "The numbers below were computed when the page was built. With JavaScript on, the controls run the draws again in your browser."
 	}
-	f.Add(Wrap("p", note, "id", id+"-form-note", "class", "fc-hint"))
+	f.Add(Wrap("p", note, "id", id+"-form-note", "class", "pj-hint"))
 	return f
 }
 
@@ -88,14 +88,14 @@ func choice(cur, field string, opts [][2]string) *Node {
 // Output is the result of a study: the setup in words, the probability
 // chart, the table of every unit with the same numbers, the claims with
 // their verdicts and the caution.
-func Output(c *Config, s *projection.Summary, id string) *Node {
-	out := El("div", "class", "fc-output", "data-role", "forecast-output", "data-draws", strconv.Itoa(s.Draws),
+func Output(c *Config, s *model.Summary, id string) *Node {
+	out := El("div", "class", "pj-output", "data-role", "projection-output", "data-draws", strconv.Itoa(s.Draws),
 		"data-apportioned", strconv.FormatInt(s.Apportioned, 10), "data-seed", strconv.FormatUint(s.Seed, 10))
 	if c.Title != "" {
 		out.Add(Wrap("h3", c.Title))
 	}
 	fit := "least squares over every count"
-	if s.Fit == projection.LastTwo {
+	if s.Fit == model.LastTwo {
 		fit = "through the two latest counts"
 	}
 	setup := s.Method.Name() + ", " + strconv.Itoa(s.Seats) + " seats. Counts projected to " + s.Target.String() + " by " +
@@ -114,15 +114,15 @@ func Output(c *Config, s *projection.Summary, id string) *Node {
 		setup += ", " + strconv.FormatInt(s.Failed, 10) + " could not be"
 	}
 	setup += "."
-	out.Add(Wrap("p", setup, "class", "fc-setup", "data-role", "forecast-setup"))
+	out.Add(Wrap("p", setup, "class", "pj-setup", "data-role", "projection-setup"))
 	if s.Apportioned > 0 {
 		out.Add(Wrap("p", "Each share is an estimate from the draws, within "+strconv.FormatFloat(50/math.Sqrt(float64(s.Apportioned)), 'f', 2, 64)+
-			" percentage points (one standard error at most). Losing and gaining are against the seats of the latest counts.", "class", "fc-hint"))
+			" percentage points (one standard error at most). Losing and gaining are against the seats of the latest counts.", "class", "pj-hint"))
 	}
 	out.Add(chart(s, id))
 	out.Add(table(s, id))
 	if len(c.Claims) > 0 {
-		ul := El("ul", "class", "fc-claims", "data-role", "forecast-claims", "aria-label", "Claims checked against these draws")
+		ul := El("ul", "class", "pj-claims", "data-role", "projection-claims", "aria-label", "Claims checked against these draws")
 		for i := range c.Claims {
 			cl := &c.Claims[i]
 			v := cl.Check(s)
@@ -134,14 +134,14 @@ func Output(c *Config, s *projection.Summary, id string) *Node {
 			if !v.Holds {
 				verdict = "does not hold"
 			}
-			li := El("li", "data-claim", cl.ID, "data-holds", strconv.FormatBool(v.Holds), "class", "fc-claim")
-			li.Add(Wrap("span", verdict, "class", "fc-verdict"), Text(" "+text+" "), Wrap("small", "("+v.Found+")", "class", "fc-hint"))
+			li := El("li", "data-claim", cl.ID, "data-holds", strconv.FormatBool(v.Holds), "class", "pj-claim")
+			li.Add(Wrap("span", verdict, "class", "pj-verdict"), Text(" "+text+" "), Wrap("small", "("+v.Found+")", "class", "pj-hint"))
 			ul.Add(li)
 		}
 		out.Add(ul)
 	}
 	out.Add(Wrap("p", "A projection is an estimate from a growth model and an assumed error, not a forecast of record. "+report.Caution,
-		"class", "fc-caution", "data-role", "caution"))
+		"class", "pj-caution", "data-role", "caution"))
 	return out
 }
 
@@ -158,7 +158,7 @@ func join(xs []string) string {
 
 // shareText writes a share of n draws for people: one decimal, "<0.1%"
 // and ">99.9%" near the ends, "0" and "100%" only when exact.
-func shareText(sh projection.Share, n int64) string {
+func shareText(sh model.Share, n int64) string {
 	switch {
 	case sh.Draws == 0:
 		return "0"
@@ -172,8 +172,8 @@ func shareText(sh projection.Share, n int64) string {
 	return strconv.FormatFloat(100*sh.P, 'f', 1, 64) + "%"
 }
 
-func table(s *projection.Summary, id string) *Node {
-	t := El("table", "class", "fc-table", "data-role", "forecast-table")
+func table(s *model.Summary, id string) *Node {
+	t := El("table", "class", "pj-table", "data-role", "projection-table")
 	t.Add(Wrap("caption", "Every unit: its latest count, the projection, its seats now and at the projection, and the share of draws in which it loses or gains a seat or gets each seat count."))
 	head := El("tr")
 	for _, h := range []string{"Unit", "Latest count", "Projected", "Seats now", "At projection", "Loses a seat", "Gains a seat", "Seats in the draws"} {
@@ -197,7 +197,7 @@ func table(s *projection.Summary, id string) *Node {
 		tr.Add(Wrap("td", latest, "class", "num"), Wrap("td", proj, "class", "num"), Wrap("td", strconv.Itoa(u.BaselineSeats), "class", "num"),
 			Wrap("td", strconv.Itoa(u.CentralSeats), "class", "num"), Wrap("td", shareText(u.Lose, n), "class", "num"),
 			Wrap("td", shareText(u.Gain, n), "class", "num"))
-		dist := El("td", "class", "fc-dist")
+		dist := El("td", "class", "pj-dist")
 		for k, d := range u.Dist {
 			if k > 0 {
 				dist.AddText(" ")
@@ -226,14 +226,14 @@ const (
 // each as wide as its share: fewer seats than now, the same, or more (by
 // class, with the seat count written in every segment wide enough). At the
 // right stand the shares of losing and gaining a seat.
-func chart(s *projection.Summary, id string) *Node {
-	fig := El("figure", "class", "fc-chart", "data-role", "forecast-chart")
+func chart(s *model.Summary, id string) *Node {
+	fig := El("figure", "class", "pj-chart", "data-role", "projection-chart")
 	cap := id + "-chart-caption"
 	fig.Add(Wrap("figcaption", "Seats each unit gets across the draws: every bar is all the draws, split by seat count; the number in a segment is the seat count. The table below holds the same numbers.", "id", cap))
 	h := chartTop + rowH*float64(len(s.Units)) + chartFoot
-	svg := El("svg", "viewBox", "0 0 "+num(chartW)+" "+num(h), "role", "img", "aria-labelledby", id+"-chart-title "+cap, "class", "fc-svg")
+	svg := El("svg", "viewBox", "0 0 "+num(chartW)+" "+num(h), "role", "img", "aria-labelledby", id+"-chart-title "+cap, "class", "pj-svg")
 	svg.Add(Wrap("title", "Chance of each seat count, by unit", "id", id+"-chart-title"))
-	hd := El("g", "class", "fc-axis")
+	hd := El("g", "class", "pj-axis")
 	hd.Add(Wrap("text", "seats now", "x", num(labelW), "y", "14", "text-anchor", "end"))
 	hd.Add(Wrap("text", "share of draws", "x", num(barX), "y", "14"))
 	hd.Add(Wrap("text", "lose / gain", "x", num(chartW), "y", "14", "text-anchor", "end"))
@@ -241,35 +241,35 @@ func chart(s *projection.Summary, id string) *Node {
 	n := s.Apportioned
 	for i, u := range s.Units {
 		y := chartTop + rowH*float64(i)
-		g := El("g", "class", "fc-row", "data-unit", u.Name)
-		g.Add(Wrap("text", u.Name+" "+strconv.Itoa(u.BaselineSeats), "x", num(labelW), "y", num(y+rowH/2+4), "text-anchor", "end", "class", "fc-name"))
-		g.Add(El("rect", "x", num(barX), "y", num(y+4), "width", num(barW), "height", num(rowH-8), "class", "fc-track"))
+		g := El("g", "class", "pj-row", "data-unit", u.Name)
+		g.Add(Wrap("text", u.Name+" "+strconv.Itoa(u.BaselineSeats), "x", num(labelW), "y", num(y+rowH/2+4), "text-anchor", "end", "class", "pj-name"))
+		g.Add(El("rect", "x", num(barX), "y", num(y+4), "width", num(barW), "height", num(rowH-8), "class", "pj-track"))
 		x := barX
 		for _, d := range u.Dist {
 			w := barW * d.P
-			cls := "fc-same"
+			cls := "pj-same"
 			switch {
 			case d.Seats < u.BaselineSeats:
-				cls = "fc-fewer"
+				cls = "pj-fewer"
 			case d.Seats > u.BaselineSeats:
-				cls = "fc-more"
+				cls = "pj-more"
 			}
-			seg := El("rect", "x", num(x), "y", num(y+4), "width", num(w), "height", num(rowH-8), "class", "fc-seg "+cls)
+			seg := El("rect", "x", num(x), "y", num(y+4), "width", num(w), "height", num(rowH-8), "class", "pj-seg "+cls)
 			seg.Add(Wrap("title", u.Name+": "+strconv.Itoa(d.Seats)+" seats in "+shareText(d.Share, n)+" of the draws"))
 			g.Add(seg)
 			if w >= 16 {
-				g.Add(Wrap("text", strconv.Itoa(d.Seats), "x", num(x+w/2), "y", num(y+rowH/2+4), "text-anchor", "middle", "class", "fc-seglabel "+cls))
+				g.Add(Wrap("text", strconv.Itoa(d.Seats), "x", num(x+w/2), "y", num(y+rowH/2+4), "text-anchor", "middle", "class", "pj-seglabel "+cls))
 			}
 			x += w
 		}
-		g.Add(Wrap("text", shareText(u.Lose, n)+" / "+shareText(u.Gain, n), "x", num(chartW), "y", num(y+rowH/2+4), "text-anchor", "end", "class", "fc-odds"))
+		g.Add(Wrap("text", shareText(u.Lose, n)+" / "+shareText(u.Gain, n), "x", num(chartW), "y", num(y+rowH/2+4), "text-anchor", "end", "class", "pj-odds"))
 		svg.Add(g)
 	}
 	ly := chartTop + rowH*float64(len(s.Units)) + 10
-	leg := El("g", "class", "fc-legend")
+	leg := El("g", "class", "pj-legend")
 	lx := barX
-	for _, l := range [][2]string{{"fc-fewer", "fewer than now"}, {"fc-same", "as now"}, {"fc-more", "more than now"}} {
-		leg.Add(El("rect", "x", num(lx), "y", num(ly), "width", "12", "height", "12", "class", "fc-seg "+l[0]))
+	for _, l := range [][2]string{{"pj-fewer", "fewer than now"}, {"pj-same", "as now"}, {"pj-more", "more than now"}} {
+		leg.Add(El("rect", "x", num(lx), "y", num(ly), "width", "12", "height", "12", "class", "pj-seg "+l[0]))
 		leg.Add(Wrap("text", l[1], "x", num(lx+16), "y", num(ly+10)))
 		lx += 16 + 7*float64(len(l[1])) + 10
 	}

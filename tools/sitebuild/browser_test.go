@@ -2,8 +2,8 @@ package main
 
 // Browser tests: the built site in real headless Chromium. They need
 // /usr/bin/chromium (or SEATSMITH_CHROMIUM); without it they skip locally
-// and fail when CI is set. SEATSMITH_WASM names a prebuilt engine to use
-// instead of building ./wasm.
+// and fail when CI is set. SEATSMITH_WASM names a folder of prebuilt
+// modules (as wasmbuild.Build writes them) to use instead of building them.
 
 import (
 	"bufio"
@@ -42,18 +42,13 @@ func builtSite(t testing.TB) string {
 			builtErr = err
 			return
 		}
-		var eng []byte
-		if p := os.Getenv("SEATSMITH_WASM"); p != "" {
-			eng, err = os.ReadFile(p)
-		} else {
-			eng, err = buildEngine("")
-		}
+		eng, err := buildEngines(os.Getenv("SEATSMITH_WASM"))
 		if err != nil {
 			builtErr = err
 			return
 		}
 		builtDir = filepath.Join(dir, "site")
-		_, builtErr = Build(Options{Src: siteSrc, Out: builtDir, Engine: eng})
+		_, builtErr = Build(Options{Src: siteSrc, Out: builtDir, Engines: eng})
 	})
 	if builtErr != nil {
 		t.Fatalf("building the site: %v", builtErr)
@@ -186,7 +181,7 @@ func (tb *tab) waitFor(what, js string) {
 	}
 }
 
-const allLive = `document.querySelectorAll('[data-seatsmith], [data-forecast]').length > 0 && [...document.querySelectorAll('[data-seatsmith], [data-forecast]')].every(e => e.dataset.state === 'live')`
+const allLive = `document.querySelectorAll('[data-seatsmith], [data-projection]').length > 0 && [...document.querySelectorAll('[data-seatsmith], [data-projection]')].every(e => e.dataset.state === 'live')`
 
 func (tb *tab) messages() []string {
 	tb.mu.Lock()

@@ -20,9 +20,10 @@ import (
 type Options struct {
 	Src  string // the site sources (pages/, static/, scenarios/, layout.html)
 	Out  string // the folder to write
-	Wasm string // a prebuilt engine to use instead of building one
-	// Engine, when not nil, is the engine itself (tests build it once).
-	Engine []byte
+	Wasm string // a folder of prebuilt modules to use instead of building them
+	// Engines, when not nil, are the modules themselves (tests build them
+	// once).
+	Engines *Engines
 }
 
 // Stats count what a build wrote.
@@ -91,7 +92,7 @@ func Build(opt Options) (*Stats, error) {
 		return nil, err
 	}
 	add(fingerprint("assets", "favicon.svg", iconMin))
-	bridgeRaw, err := read(filepath.Join(root, "wasm", "bridge.js"))
+	bridgeRaw, err := read(filepath.Join(root, "wasm", "js", "bridge.js"))
 	if err != nil {
 		return nil, err
 	}
@@ -109,14 +110,16 @@ func Build(opt Options) (*Stats, error) {
 		return nil, err
 	}
 	add(fingerprint("assets", "wasm_exec.js", execMin))
-	eng := opt.Engine
-	if eng == nil {
-		if eng, err = buildEngine(opt.Wasm); err != nil {
+	engines := opt.Engines
+	if engines == nil {
+		if engines, err = buildEngines(opt.Wasm); err != nil {
 			return nil, err
 		}
 	}
+	eng := engines.Calculator
 	add(fingerprint("assets", "seatsmith.wasm", eng))
-	if err := addForecastAssets(root, opt.Src, m, add); err != nil {
+	add(fingerprint("assets", "seatsmith-analysis.wasm", engines.Analysis))
+	if err := addProjectionAssets(root, opt.Src, m, add); err != nil {
 		return nil, err
 	}
 	data, _ := filepath.Glob(filepath.Join(opt.Src, "scenarios", "*"))
@@ -138,6 +141,7 @@ func Build(opt Options) (*Stats, error) {
 	files["embed/bridge.js"] = bridgeMin
 	files["embed/wasm_exec.js"] = execMin
 	files["embed/seatsmith.wasm"] = eng
+	files["embed/seatsmith-analysis.wasm"] = engines.Analysis
 	files["embed/seatsmith.css"] = cssMin
 
 	layout, err := read(filepath.Join(opt.Src, "layout.html"))

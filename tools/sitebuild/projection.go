@@ -11,39 +11,39 @@ import (
 
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/projection"
-	"seatsmith/site/forecast"
+	model "seatsmith/engine/projection"
+	"seatsmith/site/projection"
 
 	"github.com/tdewolff/minify/v2"
 )
 
-// A forecastRef is a projection block of a page: a <div data-forecast>
+// A projectionRef is a projection block of a page: a <div data-projection>
 // holding one <script type="application/json"> element with its document
-// (see site/forecast.Parse), whose "counts_file" names a file under the
+// (see site/projection.Parse), whose "counts_file" names a file under the
 // site's scenarios/ folder. The build reads that file into the document,
 // runs the study natively with the block's fixed seed, checks its claims
 // and puts the prerendered block in place of the source.
-type forecastRef struct {
+type projectionRef struct {
 	ID      string
 	Line    int
-	Config  *forecast.Config
-	Summary *projection.Summary
+	Config  *projection.Config
+	Summary *model.Summary
 }
 
-var forecastOpen = regexp.MustCompile(`<div\b[^>]*\bdata-forecast\b[^>]*>`)
+var projectionOpen = regexp.MustCompile(`<div\b[^>]*\bdata-projection\b[^>]*>`)
 
-// expandForecasts replaces every projection block in p.Source by its
+// expandProjections replaces every projection block in p.Source by its
 // prerendered markup (keeping the page's line count) and records the
-// blocks in p.Forecasts. It returns a message for every claim that does
+// blocks in p.Projections. It returns a message for every claim that does
 // not hold; bad input is an *input.Error naming page, line and field.
-func expandForecasts(p *page) ([]string, error) {
+func expandProjections(p *page) ([]string, error) {
 	src := p.Source
 	scenarios := filepath.Join(filepath.Dir(filepath.Dir(p.File)), "scenarios")
 	var out strings.Builder
 	var bad []string
 	last := 0
 	ids := map[string]bool{}
-	for _, loc := range forecastOpen.FindAllStringIndex(src, -1) {
+	for _, loc := range projectionOpen.FindAllStringIndex(src, -1) {
 		line := lineAt(src, loc[0])
 		fail := func(field, msg string) error { return &input.Error{File: p.File, Line: line, Field: field, Msg: msg} }
 		id := ""
@@ -99,7 +99,7 @@ func expandForecasts(p *page) ([]string, error) {
 				v.Set("counts", jsondoc.Str(string(data)))
 			}
 		}
-		cfg, err := forecast.Parse(p.File, line, v)
+		cfg, err := projection.Parse(p.File, line, v)
 		if err != nil {
 			return nil, err
 		}
@@ -127,13 +127,13 @@ func expandForecasts(p *page) ([]string, error) {
 		// The markup goes into the page template's text: no "{{" may stay,
 		// and the JSON may not close its element.
 		js = strings.ReplaceAll(strings.ReplaceAll(js, "</", `<\/`), "{{", `{\u007b`)
-		html := forecast.Prerender(cfg, id, js, s)
+		html := projection.Prerender(cfg, id, js, s)
 		html = strings.ReplaceAll(html, "{{", "{&#123;")
 		out.WriteString(src[last:loc[0]])
 		out.WriteString(html)
 		out.WriteString(strings.Repeat("\n", strings.Count(src[loc[0]:blockEnd], "\n")))
 		last = blockEnd
-		p.Forecasts = append(p.Forecasts, &forecastRef{ID: id, Line: line, Config: cfg, Summary: s})
+		p.Projections = append(p.Projections, &projectionRef{ID: id, Line: line, Config: cfg, Summary: s})
 	}
 	if last == 0 {
 		return nil, nil
@@ -143,12 +143,12 @@ func expandForecasts(p *page) ([]string, error) {
 	return bad, nil
 }
 
-// forecastGolden writes what a page's projection blocks show: every unit's
+// projectionGolden writes what a page's projection blocks show: every unit's
 // seats now and at the projection, the draws that lose and gain a seat and
 // the seat counts drawn, then every claim's verdict.
-func forecastGolden(p *page) string {
+func projectionGolden(p *page) string {
 	var b strings.Builder
-	for _, f := range p.Forecasts {
+	for _, f := range p.Projections {
 		s := f.Summary
 		b.WriteString("\nprojection " + f.ID + ": " + s.Method.String() + ", " + strconv.Itoa(s.Seats) + " seats, to " + s.Target.String() +
 			", " + s.Growth.String() + ", " + s.Error.String() + " rse " + strconv.FormatFloat(s.RSE, 'g', -1, 64) +
@@ -174,18 +174,18 @@ func forecastGolden(p *page) string {
 	return b.String()
 }
 
-// forecastAssets are the projection block's own files: its stylesheet,
+// projectionAssets are the projection block's own files: its stylesheet,
 // the page script and the worker that runs the engine.
-var forecastAssets = []struct{ name, dir, mediatype string }{
-	{"forecast.css", "site/static", "text/css"},
-	{"forecast.js", "wasm", "text/javascript"},
-	{"forecast-worker.js", "wasm", "text/javascript"},
+var projectionAssets = []struct{ name, dir, mediatype string }{
+	{"projection.css", "site/static", "text/css"},
+	{"projection.js", "wasm/js", "text/javascript"},
+	{"projection-worker.js", "wasm/js", "text/javascript"},
 }
 
-// addForecastAssets minifies and fingerprints the projection block's
+// addProjectionAssets minifies and fingerprints the projection block's
 // files and hands each to add.
-func addForecastAssets(root, src string, m *minify.M, add func(asset)) error {
-	for _, a := range forecastAssets {
+func addProjectionAssets(root, src string, m *minify.M, add func(asset)) error {
+	for _, a := range projectionAssets {
 		dir := filepath.Join(root, a.dir)
 		if a.dir == "site/static" {
 			dir = filepath.Join(src, "static")

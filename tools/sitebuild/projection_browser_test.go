@@ -12,10 +12,10 @@ import (
 	"github.com/chromedp/chromedp"
 )
 
-// TestForecastBrowser drives the projection page in headless Chromium: the
+// TestProjectionBrowser drives the projection page in headless Chromium: the
 // worker's run with the page's seed gives the native numbers, progress
 // advances, cancel stops a run, and bad input shows an inline error.
-func TestForecastBrowser(t *testing.T) {
+func TestProjectionBrowser(t *testing.T) {
 	chromiumPath(t)
 	dir := builtSite(t)
 	h, err := siteHandler(dir)
@@ -28,11 +28,11 @@ func TestForecastBrowser(t *testing.T) {
 	bctx := browser(t)
 
 	p, bad, err := loadPage(filepath.Join(siteSrc, "pages", "projection.html"))
-	if err != nil || len(bad) > 0 || len(p.Forecasts) != 1 {
+	if err != nil || len(bad) > 0 || len(p.Projections) != 1 {
 		t.Fatalf("loading the page natively: %v %v", err, bad)
 	}
-	native := p.Forecasts[0].Summary
-	sel := "#" + p.Forecasts[0].ID
+	native := p.Projections[0].Summary
+	sel := "#" + p.Projections[0].ID
 
 	tb := newTab(t, bctx)
 	tb.do(chromedp.Navigate(origin + "projection.html"))
@@ -67,7 +67,7 @@ func TestForecastBrowser(t *testing.T) {
 	if eval[int](tb, `document.querySelectorAll('`+sel+` [data-role=caution]').length`) != 1 {
 		t.Error("the result shows no caution")
 	}
-	if eval[int](tb, `document.querySelectorAll('`+sel+` svg.fc-svg rect.fc-seg').length`) < len(native.Units) {
+	if eval[int](tb, `document.querySelectorAll('`+sel+` svg.pj-svg rect.pj-seg').length`) < len(native.Units) {
 		t.Error("the chart has fewer segments than units")
 	}
 
@@ -78,13 +78,13 @@ func TestForecastBrowser(t *testing.T) {
 		tb.do(chromedp.Evaluate[chromedp.Void](`(() => { const e = document.querySelector('` + sel + ` [data-field="` + field + `"]'); e.value = ` + strconv.Quote(value) + `; })()`))
 	}
 	setField("draws", "200000")
-	tb.do(chromedp.Click(chromedp.CSS(sel + ` [data-role=forecast-run]`)))
+	tb.do(chromedp.Click(chromedp.CSS(sel + ` [data-role=projection-run]`)))
 	tb.waitFor("progress", `+document.querySelector('`+sel+`').dataset.progress >= 500`)
 	if eval[string](tb, `document.querySelector('`+sel+`').dataset.state`) != "running" {
 		t.Fatal("the long run is not running")
 	}
 	// Keyboard: the cancel button is reached and pressed by keys.
-	tb.do(chromedp.Focus(chromedp.CSS(sel + ` [data-role=forecast-cancel]`)))
+	tb.do(chromedp.Focus(chromedp.CSS(sel + ` [data-role=projection-cancel]`)))
 	tb.do(chromedp.KeyEvent("\r"))
 	tb.waitFor("cancelled", `document.querySelector('`+sel+`').dataset.state === 'cancelled'`)
 	stopped := eval[string](tb, `document.querySelector('`+sel+`').dataset.progress`)
@@ -95,21 +95,21 @@ func TestForecastBrowser(t *testing.T) {
 	if n, _ := strconv.Atoi(stopped); n >= 200000 {
 		t.Errorf("cancel came after every draw (%d)", n)
 	}
-	if d := eval[string](tb, `document.querySelector('`+sel+` [data-role=forecast-output]').dataset.draws`); d != "2000" {
+	if d := eval[string](tb, `document.querySelector('`+sel+` [data-role=projection-output]').dataset.draws`); d != "2000" {
 		t.Errorf("after cancel the result shows %s draws, want the previous run's 2000", d)
 	}
 
 	// Bad input: an inline error naming the field, and the page still works.
 	setField("draws", "2000")
 	setField("target", "2030-13-45")
-	tb.do(chromedp.Click(chromedp.CSS(sel + ` [data-role=forecast-run]`)))
+	tb.do(chromedp.Click(chromedp.CSS(sel + ` [data-role=projection-run]`)))
 	tb.waitFor("an error", `document.querySelector('`+sel+`').dataset.state === 'error'`)
 	if msg := eval[string](tb, `document.querySelector('`+sel+` [role=alert]').textContent`); !strings.Contains(msg, "target") {
 		t.Errorf("the error says %q; want it to name the target", msg)
 	}
 	setField("target", "2030-04-01")
 	setField("counts", "name,date,population\nOrlen,2010-04-01,many\n")
-	tb.do(chromedp.Click(chromedp.CSS(sel + ` [data-role=forecast-run]`)))
+	tb.do(chromedp.Click(chromedp.CSS(sel + ` [data-role=projection-run]`)))
 	tb.waitFor("an error", `document.querySelector('`+sel+`').dataset.state === 'error' && /line 2/.test(document.querySelector('`+sel+` [role=alert]').textContent)`)
 	tb.do(chromedp.Navigate(origin + "projection.html"))
 	tb.waitFor("live again", `document.querySelector('`+sel+`').dataset.state === 'live'`)

@@ -86,7 +86,7 @@ func cmdServe(args []string, stdout, stderr io.Writer) error {
 	fs := flag.NewFlagSet("serve", flag.ContinueOnError)
 	src := fs.String("src", filepath.Join("site", "content"), "the site sources")
 	addr := fs.String("addr", "127.0.0.1:8080", "the address to listen on")
-	wasm := fs.String("wasm", "", "use this prebuilt engine (.wasm) instead of building it")
+	wasm := fs.String("wasm", "", "use the prebuilt modules in `DIR` (seatsmith.wasm, seatsmith-analysis.wasm) instead of building them")
 	if err := parseFlags(fs, args, stderr); err != nil {
 		return err
 	}

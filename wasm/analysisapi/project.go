@@ -1,4 +1,4 @@
-package main
+package analysisapi
 
 import (
 	"context"
@@ -7,51 +7,49 @@ import (
 
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/projection"
-	"seatsmith/engine/report"
-	"seatsmith/site/forecast"
+	model "seatsmith/engine/projection"
 	"seatsmith/engine/render"
+	"seatsmith/engine/report"
+	"seatsmith/site/projection"
 )
 
-// The projection functions run a study in chunks, so that a page's worker
-// can report progress and stop between them:
+// The projection functions make a projection block's draws in chunks, so
+// that a page's worker can report progress and stop between them:
 //
 //	projectStart(block)        → {id, draws}: reads a projection block
-//	                             (site/forecast.Parse; counts as text)
-//	                             and prepares its study, no draws made
+//	                             (site/projection.Parse; counts as text)
+//	                             and prepares its run, no draws made
 //	projectRun({id, draws: k}) → {done, draws}: makes the next k draws
 //	projectResult({id, block}) → {document, view, claims}: the projection
 //	                             document (report.Projection), the result
-//	                             markup (forecast.Output as a render tree,
-//	                             element ids prefixed by block) and each
-//	                             claim's {id, holds, found}
-//	projectDrop({id})          → null: forgets the study
+//	                             markup (projection.Output as a render
+//	                             tree, element ids prefixed by block) and
+//	                             each claim's {id, holds, found}
+//	projectDrop({id})          → null: forgets the run
 //
 // Draw i depends on the seed and i alone, so the chunks give the numbers
 // one native run gives.
-func init() {
-	register("projectStart", projectStart)
-	register("projectRun", projectRun)
-	register("projectResult", projectResult)
-	register("projectDrop", projectDrop)
+
+// A run is one projection block's draws, started by projectStart.
+type run struct {
+	cfg *projection.Config
+	st  *model.Study
 }
 
-type liveStudy struct {
-	cfg *forecast.Config
-	st  *projection.Study
-}
+// maxRuns is the most runs kept at once; starting another forgets the
+// oldest.
+const maxRuns = 4
 
-// maxStudies is the most studies kept at once; starting another forgets
-// the oldest.
-const maxStudies = 4
+// maxChunk is the most draws one projectRun call makes.
+const maxChunk = 10_000
 
 var (
-	studies   = map[int]*liveStudy{}
-	nextStudy = 1
+	runs    = map[int]*run{}
+	nextRun = 1
 )
 
-func projectStart(arg *jsondoc.Value) (*jsondoc.Value, error) {
-	cfg, err := forecast.Parse("", 0, arg)
+func projectStart(arg, _ *jsondoc.Value) (*jsondoc.Value, error) {
+	cfg, err := projection.Parse("", 0, arg)
 	if err != nil {
 		return nil, err
 	}
@@ -71,82 +69,81 @@ func projectStart(arg *jsondoc.Value) (*jsondoc.Value, error) {
 		}
 		return nil, err
 	}
-	for len(studies) >= maxStudies {
-		oldest := nextStudy
-		for id := range studies {
+	for len(runs) >= maxRuns {
+		oldest := nextRun
+		for id := range runs {
 			oldest = min(oldest, id)
 		}
-		delete(studies, oldest)
+		delete(runs, oldest)
 	}
-	id := nextStudy
-	nextStudy++
-	studies[id] = &liveStudy{cfg, st}
+	id := nextRun
+	nextRun++
+	runs[id] = &run{cfg, st}
 	return jsondoc.NewObject().Set("id", jsondoc.Int(id)).Set("draws", jsondoc.Int(cfg.Draws)), nil
 }
 
-func studyArg(arg *jsondoc.Value) (*liveStudy, error) {
-	if arg.Kind != jsondoc.Object {
-		return nil, &input.Error{Msg: "give {id: …} of a study from projectStart"}
+// runArg reads {id, draws, block}: the run, and the members each function
+// takes beside it.
+func runArg(arg *jsondoc.Value, draws *int, block *string) (*run, error) {
+	id := 0
+	table := []jsondoc.Member{{Key: "id", Read: jsondoc.ReadInt(&id, 1, 1<<31-1)}}
+	if draws != nil {
+		table = append(table, jsondoc.Member{Key: "draws", Read: jsondoc.ReadInt(draws, 1, maxChunk)})
 	}
-	v := arg.Get("id")
-	if v == nil || v.Kind != jsondoc.Number {
-		return nil, &input.Error{Field: "id", Msg: "missing: give the study's id"}
+	if block != nil {
+		table = append(table, jsondoc.Member{Key: "block", Read: jsondoc.ReadString(block)})
 	}
-	id, err := strconv.Atoi(v.Text)
-	if err != nil || studies[id] == nil {
-		return nil, &input.Error{Field: "id", Msg: "no study " + strconv.Quote(v.Text) + " (dropped or never started)"}
+	if err := jsondoc.Decode(arg, "the argument", table); err != nil {
+		return nil, err
 	}
-	return studies[id], nil
+	if id == 0 {
+		return nil, &input.Error{Field: "id", Msg: "missing: give the id projectStart returned"}
+	}
+	r := runs[id]
+	if r == nil {
+		return nil, &input.Error{Field: "id", Msg: "no run " + strconv.Itoa(id) + " (dropped or never started)"}
+	}
+	return r, nil
 }
 
-func projectRun(arg *jsondoc.Value) (*jsondoc.Value, error) {
-	ls, err := studyArg(arg)
+func projectRun(arg, _ *jsondoc.Value) (*jsondoc.Value, error) {
+	k := 500
+	r, err := runArg(arg, &k, nil)
 	if err != nil {
 		return nil, err
 	}
-	k := 500
-	if v := arg.Get("draws"); v != nil && !v.IsNull() {
-		n, err := strconv.Atoi(v.Text)
-		if err != nil || n < 1 {
-			return nil, &input.Error{Field: "draws", Msg: "give a whole number of draws above zero"}
-		}
-		k = n
-	}
-	from := ls.st.Done()
-	to := min(from+k, ls.cfg.Draws)
+	from := r.st.Done()
+	to := min(from+k, r.cfg.Draws)
 	if to > from {
-		if err := ls.st.Run(context.Background(), from, to); err != nil {
+		if err := r.st.Run(context.Background(), from, to); err != nil {
 			return nil, err
 		}
 	}
-	return jsondoc.NewObject().Set("done", jsondoc.Int(ls.st.Done())).Set("draws", jsondoc.Int(ls.cfg.Draws)), nil
+	return jsondoc.NewObject().Set("done", jsondoc.Int(r.st.Done())).Set("draws", jsondoc.Int(r.cfg.Draws)), nil
 }
 
-func projectResult(arg *jsondoc.Value) (*jsondoc.Value, error) {
-	ls, err := studyArg(arg)
+func projectResult(arg, _ *jsondoc.Value) (*jsondoc.Value, error) {
+	block := "projection"
+	r, err := runArg(arg, nil, &block)
 	if err != nil {
 		return nil, err
 	}
-	block := "forecast"
-	if v := arg.Get("block"); v != nil && v.Kind == jsondoc.String && v.Text != "" {
-		block = v.Text
-	}
-	s := ls.st.Summary()
+	s := r.st.Summary()
 	claims := jsondoc.NewArray()
-	for i := range ls.cfg.Claims {
-		c := &ls.cfg.Claims[i]
+	for i := range r.cfg.Claims {
+		c := &r.cfg.Claims[i]
 		v := c.Check(s)
 		claims.Append(jsondoc.NewObject().Set("id", jsondoc.Str(c.ID)).Set("holds", jsondoc.Boolean(v.Holds)).Set("found", jsondoc.Str(v.Found)))
 	}
 	return jsondoc.NewObject().Set("document", report.Projection(s)).
-		Set("view", render.JSON(forecast.Output(ls.cfg, s, block))).Set("claims", claims), nil
+		Set("view", render.JSON(projection.Output(r.cfg, s, block))).Set("claims", claims), nil
 }
 
-func projectDrop(arg *jsondoc.Value) (*jsondoc.Value, error) {
+func projectDrop(arg, _ *jsondoc.Value) (*jsondoc.Value, error) {
 	if arg.Kind == jsondoc.Object {
 		if v := arg.Get("id"); v != nil {
 			if id, err := strconv.Atoi(v.Text); err == nil {
-				delete(studies, id)
+				delete(runs, id)
 			}
 		}
 	}

@@ -1,4 +1,4 @@
-package main
+package analysisapi
 
 import (
 	"strconv"
@@ -8,14 +8,13 @@ import (
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
 	"seatsmith/engine/report"
+	"seatsmith/wasm/api"
 )
 
-func init() { register("sweep", sweep) }
-
-// maxSweepCells is the most results (house sizes times units) one sweep in
-// the browser holds, far below the engine's own limit: every result is
-// kept, and a page runs in one tab.
-const maxSweepCells = 1_000_000
+// MaxSweepCells is the most results (house sizes times units) one sweep
+// holds, far below the engine's own limit: every result is kept, and a
+// page runs in one tab.
+const MaxSweepCells = 1_000_000
 
 // sweep apportions a scenario at every house size of a range, by each of a
 // list of methods, and returns the sweep document (engine/report): every
@@ -31,9 +30,9 @@ const maxSweepCells = 1_000_000
 // method is not used. A method that can apportion no size in the range
 // carries its error in the document; when none can, the scenario is at
 // fault and sweep returns the first method's error instead.
-func sweep(arg *jsondoc.Value) (*jsondoc.Value, error) {
+func sweep(arg, _ *jsondoc.Value) (*jsondoc.Value, error) {
 	if arg.Kind != jsondoc.Object {
-		return nil, &input.Error{Msg: "sweep takes a scenario with from, to and methods, not " + kindName(arg)}
+		return nil, &input.Error{Msg: "sweep takes a scenario with from, to and methods, not " + api.KindName(arg)}
 	}
 	scen := &jsondoc.Value{Kind: jsondoc.Object}
 	for _, f := range arg.Fields {
@@ -43,7 +42,7 @@ func sweep(arg *jsondoc.Value) (*jsondoc.Value, error) {
 			scen.Fields = append(scen.Fields, f)
 		}
 	}
-	src, err := scenarioArg(scen)
+	src, err := api.ScenarioArg(scen, api.MaxUnits, "units")
 	if err != nil {
 		return nil, err
 	}
@@ -61,9 +60,9 @@ func sweep(arg *jsondoc.Value) (*jsondoc.Value, error) {
 	if to < from {
 		return nil, &input.Error{Field: "to", Msg: "must not be below from (" + strconv.Itoa(from) + ")"}
 	}
-	if n := len(src.Scenario.Units); n > 0 && to-from+1 > maxSweepCells/n {
+	if n := len(src.Scenario.Units); n > 0 && to-from+1 > MaxSweepCells/n {
 		return nil, &input.Error{Field: "to", Msg: strconv.Itoa(to-from+1) + " house sizes of " + strconv.Itoa(n) +
-			" units is more than the " + strconv.Itoa(maxSweepCells) + " results this page sweeps at once; the command-line tool takes more"}
+			" units is more than the limit of " + strconv.Itoa(MaxSweepCells) + " results a sweep holds (limits().sweep_cells); the command-line tool takes more"}
 	}
 	var ms []engine.Method
 	if x := arg.Get("methods"); !x.IsNull() {
@@ -87,15 +86,15 @@ func sweep(arg *jsondoc.Value) (*jsondoc.Value, error) {
 }
 
 // houseArg reads a house size: a whole number, or a string of digits, from
-// 1 to the browser build's maxSeats; def when absent.
+// 1 to api.MaxSeats; def when absent.
 func houseArg(v *jsondoc.Value, field string, def int) (int, error) {
 	if v.IsNull() {
 		return def, nil
 	}
 	if v.Kind == jsondoc.Number || v.Kind == jsondoc.String {
-		if n, err := strconv.Atoi(strings.TrimSpace(v.Text)); err == nil && n >= 1 && n <= maxSeats {
+		if n, err := strconv.Atoi(strings.TrimSpace(v.Text)); err == nil && n >= 1 && n <= api.MaxSeats {
 			return n, nil
 		}
 	}
-	return 0, &input.Error{Field: field, Msg: "must be a house size from 1 to " + strconv.Itoa(maxSeats)}
+	return 0, &input.Error{Field: field, Msg: "must be a house size from 1 to " + strconv.Itoa(api.MaxSeats)}
 }

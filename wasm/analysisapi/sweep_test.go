@@ -1,6 +1,7 @@
-package main
+package analysisapi
 
 import (
+	"os"
 	"strings"
 	"testing"
 
@@ -8,7 +9,26 @@ import (
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
 	"seatsmith/engine/report"
+	"seatsmith/wasm/api"
 )
+
+// call invokes f as JavaScript would.
+func call(f func(_, _ *jsondoc.Value) (*jsondoc.Value, error), arg *jsondoc.Value) *jsondoc.Value {
+	return api.Invoke(api.Function{Name: "f", Call: f}, arg, nil)
+}
+
+func demo(t *testing.T) *jsondoc.Value {
+	t.Helper()
+	data, err := os.ReadFile("../../testdata/demo/vessaria.json")
+	if err != nil {
+		t.Fatal(err)
+	}
+	v, err := jsondoc.Parse(data)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return v
+}
 
 // sweep returns exactly the document "seatsmith sweep -format json" prints
 // for the same scenario, range and methods.

@@ -1,8 +1,7 @@
-package main
+package api
 
 import (
 	"errors"
-	"sort"
 	"strconv"
 
 	"seatsmith/engine"
@@ -10,45 +9,41 @@ import (
 	"seatsmith/engine/jsondoc"
 )
 
-// APIVersion is the version of the globalThis.seatsmith object. It changes
+// Version is the version of the globalThis.seatsmith object. It changes
 // only when a function is removed or changes what it returns in a way that
 // breaks pages; adding a function does not change it.
-const APIVersion = 1
+const Version = 1
 
-// An apiFunc is one function of the API. It receives its JavaScript
-// argument as a jsondoc tree (null when the caller passed none) and returns
-// a document or an error. It need not guard against panics: call does.
-type apiFunc func(arg *jsondoc.Value) (*jsondoc.Value, error)
-
-var api = map[string]apiFunc{}
-
-// register adds a function to the API under name. Each function's file
-// calls it from an init function. A name registered twice, or one that
-// clashes with the object's own members, is a programming error and
-// panics when the program starts (and so in the host tests).
-func register(name string, f apiFunc) {
-	if name == "" || name == "version" || name == "caution" {
-		panic("wasm: reserved API name " + strconv.Quote(name))
-	}
-	if _, dup := api[name]; dup {
-		panic("wasm: API function " + strconv.Quote(name) + " registered twice")
-	}
-	api[name] = f
+// A Function is one function of the API object.
+type Function struct {
+	// Name is the member of globalThis.seatsmith that holds it.
+	Name string
+	// Call receives the JavaScript arguments as jsondoc trees: arg, and
+	// opts for a function that takes options (both null when the caller
+	// passed none). It returns a document or an error; it need not guard
+	// against panics, which [Invoke] turns into error documents.
+	Call func(arg, opts *jsondoc.Value) (*jsondoc.Value, error)
+	// Options is set for a function that takes an options object as its
+	// second argument; the others refuse a second argument.
+	Options bool
 }
 
-// apiNames returns the registered names in sorted order.
-func apiNames() []string {
-	names := make([]string, 0, len(api))
-	for n := range api {
-		names = append(names, n)
+// Calculator returns the functions of the calculator module, which every
+// page with a calculator loads: methods, allot, compare, readCSV and
+// calculator.
+func Calculator() []Function {
+	return []Function{
+		{Name: "methods", Call: methods},
+		{Name: "allot", Call: allot, Options: true},
+		{Name: "compare", Call: compare},
+		{Name: "readCSV", Call: readCSV},
+		{Name: "calculator", Call: calculator},
 	}
-	sort.Strings(names)
-	return names
 }
 
-// call runs f on arg and always returns a document: f's own, or an error
-// document for an error or a panic.
-func call(f apiFunc, arg *jsondoc.Value) (out *jsondoc.Value) {
+// Invoke runs f on its arguments and always returns a document: f's own,
+// or an error document for an error or a panic.
+func Invoke(f Function, arg, opts *jsondoc.Value) (out *jsondoc.Value) {
 	defer func() {
 		if p := recover(); p != nil {
 			out = errorDoc(&input.Error{Msg: "internal error: " + panicText(p)})
@@ -57,7 +52,13 @@ func call(f apiFunc, arg *jsondoc.Value) (out *jsondoc.Value) {
 	if arg == nil {
 		arg = jsondoc.NullValue()
 	}
-	v, err := f(arg)
+	if opts == nil {
+		opts = jsondoc.NullValue()
+	}
+	if !f.Options && !opts.IsNull() {
+		return errorDoc(&input.Error{Msg: f.Name + " takes one argument, not several"})
+	}
+	v, err := f.Call(arg, opts)
 	if err != nil {
 		return errorDoc(err)
 	}
@@ -81,16 +82,19 @@ func panicText(p any) string {
 // errorDoc builds the error document {error: {message, field, line}}.
 // field and line are present only when known: field from an *input.Error
 // (a path such as "units[2].population" for a scenario, or a column for a
-// CSV table) or an *engine.Error (prefixed with "units[i]." for a unit),
-// line for CSV input.
+// CSV table), a *jsondoc.MemberError or an *engine.Error (prefixed with
+// "units[i]." for a unit), line for CSV input.
 func errorDoc(err error) *jsondoc.Value {
 	var field, msg string
 	line := 0
 	var ie *input.Error
 	var ee *engine.Error
+	var me *jsondoc.MemberError
 	switch {
 	case errors.As(err, &ie):
 		field, msg, line = ie.Field, ie.Msg, ie.Line
+	case errors.As(err, &me):
+		field, msg = me.Path, me.Msg
 	case errors.As(err, &ee):
 		field, msg = ee.Field, ee.Msg
 		if ee.Unit >= 0 {
@@ -143,4 +147,15 @@ func noArgument(name string, arg *jsondoc.Value) error {
 		return nil
 	}
 	return &input.Error{Msg: name + " takes no argument"}
+}
+
+// KindName names the JSON kind of v with its article, for messages.
+func KindName(v *jsondoc.Value) string {
+	switch v.Kind {
+	case jsondoc.Null:
+		return "null"
+	case jsondoc.Array, jsondoc.Object:
+		return "an " + v.Kind.String()
+	}
+	return "a " + v.Kind.String()
 }

@@ -1,4 +1,4 @@
-package main
+package api
 
 import (
 	"errors"
@@ -13,43 +13,66 @@ import (
 	"seatsmith/engine/report"
 )
 
-func TestRegistry(t *testing.T) {
-	for _, name := range []string{"allot", "compare", "methods", "readCSV"} {
-		if api[name] == nil {
-			t.Errorf("API function %s is not registered", name)
+// fn returns the calculator module's function name.
+func fn(t testing.TB, name string) Function {
+	for _, f := range Calculator() {
+		if f.Name == name {
+			return f
 		}
 	}
-	for _, name := range []string{"allot", "", "version", "caution"} {
-		func() {
-			defer func() {
-				if recover() == nil {
-					t.Errorf("register(%q) did not panic", name)
-				}
-			}()
-			register(name, methods)
-		}()
+	t.Fatalf("no function %s", name)
+	return Function{}
+}
+
+// call invokes the function name as JavaScript would and returns its
+// answer as a tree (a document written as raw JSON read back).
+func call(t testing.TB, name string, arg, opts *jsondoc.Value) *jsondoc.Value {
+	t.Helper()
+	v := Invoke(fn(t, name), arg, opts)
+	back, err := jsondoc.Parse(jsondoc.Marshal(v))
+	if err != nil {
+		t.Fatalf("%s answered malformed JSON: %v", name, err)
+	}
+	return back
+}
+
+func TestFunctions(t *testing.T) {
+	seen := map[string]bool{}
+	for _, f := range Calculator() {
+		if f.Name == "" || f.Name == "version" || f.Name == "caution" || f.Name == "limits" || seen[f.Name] {
+			t.Errorf("function name %q is reserved or taken twice", f.Name)
+		}
+		seen[f.Name] = true
+	}
+	for _, name := range []string{"allot", "compare", "methods", "readCSV", "calculator"} {
+		if !seen[name] {
+			t.Errorf("the calculator module has no %s", name)
+		}
 	}
 }
 
-func TestCallRecovers(t *testing.T) {
+func TestInvokeRecovers(t *testing.T) {
 	var nilMap map[string]int
-	for _, f := range []apiFunc{
-		func(*jsondoc.Value) (*jsondoc.Value, error) { panic("broken") },
-		func(*jsondoc.Value) (*jsondoc.Value, error) { nilMap["x"] = 1; return nil, nil },
-		func(*jsondoc.Value) (*jsondoc.Value, error) { panic(struct{}{}) },
+	for _, f := range []func(_, _ *jsondoc.Value) (*jsondoc.Value, error){
+		func(_, _ *jsondoc.Value) (*jsondoc.Value, error) { panic("broken") },
+		func(_, _ *jsondoc.Value) (*jsondoc.Value, error) { nilMap["x"] = 1; return nil, nil },
+		func(_, _ *jsondoc.Value) (*jsondoc.Value, error) { panic(struct{}{}) },
 	} {
-		got := string(jsondoc.Marshal(call(f, nil)))
+		got := string(jsondoc.Marshal(Invoke(Function{Name: "f", Call: f}, nil, nil)))
 		if !strings.HasPrefix(got, `{"error":{"message":"internal error: `) {
 			t.Errorf("call of a panicking function = %s, want an internal error", got)
 		}
 	}
-	if got := string(jsondoc.Marshal(call(func(arg *jsondoc.Value) (*jsondoc.Value, error) {
+	if got := string(jsondoc.Marshal(Invoke(Function{Name: "f", Call: func(arg, _ *jsondoc.Value) (*jsondoc.Value, error) {
 		if arg == nil || arg.Kind != jsondoc.Null {
 			return nil, errors.New("no null argument")
 		}
 		return nil, nil
-	}, nil))); got != "null" {
+	}}, nil, nil))); got != "null" {
 		t.Errorf("call with no argument and no result = %s, want null", got)
+	}
+	if got := string(jsondoc.Marshal(Invoke(fn(t, "compare"), jsondoc.NewObject(), jsondoc.NewObject()))); !strings.Contains(got, "takes one argument") {
+		t.Errorf("compare with options = %s", got)
 	}
 }
 
@@ -78,7 +101,7 @@ func TestErrorDoc(t *testing.T) {
 
 func demo(t *testing.T) *jsondoc.Value {
 	t.Helper()
-	data, err := os.ReadFile("../testdata/demo/vessaria.json")
+	data, err := os.ReadFile("../../testdata/demo/vessaria.json")
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -102,13 +125,13 @@ func TestDocumentsMatchReport(t *testing.T) {
 		t.Fatal(err)
 	}
 	for _, tc := range []struct {
-		f    apiFunc
+		f    string
 		want *jsondoc.Value
 	}{
-		{allot, report.Allotment(src.Title, res)},
-		{compare, report.Compare(src.Scenario, nil, 0).Doc(src.Title)},
+		{"allot", report.Allotment(src.Title, res)},
+		{"compare", report.Compare(src.Scenario, nil, 0).Doc(src.Title)},
 	} {
-		got := string(jsondoc.Marshal(call(tc.f, doc)))
+		got := string(jsondoc.Marshal(call(t, tc.f, doc, nil)))
 		if want := string(jsondoc.Marshal(tc.want)); got != want {
 			t.Errorf("got  %s\nwant %s", got, want)
 		}
@@ -124,26 +147,26 @@ func TestAPIErrors(t *testing.T) {
 		return v
 	}
 	for _, tc := range []struct {
-		f     apiFunc
+		f     string
 		arg   string
 		field string
 		msg   string
 	}{
-		{allot, `null`, "", "a scenario is a JSON object"},
-		{allot, `{"seats": 3, "method": "webster"}`, "units", "missing"},
-		{allot, `{"seats": 3, "units": [{"name": "A", "population": 5}]}`, "method", "no method"},
-		{allot, `{"seats": 3, "method": "borda", "units": [{"name": "A", "population": 5}]}`, "method", "unknown method"},
-		{allot, `{"seats": 3, "method": "adams", "units": [{"name": "A", "population": -5}]}`, "units[0].population", "negative"},
-		{allot, `{"seats": 200000, "method": "adams", "units": [{"name": "A", "population": 5}]}`, "seats", "command-line tool"},
-		{allot, `{"seats": 1, "method": "adams", "units": [{"name": "A", "population": 5}, {"name": "B", "population": 5}]}`, "seats", "Adams"},
-		{allot, `{"seats": 3, "method": "webster", "units": [{"name": "A", "population": 5}, {"name": "A", "population": 5}]}`, "units[1].name", "same name"},
-		{compare, `{"units": [{"name": "A", "population": 5}]}`, "seats", "house size"},
-		{methods, `1`, "", "takes no argument"},
-		{readCSV, `{"units": []}`, "", "not an object"},
-		{readCSV, `"name,population\nA,5\nB,x\n"`, "population", "line 3"},
-		{readCSV, `"name,people\nA,5\n"`, "column 2", "unknown column"},
+		{"allot", `null`, "", "a scenario is a JSON object"},
+		{"allot", `{"seats": 3, "method": "webster"}`, "units", "missing"},
+		{"allot", `{"seats": 3, "units": [{"name": "A", "population": 5}]}`, "method", "no method"},
+		{"allot", `{"seats": 3, "method": "borda", "units": [{"name": "A", "population": 5}]}`, "method", "unknown method"},
+		{"allot", `{"seats": 3, "method": "adams", "units": [{"name": "A", "population": -5}]}`, "units[0].population", "negative"},
+		{"allot", `{"seats": 200000, "method": "adams", "units": [{"name": "A", "population": 5}]}`, "seats", "command-line tool"},
+		{"allot", `{"seats": 1, "method": "adams", "units": [{"name": "A", "population": 5}, {"name": "B", "population": 5}]}`, "seats", "Adams"},
+		{"allot", `{"seats": 3, "method": "webster", "units": [{"name": "A", "population": 5}, {"name": "A", "population": 5}]}`, "units[1].name", "same name"},
+		{"compare", `{"units": [{"name": "A", "population": 5}]}`, "seats", "house size"},
+		{"methods", `1`, "", "takes no argument"},
+		{"readCSV", `{"units": []}`, "", "not an object"},
+		{"readCSV", `"name,population\nA,5\nB,x\n"`, "population", "line 3"},
+		{"readCSV", `"name,people\nA,5\n"`, "column 2", "unknown column"},
 	} {
-		got := call(tc.f, parse(tc.arg))
+		got := call(t, tc.f, parse(tc.arg), nil)
 		e := got.Get("error")
 		if e == nil || len(got.Fields) != 1 {
 			t.Errorf("%s: got %s, want an error", tc.arg, jsondoc.Marshal(got))
@@ -160,7 +183,7 @@ func TestAPIErrors(t *testing.T) {
 }
 
 func TestReadCSV(t *testing.T) {
-	got := string(jsondoc.Marshal(call(readCSV, jsondoc.Str("\uFEFFName,Population,Min,Max\r\nOrlen,2694457,2,\r\nTamsk,880.50,,9\r\n"))))
+	got := string(jsondoc.Marshal(call(t, "readCSV", jsondoc.Str("\uFEFFName,Population,Min,Max\r\nOrlen,2694457,2,\r\nTamsk,880.50,,9\r\n"), nil)))
 	want := `{"units":[{"name":"Orlen","population":"2694457","min":2},{"name":"Tamsk","population":"880.5","max":9}]}`
 	if got != want {
 		t.Errorf("readCSV = %s, want %s", got, want)
@@ -172,11 +195,12 @@ func Example() {
 		{"name": "Amber League", "population": 5100}, {"name": "Blue Hand", "population": 3000},
 		{"name": "Cedar Party", "population": 1900}]}`
 	v, _ := jsondoc.Parse([]byte(scenario))
-	doc := call(allot, v)
+	allot := Calculator()[1]
+	doc, _ := jsondoc.Parse(jsondoc.Marshal(Invoke(allot, v, nil)))
 	for _, u := range doc.Get("units").Items {
 		fmt.Println(u.Get("name").Text, u.Get("seats").Text)
 	}
-	fmt.Println(string(jsondoc.Marshal(call(allot, jsondoc.NewObject()).Get("error"))))
+	fmt.Println(string(jsondoc.Marshal(Invoke(allot, jsondoc.NewObject(), nil).Get("error"))))
 	// Output:
 	// Amber League 3
 	// Blue Hand 1

@@ -1,4 +1,4 @@
-package main
+package api
 
 // This file converts JavaScript values to jsondoc trees. It knows
 // JavaScript only through the jsReader interface, so the same code runs
@@ -61,7 +61,8 @@ type jsReader interface {
 	number() (float64, error)
 	// text returns a string's contents, or the decimal digits of a BigInt.
 	text() (string, error)
-	// length returns an array's length.
+	// length returns an array's length, or a string's in UTF-16 code
+	// units.
 	length() (int, error)
 	index(i int) (jsReader, error)
 	// keys returns an object's own enumerable string keys, in JavaScript's
@@ -69,17 +70,6 @@ type jsReader interface {
 	keys() ([]string, error)
 	get(key string) (jsReader, error)
 }
-
-// Limits on what fromJS converts.
-const (
-	// maxDepth is the deepest nesting accepted, as for JSON text; it also
-	// stops cyclic objects.
-	maxDepth = jsondoc.MaxDepth
-	// maxItems is the longest array, and the most members of an object,
-	// accepted: far more units than any assembly has, and few enough that
-	// a page's mistake cannot exhaust the memory of the module.
-	maxItems = 100_000
-)
 
 // fromJS converts a JavaScript value to a jsondoc tree, as JSON.stringify
 // followed by jsondoc.Parse would, except that:
@@ -90,8 +80,9 @@ const (
 //     text JavaScript itself shows; -0 becomes 0;
 //   - a BigInt becomes a number with all its digits;
 //   - NaN, Infinity, functions and symbols are errors rather than null or
-//     silently dropped, and so are arrays longer than maxItems and values
-//     nested deeper than maxDepth (a cyclic object, for one);
+//     silently dropped, and so are arrays longer than MaxItems, strings
+//     longer than MaxText and values nested deeper than MaxDepth (a cyclic
+//     object, for one);
 //   - object members whose value is undefined are left out, and undefined
 //     array elements (and holes) become null, as JSON.stringify does.
 //
@@ -102,8 +93,8 @@ func fromJS(r jsReader) (*jsondoc.Value, error) {
 }
 
 func convertJS(r jsReader, path string, depth int) (*jsondoc.Value, error) {
-	if depth > maxDepth {
-		return nil, pathError(topMember(path), "nested too deeply (more than "+strconv.Itoa(maxDepth)+" levels, or an object that contains itself)")
+	if depth > MaxDepth {
+		return nil, pathError(topMember(path), "nested too deeply (more than "+strconv.Itoa(MaxDepth)+" levels, or an object that contains itself)")
 	}
 	switch k := r.kind(); k {
 	case jsUndefined, jsNull:
@@ -131,9 +122,16 @@ func convertJS(r jsReader, path string, depth int) (*jsondoc.Value, error) {
 		}
 		return jsondoc.Num(t), nil
 	case jsString:
+		// A string longer than the limit is refused before it is copied.
+		if n, err := r.length(); err == nil && n > MaxText {
+			return nil, pathError(path, "a text of "+strconv.Itoa(n)+" characters is longer than the limit of "+strconv.Itoa(MaxText)+" bytes (limits().text_bytes)")
+		}
 		t, err := r.text()
 		if err != nil {
 			return nil, jsError(path, err)
+		}
+		if len(t) > MaxText {
+			return nil, pathError(path, "a text of "+strconv.Itoa(len(t))+" bytes is longer than the limit of "+strconv.Itoa(MaxText)+" bytes (limits().text_bytes)")
 		}
 		return jsondoc.Str(t), nil
 	case jsArray:
@@ -141,8 +139,8 @@ func convertJS(r jsReader, path string, depth int) (*jsondoc.Value, error) {
 		if err != nil {
 			return nil, jsError(path, err)
 		}
-		if n < 0 || n > maxItems {
-			return nil, pathError(path, "an array of "+strconv.Itoa(n)+" elements is longer than the limit of "+strconv.Itoa(maxItems))
+		if n < 0 || n > MaxItems {
+			return nil, pathError(path, "an array of "+strconv.Itoa(n)+" elements is longer than the limit of "+strconv.Itoa(MaxItems))
 		}
 		arr := &jsondoc.Value{Kind: jsondoc.Array, Items: make([]*jsondoc.Value, 0, min(n, 1024))}
 		for i := 0; i < n; i++ {
@@ -163,8 +161,8 @@ func convertJS(r jsReader, path string, depth int) (*jsondoc.Value, error) {
 		if err != nil {
 			return nil, jsError(path, err)
 		}
-		if len(keys) > maxItems {
-			return nil, pathError(path, "an object with "+strconv.Itoa(len(keys))+" members has more than the limit of "+strconv.Itoa(maxItems))
+		if len(keys) > MaxItems {
+			return nil, pathError(path, "an object with "+strconv.Itoa(len(keys))+" members has more than the limit of "+strconv.Itoa(MaxItems))
 		}
 		obj := &jsondoc.Value{Kind: jsondoc.Object, Fields: make([]jsondoc.Field, 0, len(keys))}
 		for _, key := range keys {

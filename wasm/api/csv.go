@@ -1,33 +1,37 @@
-package main
+package api
 
 import (
-	"strconv"
 	"strings"
 
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
 )
 
-func init() { register("readCSV", readCSV) }
-
 // readCSV reads a CSV table of units (engine/input: a header naming name,
 // population and optional min and max) and returns {units: [{name,
 // population, min, max}]} in the shape a scenario's units member takes.
 // population is the exact decimal as a string; min and max are present
-// only where the table gives them. Errors carry the table's line.
-func readCSV(arg *jsondoc.Value) (*jsondoc.Value, error) {
+// only where the table gives them. Errors carry the table's line. A table
+// of more than MaxUnits rows, or with a name longer than MaxNameLength
+// characters, is refused.
+func readCSV(arg, _ *jsondoc.Value) (*jsondoc.Value, error) {
 	if arg.Kind != jsondoc.String {
-		return nil, &input.Error{Msg: "readCSV takes the text of a CSV table (a string), not " + kindName(arg)}
+		return nil, &input.Error{Msg: "readCSV takes the text of a CSV table (a string), not " + KindName(arg)}
 	}
-	if len(arg.Text) > maxText {
-		return nil, &input.Error{Msg: "the table is longer than the limit of " + strconv.Itoa(maxText>>20) + " MiB"}
+	if err := checkText("", arg.Text); err != nil {
+		return nil, err
+	}
+	// Count the lines before reading: the reader builds every row. (A
+	// quoted name with line breaks in it counts as several lines.)
+	if n := lines(arg.Text) - 1; n > MaxUnits {
+		return nil, TooMany("", n, MaxUnits, "rows", "units")
 	}
 	src, err := input.ReadCSV("", strings.NewReader(arg.Text))
 	if err != nil {
 		return nil, err
 	}
-	if n := len(src.Scenario.Units); n > maxUnits {
-		return nil, &input.Error{Field: "units", Msg: strconv.Itoa(n) + " units is more than the " + strconv.Itoa(maxUnits) + " this page can apportion"}
+	if err := CheckScenario("", &src.Scenario, MaxUnits, "units"); err != nil {
+		return nil, err
 	}
 	units := jsondoc.NewArray()
 	for _, u := range src.Scenario.Units {
@@ -41,15 +45,4 @@ func readCSV(arg *jsondoc.Value) (*jsondoc.Value, error) {
 		units.Append(object(x...))
 	}
 	return object(jsondoc.Field{Key: "units", Value: units}), nil
-}
-
-// kindName names the JSON kind of v with its article, for messages.
-func kindName(v *jsondoc.Value) string {
-	switch v.Kind {
-	case jsondoc.Null:
-		return "null"
-	case jsondoc.Array, jsondoc.Object:
-		return "an " + v.Kind.String()
-	}
-	return "a " + v.Kind.String()
 }

@@ -1,6 +1,6 @@
 //go:build js && wasm
 
-package main
+package api
 
 import (
 	"unsafe"
@@ -150,6 +150,9 @@ func (x *jsValue) text() (string, error) {
 }
 
 func (x *jsValue) length() (int, error) {
+	if x.kind() == jsString {
+		return x.v.Length() // a primitive's own property: it cannot throw
+	}
 	n, err := x.rt.reflectGet.Invoke(x.v, "length")
 	if err != nil {
 		return 0, err
@@ -196,7 +199,7 @@ func (x *jsValue) keys() ([]string, error) {
 	if err != nil {
 		return nil, err
 	}
-	if n > maxItems {
+	if n > MaxItems {
 		return make([]string, n), nil // the caller refuses it by its length
 	}
 	keys := make([]string, n)

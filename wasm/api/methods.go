@@ -1,16 +1,14 @@
-package main
+package api
 
 import (
 	"seatsmith/engine"
 	"seatsmith/engine/jsondoc"
 )
 
-func init() { register("methods", methods) }
-
 // methods lists the methods: [{id, name, divisor}], in engine.Methods
 // order. id is what a scenario's method member takes; divisor is true for
 // divisor methods and false for largest-remainder methods.
-func methods(arg *jsondoc.Value) (*jsondoc.Value, error) {
+func methods(arg, _ *jsondoc.Value) (*jsondoc.Value, error) {
 	if err := noArgument("methods", arg); err != nil {
 		return nil, err
 	}

@@ -1,9 +1,10 @@
 //go:build js && wasm
 
-package main
+package api
 
 import (
 	"runtime/debug"
+	"strconv"
 
 	"github.com/hack-pad/safejs"
 
@@ -11,7 +12,12 @@ import (
 	"seatsmith/engine/report"
 )
 
-func main() {
+// Serve installs the API object on globalThis.seatsmith, with the
+// functions fns and a limits function listing limits, and serves calls
+// from JavaScript for as long as the page (or worker) lives. It never
+// returns.
+func Serve(fns []Function, limits []Limit) {
+	fns = append(fns[:len(fns):len(fns)], LimitsFunction(limits))
 	// An answer for a calculator of fifty units allocates a few megabytes
 	// and keeps almost none of it, and a collection in the middle of one
 	// is what makes the slowest edits slow. So the collector waits until
@@ -19,16 +25,16 @@ func main() {
 	// 64 MiB, which keeps a page's memory within bounds.
 	debug.SetGCPercent(1600)
 	debug.SetMemoryLimit(64 << 20)
-	if err := install(); err != nil {
+	if err := install(fns); err != nil {
 		if console, err2 := safejs.Global().Get("console"); err2 == nil {
 			console.Call("error", "seatsmith: the engine could not start: "+err.Error())
 		}
 	}
-	select {} // serve calls from JavaScript for as long as the page lives
+	select {}
 }
 
 // install puts the API object on globalThis.seatsmith.
-func install() error {
+func install(fns []Function) error {
 	rt, err := newRuntime()
 	if err != nil {
 		return err
@@ -37,18 +43,18 @@ func install() error {
 	if err != nil {
 		return err
 	}
-	if err := obj.Set("version", APIVersion); err != nil {
+	if err := obj.Set("version", Version); err != nil {
 		return err
 	}
 	if err := obj.Set("caution", report.Caution); err != nil {
 		return err
 	}
-	for _, name := range apiNames() {
-		fn, err := safejs.FuncOf(rt.handler(name, api[name]))
+	for _, f := range fns {
+		fn, err := safejs.FuncOf(rt.handler(f))
 		if err != nil {
 			return err
 		}
-		if err := obj.Set(name, fn); err != nil {
+		if err := obj.Set(f.Name, fn); err != nil {
 			return err
 		}
 	}
@@ -60,7 +66,7 @@ func install() error {
 
 // handler wraps f as a JavaScript function that never throws: every
 // failure, a recovered panic included, is returned as an error object.
-func (rt *jsRuntime) handler(name string, f apiFunc) func(this safejs.Value, args []safejs.Value) any {
+func (rt *jsRuntime) handler(f Function) func(this safejs.Value, args []safejs.Value) any {
 	return func(_ safejs.Value, args []safejs.Value) (result any) {
 		defer func() {
 			if p := recover(); p != nil {
@@ -68,18 +74,25 @@ func (rt *jsRuntime) handler(name string, f apiFunc) func(this safejs.Value, arg
 			}
 		}()
 		var out *jsondoc.Value
-		switch len(args) {
-		case 0:
-			out = call(f, nil)
-		case 1:
-			arg, err := fromJS(rt.reader(args[0]))
-			if err != nil {
-				out = errorDoc(err)
-			} else {
-				out = call(f, arg)
+		max := 1
+		if f.Options {
+			max = 2
+		}
+		if len(args) > max {
+			out = errorDoc(&internalError{f.Name + " takes " + argCount(max) + ", not " + strconv.Itoa(len(args))})
+		} else {
+			var in [2]*jsondoc.Value
+			for i, a := range args {
+				v, err := fromJS(rt.reader(a))
+				if err != nil {
+					out = errorDoc(err)
+					break
+				}
+				in[i] = v
 			}
-		default:
-			out = errorDoc(&internalError{name + " takes one argument, not several"})
+			if out == nil {
+				out = Invoke(f, in[0], in[1])
+			}
 		}
 		v, err := rt.value(out)
 		if err != nil {
@@ -87,6 +100,13 @@ func (rt *jsRuntime) handler(name string, f apiFunc) func(this safejs.Value, arg
 		}
 		return v
 	}
+}
+
+func argCount(n int) string {
+	if n == 1 {
+		return "one argument"
+	}
+	return "at most " + strconv.Itoa(n) + " arguments"
 }
 
 // errorValue builds the JavaScript error object for err, or null if even

@@ -173,7 +173,7 @@ function base64Bytes(text) {
   return out;
 }
 
-async function instantiate(go) {
+async function instantiate(go, analysis) {
   const inline = document.querySelector('script[type="application/octet-stream"][data-seatsmith-engine]');
   if (inline) {
     let bytes = base64Bytes(inline.textContent);
@@ -183,7 +183,7 @@ async function instantiate(go) {
     }
     return (await WebAssembly.instantiate(bytes, go.importObject)).instance;
   }
-  const url = metaURL('seatsmith-engine', 'seatsmith.wasm');
+  const url = analysis ? metaURL('seatsmith-analysis-engine', 'seatsmith-analysis.wasm') : metaURL('seatsmith-engine', 'seatsmith.wasm');
   if (WebAssembly.instantiateStreaming && /^https?:/.test(url)) {
     try {
       return (await WebAssembly.instantiateStreaming(fetch(url), go.importObject)).instance;
@@ -198,13 +198,16 @@ async function instantiate(go) {
 
 let enginePromise = null;
 
-// engine loads the seatsmith engine once and resolves to its API object.
-export function engine() {
+// engine loads the seatsmith engine once and resolves to its API object:
+// the analysis module when analysis is true (a superset of the calculator
+// module, for variation blocks and paradox claims), else the calculator
+// module.
+export function engine(analysis) {
   if (!enginePromise) {
     enginePromise = (async () => {
       if (!globalThis.Go) await loadScript(metaURL('seatsmith-runtime', 'wasm_exec.js'));
       const go = new globalThis.Go();
-      const instance = await instantiate(go);
+      const instance = await instantiate(go, analysis);
       go.run(instance).catch(() => {});
       for (let i = 0; i < 200 && !(globalThis.seatsmith && globalThis.seatsmith.calculator); i++) {
         await new Promise((r) => setTimeout(r, 10));
@@ -682,6 +685,23 @@ function ensureStyles(root) {
   document.head.appendChild(l);
 }
 
+// PARADOX_KINDS are the claim kinds that only the analysis module checks.
+const PARADOX_KINDS = new Set(['no-alabama', 'no-quota-violation', 'population-paradox', 'no-population-paradox', 'new-states', 'no-new-states']);
+
+// needsAnalysis reports whether a block needs the analysis module: a
+// variation block (sweep, growth, admit) or a block with a paradox claim.
+function needsAnalysis(root) {
+  const mode = root.getAttribute('data-seatsmith');
+  if (mode === 'sweep' || mode === 'growth' || mode === 'admit') return true;
+  const data = root.querySelector('script[type="application/json"]');
+  try {
+    const b = JSON.parse(data ? data.textContent : '{}');
+    return Array.isArray(b.claims) && b.claims.some((c) => c && PARADOX_KINDS.has(c.kind));
+  } catch (e) {
+    return false;
+  }
+}
+
 // start makes every calculator on the page live.
 export async function start() {
   const roots = [...document.querySelectorAll(ROOT)];
@@ -689,7 +709,7 @@ export async function start() {
   ensureStyles(roots[0]);
   let api;
   try {
-    api = await engine();
+    api = await engine(roots.some(needsAnalysis));
   } catch (e) {
     for (const root of roots) new Calculator(root, null).fail(e.message || String(e));
     return [];

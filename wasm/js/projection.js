@@ -1,7 +1,7 @@
-// The projection block of the seatsmith site. Every <div data-forecast>
+// The projection block of the seatsmith site. Every <div data-projection>
 // holds its document (a <script type="application/json">), the controls,
 // and the result the site build computed. This module enables the
-// controls and runs the study again in a Web Worker (forecast-worker.js),
+// controls and runs the draws again in a Web Worker (projection-worker.js),
 // which loads Go's wasm_exec.js and the engine inside the worker and
 // makes the draws in chunks, so that the page stays responsive, shows
 // progress and can cancel. The worker hands back the result as a tree of
@@ -42,9 +42,9 @@ function assetURL(name) {
 }
 
 function workerURL() {
-  const s = document.querySelector('script[data-forecast-worker]');
-  if (s) return new URL(s.getAttribute('data-forecast-worker'), document.baseURI).href;
-  return new URL('forecast-worker.js', import.meta.url).href;
+  const s = document.querySelector('script[data-projection-worker]');
+  if (s) return new URL(s.getAttribute('data-projection-worker'), document.baseURI).href;
+  return new URL('projection-worker.js', import.meta.url).href;
 }
 
 let worker = null;
@@ -74,13 +74,13 @@ class Block {
     this.id = root.id;
     const script = root.querySelector(':scope > script[type="application/json"]');
     this.doc = JSON.parse(script.textContent);
-    this.form = root.querySelector('[data-role="forecast-form"]');
-    this.runButton = root.querySelector('[data-role="forecast-run"]');
-    this.cancelButton = root.querySelector('[data-role="forecast-cancel"]');
-    this.progress = root.querySelector('[data-role="forecast-progress"]');
-    this.bar = root.querySelector('[data-role="forecast-progress-bar"]');
-    this.status = root.querySelector('[data-role="forecast-status"]');
-    this.error = root.querySelector('[data-role="forecast-error"]');
+    this.form = root.querySelector('[data-role="projection-form"]');
+    this.runButton = root.querySelector('[data-role="projection-run"]');
+    this.cancelButton = root.querySelector('[data-role="projection-cancel"]');
+    this.progress = root.querySelector('[data-role="projection-progress"]');
+    this.bar = root.querySelector('[data-role="projection-progress-bar"]');
+    this.status = root.querySelector('[data-role="projection-status"]');
+    this.error = root.querySelector('[data-role="projection-error"]');
     this.run = 0;
     for (const el of this.form.querySelectorAll('fieldset, textarea')) el.disabled = false;
     this.runButton.disabled = false;
@@ -111,7 +111,7 @@ class Block {
 
   start() {
     if (this.run) this.cancel();
-    const engine = assetURL('seatsmith-engine');
+    const engine = assetURL('seatsmith-analysis-engine');
     const runtime = assetURL('seatsmith-runtime');
     this.run = nextRun++;
     blocks.set(this.run, this);
@@ -179,7 +179,7 @@ class Block {
   }
 
   show(view, claims) {
-    const out = this.root.querySelector('[data-role="forecast-output"]');
+    const out = this.root.querySelector('[data-role="projection-output"]');
     const fresh = build(view);
     if (out) out.replaceWith(fresh);
     else this.root.appendChild(fresh);
@@ -205,7 +205,7 @@ class Block {
 }
 
 function init() {
-  for (const root of document.querySelectorAll('div[data-forecast]')) {
+  for (const root of document.querySelectorAll('div[data-projection]')) {
     let b;
     try {
       b = new Block(root);

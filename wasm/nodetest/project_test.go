@@ -14,7 +14,7 @@ import (
 
 	"seatsmith/engine/jsondoc"
 	"seatsmith/engine/report"
-	"seatsmith/site/forecast"
+	"seatsmith/site/projection"
 	"seatsmith/wasm/wasmbuild"
 )
 
@@ -44,10 +44,11 @@ func runProjectUnderNode(t testing.TB, configs []*jsondoc.Value, chunk int) []*j
 		t.Fatal("these tests run the engine under Node; install node: ", err)
 	}
 	dir := t.TempDir()
-	wasm, execJS, err := wasmbuild.Build(dir)
+	_, execJS, err := wasmbuild.Build(dir)
 	if err != nil {
 		t.Fatal(err)
 	}
+	wasm := filepath.Join(dir, wasmbuild.Analysis.File)
 	cases := jsondoc.NewArray()
 	for _, c := range configs {
 		cases.Append(jsondoc.NewObject().Set("config", c).Set("chunk", jsondoc.Int(chunk)))
@@ -142,7 +143,7 @@ func TestProjectionUnderNode(t *testing.T) {
 	}
 	got := runProjectUnderNode(t, configs, 137)
 	for i, cfgDoc := range configs {
-		cfg, err := forecast.Parse("", 0, cfgDoc)
+		cfg, err := projection.Parse("", 0, cfgDoc)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -171,7 +172,7 @@ func TestProjectionUnderNode(t *testing.T) {
 func BenchmarkProjectionDraws(b *testing.B) {
 	const draws = 20000
 	cfgDoc := projectConfig(b, "normal", "3%", draws, 7)
-	cfg, err := forecast.Parse("", 0, cfgDoc)
+	cfg, err := projection.Parse("", 0, cfgDoc)
 	if err != nil {
 		b.Fatal(err)
 	}

@@ -1,0 +1,5 @@
+package main
+
+import "seatsmith/wasm/api"
+
+func main() { api.Serve(api.Calculator(), api.Limits()) }
