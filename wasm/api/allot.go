@@ -47,11 +47,51 @@ func allot(arg, opts *jsondoc.Value) (*jsondoc.Value, error) {
 	if err != nil {
 		return nil, err
 	}
-	var b bytes.Buffer
-	if err := report.WriteAllotJSON(&b, src.Title, res, skipped); err != nil {
-		return nil, err
+	return jsondoc.RawJSON(allotmentJSON(src.Title, res, skipped)), nil
+}
+
+// allotmentJSON writes the allotment document of res (report.Allotment,
+// with the skipped member of report.WriteAllotJSON) as compact JSON. The
+// units are laid out a chunk at a time, each chunk's tree made by
+// report.Allotment on a result holding just those units and dropped once
+// written, so that a hundred thousand units never stand as one tree.
+// It gives the content of report.WriteAllotJSON, without the indentation.
+func allotmentJSON(title string, res *engine.Result, skipped []string) string {
+	head := *res
+	head.Units, head.Ties = nil, nil // the ties name units by index
+	doc := report.Allotment(title, &head)
+	doc.Set("ties", report.Ties(res))
+	if len(skipped) > 0 {
+		arr := jsondoc.NewArray()
+		for _, s := range skipped {
+			arr.Append(jsondoc.Str(s))
+		}
+		doc.Set("skipped", arr)
 	}
-	return jsondoc.RawJSON(b.String()), nil
+	text := jsondoc.Marshal(doc)
+	const mark = `"units":[]`
+	k := bytes.Index(text, []byte(mark))
+	if k < 0 || len(res.Units) == 0 {
+		return string(text)
+	}
+	// About 300 bytes a unit: sized once, the buffer is not copied as it
+	// grows, which in WebAssembly is much of what a large answer costs.
+	b := make([]byte, 0, len(text)+300*len(res.Units))
+	b = append(b, text[:k+len(mark)-1]...)
+	const chunk = 256
+	part := head
+	part.Order, part.Beyond, part.Ties = nil, nil, nil
+	for i := 0; i < len(res.Units); i += chunk {
+		part.Units = res.Units[i:min(i+chunk, len(res.Units))]
+		for j, u := range report.Allotment("", &part).Get("units").Items {
+			if i+j > 0 {
+				b = append(b, ',')
+			}
+			b = jsondoc.AppendMarshal(b, u)
+		}
+	}
+	b = append(b, text[k+len(mark)-1:]...)
+	return string(b)
 }
 
 // allotDetail chooses what allot computes: what opts asked for (nil: not

@@ -233,3 +233,43 @@ func pathError(path, msg string) error {
 func jsError(path string, err error) error {
 	return &input.Error{Field: path, Msg: "could not be read: " + err.Error()}
 }
+
+// plainJSON reports whether a tree parsed from JSON.stringify's text holds
+// exactly what fromJS would read from the value: no null (which stands for
+// NaN, Infinity, holes, undefined in arrays, functions and symbols in
+// arrays, or null), no number written with an exponent (fromJS writes
+// every number as a plain decimal), no array or object beyond MaxItems.
+// It clears the line numbers on the way: they are the text's, which the
+// caller never saw.
+func plainJSON(v *jsondoc.Value) bool {
+	v.Line = 0
+	switch v.Kind {
+	case jsondoc.Null:
+		return false
+	case jsondoc.Number:
+		for i := 0; i < len(v.Text); i++ {
+			if c := v.Text[i]; c == 'e' || c == 'E' {
+				return false
+			}
+		}
+	case jsondoc.Array:
+		if len(v.Items) > MaxItems {
+			return false
+		}
+		for _, x := range v.Items {
+			if !plainJSON(x) {
+				return false
+			}
+		}
+	case jsondoc.Object:
+		if len(v.Fields) > MaxItems {
+			return false
+		}
+		for _, f := range v.Fields {
+			if !plainJSON(f.Value) {
+				return false
+			}
+		}
+	}
+	return true
+}

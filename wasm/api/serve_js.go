@@ -21,10 +21,11 @@ func Serve(fns []Function, limits []Limit) {
 	// An answer for a calculator of fifty units allocates a few megabytes
 	// and keeps almost none of it, and a collection in the middle of one
 	// is what makes the slowest edits slow. So the collector waits until
-	// the heap has grown seventeenfold, but never past a soft limit of
-	// 64 MiB, which keeps a page's memory within bounds.
-	debug.SetGCPercent(1600)
-	debug.SetMemoryLimit(64 << 20)
+	// the heap has grown fivefold; the soft limit of 256 MiB makes it work
+	// harder before a large request (the limits allow about a hundred
+	// megabytes) can take the heap near what a tab may hold.
+	debug.SetGCPercent(400)
+	debug.SetMemoryLimit(256 << 20)
 	if err := install(fns); err != nil {
 		if console, err2 := safejs.Global().Get("console"); err2 == nil {
 			console.Call("error", "seatsmith: the engine could not start: "+err.Error())
@@ -83,7 +84,7 @@ func (rt *jsRuntime) handler(f Function) func(this safejs.Value, args []safejs.V
 		} else {
 			var in [2]*jsondoc.Value
 			for i, a := range args {
-				v, err := fromJS(rt.reader(a))
+				v, err := rt.convert(a)
 				if err != nil {
 					out = errorDoc(err)
 					break
