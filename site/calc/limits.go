@@ -24,7 +24,16 @@ const (
 	// MaxLoadBytes is the longest table or scenario file a reader may
 	// load into a calculator, in bytes.
 	MaxLoadBytes = 4 << 20
+	// MaxValues is the most values (numbers, strings, arrays, objects) a
+	// block's, a scenario's or a loaded file's JSON text may hold: read,
+	// each takes about a hundred bytes.
+	MaxValues = 200_000
 )
+
+// parseJSON reads JSON text of at most MaxValues values.
+func parseJSON(text string) (*jsondoc.Value, error) {
+	return jsondoc.ParseLimit([]byte(text), MaxValues)
+}
 
 // CheckNames checks a scenario's title and unit names against
 // MaxTitleLength and MaxNameLength. The error is an *input.Error naming the

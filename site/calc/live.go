@@ -14,7 +14,7 @@ import (
 // parseBlock reads a calculator block from its JSON text, or says why it
 // cannot.
 func parseBlock(id string, mode Mode, text string) (*Block, string) {
-	bv, err := jsondoc.Parse([]byte(text))
+	bv, err := parseJSON(text)
 	if err != nil {
 		return nil, "the calculator's scenario block is not valid JSON: " + err.Error()
 	}
@@ -82,7 +82,8 @@ func load(doc *jsondoc.Value, ld *Load) (*jsondoc.Value, *input.Error) {
 		return nil, &input.Error{File: name, Msg: "the file of " + strconv.Itoa(len(text)) + " bytes is larger than the limit of " +
 			strconv.Itoa(MaxLoadBytes>>20) + " MiB a calculator loads"}
 	}
-	src, err := input.Read(name, strings.NewReader(text))
+	isJSON := strings.HasPrefix(strings.TrimLeft(strings.TrimPrefix(text, "\uFEFF"), " \t\r\n"), "{")
+	src, err := readLoad(name, text, isJSON)
 	if err != nil {
 		var ie *input.Error
 		if errors.As(err, &ie) {
@@ -92,7 +93,6 @@ func load(doc *jsondoc.Value, ld *Load) (*jsondoc.Value, *input.Error) {
 	}
 	enc := input.Encode(src.Title, &src.Scenario)
 	out := jsondoc.NewObject()
-	isJSON := strings.HasPrefix(strings.TrimLeft(strings.TrimPrefix(text, "\uFEFF"), " \t\r\n"), "{")
 	if doc != nil && doc.Kind == jsondoc.Object {
 		for _, f := range doc.Fields {
 			if f.Key == "units" {
@@ -188,4 +188,29 @@ func exportSweep(o *Outcome) (csv, js string) {
 	v.Set("paradoxes", report.ParadoxDoc(o.Title, set, &o.Scenario))
 	v.Set("claims", verdictsDoc(o.Verdicts))
 	return b.String(), string(jsondoc.MarshalIndent(v, "  "))
+}
+
+// readLoad reads a loaded table or scenario file, refusing one beyond the
+// block's limits before it builds the units: a table of more than
+// MaxUnits rows (counted as lines), a scenario of more than MaxValues
+// values or MaxUnits units.
+func readLoad(name, text string, isJSON bool) (*input.Source, error) {
+	if !isJSON {
+		if n := strings.Count(text, "\n"); n > MaxUnits+1 {
+			return nil, tooManyUnits(name, 0, n-1)
+		}
+		return input.ReadCSV(name, strings.NewReader(text))
+	}
+	v, err := parseJSON(strings.TrimPrefix(text, "\uFEFF"))
+	if err != nil {
+		var se *jsondoc.SyntaxError
+		if errors.As(err, &se) {
+			return nil, &input.Error{File: name, Line: se.Line, Msg: "column " + strconv.Itoa(se.Col) + ": " + se.Msg}
+		}
+		return nil, err
+	}
+	if err := precheckUnits(name, v); err != nil {
+		return nil, err
+	}
+	return input.FromDoc(name, v)
 }

@@ -116,7 +116,7 @@ func requestTable(r *Request) []jsondoc.Member {
 			if err := jsondoc.ReadString(&scenarioText)(v); err != nil {
 				return err
 			}
-			doc, err := jsondoc.Parse([]byte(scenarioText))
+			doc, err := parseJSON(scenarioText)
 			if err != nil {
 				return &jsondoc.MemberError{Line: v.Line, Msg: "not valid JSON: " + err.Error()}
 			}

@@ -21,6 +21,8 @@ const (
 	// the most characters of a unit's name.
 	MaxUnits      = 1_000
 	MaxNameLength = 200
+	// MaxSeats is the largest house a block apportions at every draw.
+	MaxSeats = 100_000
 )
 
 // A Config is one projection block: the counts, the scenario settings the
@@ -207,6 +209,10 @@ func (c *Config) Study() (*model.Study, error) {
 	}
 	if counts.Scenario.Seats <= 0 {
 		return nil, &input.Error{File: c.File, Line: c.Line, Field: "seats", Msg: "missing: give the house size"}
+	}
+	if n := counts.Scenario.Seats; n > MaxSeats {
+		return nil, &input.Error{File: c.File, Line: c.Line, Field: "seats", Msg: "the house size " + strconv.Itoa(n) + " is larger than the limit of " +
+			strconv.Itoa(MaxSeats) + " seats a projection block apportions; the command-line tool takes larger houses"}
 	}
 	if !counts.Scenario.Method.Valid() {
 		return nil, &input.Error{File: c.File, Line: c.Line, Field: "method", Msg: "missing: give a method"}

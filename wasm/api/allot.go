@@ -2,6 +2,7 @@ package api
 
 import (
 	"bytes"
+	"unsafe"
 
 	"seatsmith/engine"
 	"seatsmith/engine/input"
@@ -15,11 +16,13 @@ import (
 // otherwise left out beyond a small size and then listed in the
 // document's skipped member:
 //
-//	margins  true: every gain and lose margin, also those that need a
-//	         search (largest-remainder methods, thresholds), for at most
-//	         MaxSearchedMargins units; false: none. By default the
-//	         closed-form margins (divisor methods without a threshold),
-//	         and the searched ones for at most AutoSearchedMargins units.
+//	margins  true: every gain and lose margin, for at most
+//	         MaxMarginUnits units, and for at most MaxSearchedMargins
+//	         where they need a search (largest-remainder methods,
+//	         thresholds); false: none. By default the closed-form margins
+//	         (divisor methods without a threshold) for at most
+//	         AutoMarginUnits units, the searched ones for at most
+//	         AutoSearchedMargins.
 //	order    true: the seat order of a divisor method; false: none. By
 //	         default only for a house of at most AutoOrderSeats seats.
 //
@@ -74,10 +77,7 @@ func allotmentJSON(title string, res *engine.Result, skipped []string) string {
 	if k < 0 || len(res.Units) == 0 {
 		return string(text)
 	}
-	// About 300 bytes a unit: sized once, the buffer is not copied as it
-	// grows, which in WebAssembly is much of what a large answer costs.
-	b := make([]byte, 0, len(text)+300*len(res.Units))
-	b = append(b, text[:k+len(mark)-1]...)
+	b := append([]byte(nil), text[:k+len(mark)-1]...)
 	const chunk = 256
 	part := head
 	part.Order, part.Beyond, part.Ties = nil, nil, nil
@@ -89,9 +89,16 @@ func allotmentJSON(title string, res *engine.Result, skipped []string) string {
 			}
 			b = jsondoc.AppendMarshal(b, u)
 		}
+		if i == 0 && len(res.Units) > chunk {
+			// Sized once from the first chunk, with a margin, the buffer
+			// is not copied as it grows, which in WebAssembly is much of
+			// what a large answer costs.
+			need := len(text) + (len(b)/chunk+len(b)/chunk/8)*len(res.Units)
+			b = append(make([]byte, 0, need), b...)
+		}
 	}
 	b = append(b, text[k+len(mark)-1:]...)
-	return string(b)
+	return unsafe.String(unsafe.SliceData(b), len(b)) // b is not written again
 }
 
 // allotDetail chooses what allot computes: what opts asked for (nil: not
@@ -101,11 +108,15 @@ func allotDetail(s *engine.Scenario, margins, order *bool) (engine.Detail, []str
 	var skipped []string
 	n := len(s.Units)
 	search := !s.Method.IsDivisor() || !s.Threshold.IsZero()
+	asked := margins != nil && *margins
 	switch {
-	case margins != nil && *margins && search && n > MaxSearchedMargins:
-		return 0, nil, &input.Error{Field: "margins", Msg: "these margins are a search for every unit; " + tooManyText(n, MaxSearchedMargins, "units") +
-			" (limits().searched_margin_units) for which allot computes them"}
-	case margins != nil && *margins, margins == nil && (!search || n <= AutoSearchedMargins):
+	case asked && search && n > MaxSearchedMargins:
+		return 0, nil, &input.Error{Field: "margins", Msg: "these margins are a search of apportionments for every unit; " +
+			tooManyText(n, MaxSearchedMargins, "units") + " (limits().searched_margin_units) for which allot computes them"}
+	case asked && n > MaxMarginUnits:
+		return 0, nil, &input.Error{Field: "margins", Msg: tooManyText(n, MaxMarginUnits, "units") +
+			" (limits().margin_units) for which allot computes margins"}
+	case asked, margins == nil && (search && n <= AutoSearchedMargins || !search && n <= AutoMarginUnits):
 		d |= engine.WithMargins
 	default:
 		skipped = append(skipped, "margins")

@@ -18,7 +18,7 @@ func calculator(arg, _ *jsondoc.Value) (*jsondoc.Value, error) {
 		if err := checkText("", arg.Text); err != nil {
 			return fatal(err), nil
 		}
-		v, err := jsondoc.Parse([]byte(arg.Text))
+		v, err := jsondoc.ParseLimit([]byte(arg.Text), MaxValues)
 		if err != nil {
 			return fatal(err), nil
 		}

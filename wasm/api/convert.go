@@ -80,7 +80,8 @@ type jsReader interface {
 //     text JavaScript itself shows; -0 becomes 0;
 //   - a BigInt becomes a number with all its digits;
 //   - NaN, Infinity, functions and symbols are errors rather than null or
-//     silently dropped, and so are arrays longer than MaxItems, strings
+//     silently dropped, and so are values of more than MaxValues values
+//     in all (an array of that length, for one), strings
 //     longer than MaxText and values nested deeper than MaxDepth (a cyclic
 //     object, for one);
 //   - object members whose value is undefined are left out, and undefined
@@ -89,13 +90,20 @@ type jsReader interface {
 // An error is an *input.Error whose Field is the path of the offending
 // value, such as "units[2].population".
 func fromJS(r jsReader) (*jsondoc.Value, error) {
-	return convertJS(r, "", 0)
+	left := MaxValues
+	return convertJS(r, "", 0, &left)
 }
 
-func convertJS(r jsReader, path string, depth int) (*jsondoc.Value, error) {
+// convertJS converts r, which may hold at most *left values, and takes
+// those it holds from *left.
+func convertJS(r jsReader, path string, depth int, left *int) (*jsondoc.Value, error) {
 	if depth > MaxDepth {
-		return nil, pathError(topMember(path), "nested too deeply (more than "+strconv.Itoa(MaxDepth)+" levels, or an object that contains itself)")
+		return nil, pathError(topMember(path), "nested too deeply (more than "+strconv.Itoa(MaxDepth)+" levels, limits().depth, or an object that contains itself)")
 	}
+	if *left <= 0 {
+		return nil, pathError(path, tooManyValues)
+	}
+	*left--
 	switch k := r.kind(); k {
 	case jsUndefined, jsNull:
 		return jsondoc.NullValue(), nil
@@ -139,8 +147,8 @@ func convertJS(r jsReader, path string, depth int) (*jsondoc.Value, error) {
 		if err != nil {
 			return nil, jsError(path, err)
 		}
-		if n < 0 || n > MaxItems {
-			return nil, pathError(path, "an array of "+strconv.Itoa(n)+" elements is longer than the limit of "+strconv.Itoa(MaxItems))
+		if n < 0 || n > *left {
+			return nil, pathError(path, "an array of "+strconv.Itoa(n)+" elements: "+tooManyValues)
 		}
 		arr := &jsondoc.Value{Kind: jsondoc.Array, Items: make([]*jsondoc.Value, 0, min(n, 1024))}
 		for i := 0; i < n; i++ {
@@ -149,7 +157,7 @@ func convertJS(r jsReader, path string, depth int) (*jsondoc.Value, error) {
 			if err != nil {
 				return nil, jsError(p, err)
 			}
-			v, err := convertJS(x, p, depth+1)
+			v, err := convertJS(x, p, depth+1, left)
 			if err != nil {
 				return nil, err
 			}
@@ -161,8 +169,8 @@ func convertJS(r jsReader, path string, depth int) (*jsondoc.Value, error) {
 		if err != nil {
 			return nil, jsError(path, err)
 		}
-		if len(keys) > MaxItems {
-			return nil, pathError(path, "an object with "+strconv.Itoa(len(keys))+" members has more than the limit of "+strconv.Itoa(MaxItems))
+		if len(keys) > *left {
+			return nil, pathError(path, "an object of "+strconv.Itoa(len(keys))+" members: "+tooManyValues)
 		}
 		obj := &jsondoc.Value{Kind: jsondoc.Object, Fields: make([]jsondoc.Field, 0, len(keys))}
 		for _, key := range keys {
@@ -177,7 +185,7 @@ func convertJS(r jsReader, path string, depth int) (*jsondoc.Value, error) {
 			if x.kind() == jsUndefined {
 				continue
 			}
-			v, err := convertJS(x, p, depth+1)
+			v, err := convertJS(x, p, depth+1, left)
 			if err != nil {
 				return nil, err
 			}
@@ -225,6 +233,9 @@ func numberName(f float64) string {
 	return "-Infinity"
 }
 
+// tooManyValues says that an argument holds more values than MaxValues.
+var tooManyValues = "the argument holds more than the limit of " + strconv.Itoa(MaxValues) + " values (limits().values)"
+
 func pathError(path, msg string) error {
 	return &input.Error{Field: path, Msg: msg}
 }
@@ -238,7 +249,7 @@ func jsError(path string, err error) error {
 // exactly what fromJS would read from the value: no null (which stands for
 // NaN, Infinity, holes, undefined in arrays, functions and symbols in
 // arrays, or null), no number written with an exponent (fromJS writes
-// every number as a plain decimal), no array or object beyond MaxItems.
+// every number as a plain decimal).
 // It clears the line numbers on the way: they are the text's, which the
 // caller never saw.
 func plainJSON(v *jsondoc.Value) bool {
@@ -253,18 +264,12 @@ func plainJSON(v *jsondoc.Value) bool {
 			}
 		}
 	case jsondoc.Array:
-		if len(v.Items) > MaxItems {
-			return false
-		}
 		for _, x := range v.Items {
 			if !plainJSON(x) {
 				return false
 			}
 		}
 	case jsondoc.Object:
-		if len(v.Fields) > MaxItems {
-			return false
-		}
 		for _, f := range v.Fields {
 			if !plainJSON(f.Value) {
 				return false

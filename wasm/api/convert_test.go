@@ -100,8 +100,9 @@ func TestFromJS(t *testing.T) {
 		{name: "throwing getter", in: fakeObj("units", &fake{k: jsArray, throw: boom}), field: "units", msg: "boom"},
 		{name: "throwing object", in: &fake{k: jsObject, throw: boom}, field: "", msg: "boom"},
 		{name: "too deep", in: deep, field: "units", msg: "nested too deeply"},
-		{name: "too long", in: &fake{k: jsArray, n: MaxItems + 1}, msg: "longer than the limit"},
-		{name: "too many members", in: &fake{k: jsObject, keyList: make([]string, MaxItems+1)}, msg: "more than the limit"},
+		{name: "too long", in: &fake{k: jsArray, n: MaxValues + 1}, msg: "more than the limit"},
+		{name: "too many members", in: &fake{k: jsObject, keyList: make([]string, MaxValues+1)}, msg: "more than the limit"},
+		{name: "too many values in all", in: fakeArr(&fake{k: jsArray, n: MaxValues / 2}, &fake{k: jsArray, n: MaxValues / 2}), field: "[1]", msg: "more than the limit"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			v, err := fromJS(tc.in)

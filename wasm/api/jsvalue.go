@@ -124,7 +124,7 @@ func (rt *jsRuntime) viaJSON(v safejs.Value, k jsKind) *jsondoc.Value {
 	if err != nil || len(text) > MaxText {
 		return nil
 	}
-	doc, err := jsondoc.Parse([]byte(text))
+	doc, err := jsondoc.ParseLimit([]byte(text), MaxValues)
 	if err != nil || !plainJSON(doc) {
 		return nil
 	}
@@ -258,7 +258,7 @@ func (x *jsValue) keys() ([]string, error) {
 	if err != nil {
 		return nil, err
 	}
-	if n > MaxItems {
+	if n > MaxValues {
 		return make([]string, n), nil // the caller refuses it by its length
 	}
 	keys := make([]string, n)

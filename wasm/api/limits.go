@@ -1,6 +1,7 @@
 package api
 
 import (
+	"errors"
 	"strconv"
 	"strings"
 
@@ -31,14 +32,25 @@ const (
 	// MaxText is the longest string any argument may hold, in bytes
 	// (UTF-8): a CSV table, a scenario's or a block's JSON text.
 	MaxText = 32 << 20
-	// MaxItems is the longest array, and the most members of an object,
-	// an argument may hold; MaxDepth the deepest nesting.
-	MaxItems = 100_000
-	MaxDepth = jsondoc.MaxDepth
+	// MaxValues is the most values (numbers, strings, arrays, objects...)
+	// an argument may hold in all, also when it is given as JSON text:
+	// each takes about a hundred bytes as the engine reads it. MaxDepth
+	// is the deepest nesting.
+	MaxValues = 1_000_000
+	MaxDepth  = jsondoc.MaxDepth
+	// MaxMarginUnits is the most units for which allot computes the
+	// margins on request, and AutoMarginUnits the most for which it
+	// computes them unasked. (The closed-form margins of divisor methods
+	// take the engine about 0.2 s natively at 10,000 units of a house of
+	// 100,000, but grow faster than the units beyond.)
+	MaxMarginUnits  = 20_000
+	AutoMarginUnits = 10_000
 	// MaxSearchedMargins is the most units for which allot computes, on
-	// request, the margins that need a search (largest-remainder methods,
-	// and any method with a threshold).
-	MaxSearchedMargins = 10_000
+	// request, the margins that need a search of apportionments
+	// (largest-remainder methods, and any method with a threshold): every
+	// probe of the search apportions the whole scenario again, about a
+	// second natively at 300 units by Hamilton's method.
+	MaxSearchedMargins = 300
 	// AutoSearchedMargins is the most units for which allot computes
 	// those margins without being asked; AutoOrderSeats the largest house
 	// for which it lists the seat order without being asked.
@@ -58,7 +70,8 @@ func Limits() []Limit {
 	return []Limit{
 		{"units", MaxUnits}, {"compare_units", MaxCompareUnits}, {"seats", MaxSeats},
 		{"name_length", MaxNameLength}, {"title_length", MaxTitleLength}, {"text_bytes", MaxText},
-		{"items", MaxItems}, {"depth", MaxDepth},
+		{"values", MaxValues}, {"depth", MaxDepth},
+		{"margin_units", MaxMarginUnits}, {"auto_margin_units", AutoMarginUnits},
 		{"searched_margin_units", MaxSearchedMargins}, {"auto_searched_margin_units", AutoSearchedMargins},
 		{"auto_order_seats", AutoOrderSeats},
 		{"calculator_units", calc.MaxUnits},
@@ -122,7 +135,19 @@ func CheckScenario(title string, s *engine.Scenario, units int, unitsKey string)
 		return &input.Error{Field: "seats", Msg: "the house size " + strconv.Itoa(s.Seats) +
 			" is larger than the limit of " + strconv.Itoa(MaxSeats) + " seats (limits().seats); the command-line tool takes larger houses"}
 	}
-	return calc.CheckNames(title, s)
+	if err := calc.CheckNames(title, s); err != nil {
+		// Name the limit as limits() does.
+		var ie *input.Error
+		if errors.As(err, &ie) {
+			key := "name_length"
+			if ie.Field == "title" {
+				key = "title_length"
+			}
+			return &input.Error{Field: ie.Field, Msg: ie.Msg + " (limits()." + key + ")"}
+		}
+		return err
+	}
+	return nil
 }
 
 // checkText refuses a string argument longer than MaxText.
