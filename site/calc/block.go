@@ -82,6 +82,21 @@ type Block struct {
 	vary *variationMode
 }
 
+// NeedsAnalysis reports whether the block needs the WebAssembly analysis
+// module rather than the calculator module: a variation block, or a block
+// with a claim about paradoxes (see UseVariations).
+func (b *Block) NeedsAnalysis() bool {
+	if b.Mode.IsVariation() {
+		return true
+	}
+	for _, c := range b.Claims {
+		if c.Kind.IsParadox() {
+			return true
+		}
+	}
+	return false
+}
+
 // ParseBlock reads a calculator block from its JSON document. Errors are
 // *input.Error values naming file, line and field.
 func ParseBlock(file, id string, mode Mode, v *jsondoc.Value) (*Block, error) {

@@ -545,7 +545,10 @@ func TestBrowser(t *testing.T) {
 		}
 		// Capture the export instead of saving it.
 		tb.do(chromedp.Evaluate[chromedp.Void](`window.__blobs = []; const o = URL.createObjectURL; URL.createObjectURL = (b) => { window.__blobs.push(b); return o.call(URL, b); }; HTMLAnchorElement.prototype.click = function () {};`))
-		tb.do(chromedp.Click(chromedp.CSS(`#workbench [data-action="export-csv"]`)), chromedp.Click(chromedp.CSS(`#workbench [data-action="export-json"]`)))
+		tb.do(chromedp.Click(chromedp.CSS(`#workbench [data-action="export-csv"]`)))
+		tb.waitFor("the CSV export", `window.__blobs.length === 1`)
+		tb.do(chromedp.Click(chromedp.CSS(`#workbench [data-action="export-json"]`)))
+		tb.waitFor("the JSON export", `window.__blobs.length === 2`)
 		out := eval[string](tb, `Promise.all(window.__blobs.map(b => b.text())).then(t => JSON.stringify(t))`)
 		var texts []string
 		json.Unmarshal([]byte(out), &texts)
@@ -562,6 +565,7 @@ func TestBrowser(t *testing.T) {
 		// A bad table is reported by line and leaves the units alone.
 		tb.do(chromedp.SetValue(chromedp.CSS(`#workbench [data-field="csv"]`), "name,population\nA,12\nB,lots\n"),
 			chromedp.Click(chromedp.CSS(`#workbench [data-action="use-csv"]`)))
+		tb.waitFor("the notice", `document.querySelector('#workbench [data-role=notice]').textContent.includes('could not be read')`)
 		note := eval[string](tb, `document.querySelector('#workbench [data-role=notice]').textContent`)
 		if !strings.Contains(note, "line 3") {
 			t.Errorf("bad CSV notice: %q", note)

@@ -110,6 +110,18 @@ func Build(opt Options) (*Stats, error) {
 		return nil, err
 	}
 	add(fingerprint("assets", "wasm_exec.js", execMin))
+	// The engine's worker is one script: Go's runtime support, then the
+	// worker's own code.
+	workerRaw, err := read(filepath.Join(root, "wasm", "js", "engine-worker.js"))
+	if err != nil {
+		return nil, err
+	}
+	workerMin, err := minifyAs(m, "text/javascript", workerRaw, "engine-worker.js")
+	if err != nil {
+		return nil, err
+	}
+	workerJS := append(append(append([]byte(nil), execMin...), '\n'), workerMin...)
+	add(fingerprint("assets", "engine-worker.js", workerJS))
 	engines := opt.Engines
 	if engines == nil {
 		if engines, err = buildEngines(opt.Wasm); err != nil {
@@ -119,7 +131,7 @@ func Build(opt Options) (*Stats, error) {
 	eng := engines.Calculator
 	add(fingerprint("assets", "seatsmith.wasm", eng))
 	add(fingerprint("assets", "seatsmith-analysis.wasm", engines.Analysis))
-	if err := addProjectionAssets(root, opt.Src, m, add); err != nil {
+	if err := addProjectionAssets(root, opt.Src, m, add, assets["bridge.js"]); err != nil {
 		return nil, err
 	}
 	data, _ := filepath.Glob(filepath.Join(opt.Src, "scenarios", "*"))
@@ -140,6 +152,7 @@ func Build(opt Options) (*Stats, error) {
 	// Unfingerprinted copies for pages elsewhere that embed a calculator.
 	files["embed/bridge.js"] = bridgeMin
 	files["embed/wasm_exec.js"] = execMin
+	files["embed/engine-worker.js"] = workerJS
 	files["embed/seatsmith.wasm"] = eng
 	files["embed/seatsmith-analysis.wasm"] = engines.Analysis
 	files["embed/seatsmith.css"] = cssMin
@@ -174,7 +187,7 @@ func Build(opt Options) (*Stats, error) {
 	if off == nil {
 		return nil, fmt.Errorf("%s: no page %s.html to make the offline file from", filepath.Join(opt.Src, "pages"), offlinePage)
 	}
-	offline, offlineCSP, err := renderOffline(s, off, string(layout), assets, m, cssMin, execMin, bridgeMin, eng)
+	offline, offlineCSP, err := renderOffline(s, off, string(layout), assets, m, cssMin, execMin, bridgeMin, workerMin, eng)
 	if err != nil {
 		return nil, err
 	}
@@ -225,6 +238,9 @@ type pageData struct {
 	Offline bool
 	CSP     string
 	Caution string
+	// Engine is the WebAssembly module the page's blocks need (its asset
+	// name), which the page asks for early; empty for a page without.
+	Engine string
 }
 
 // renderPage executes the layout and page templates. Calculator blocks are
@@ -287,7 +303,7 @@ func renderPage(s *site, p *page, layout string, assets map[string]asset, inline
 			return nil, fmt.Errorf("%s: the page defines no %q template ({{define %q}}…{{end}})", p.File, need, need)
 		}
 	}
-	d := pageData{Name: p.Name, CSP: CSP, Caution: report.Caution}
+	d := pageData{Name: p.Name, CSP: CSP, Caution: report.Caution, Engine: p.engine()}
 	if inline != nil {
 		d.Offline = true
 		d.CSP = inline.csp
@@ -335,12 +351,13 @@ func cspHash(content []byte) string {
 }
 
 // renderOffline writes the offline file: the full calculator page with the
-// stylesheet, the runtime, the bridge and the engine (gzip, base64) inlined,
-// and a policy that allows exactly those inline scripts and styles.
+// stylesheet, the runtime, the bridge, the worker's source and the engine
+// (gzip, base64) inlined, and a policy that allows exactly those inline
+// scripts and styles, and the worker the bridge makes from them.
 func renderOffline(s *site, p *page, layout string, assets map[string]asset, m interface {
 	Bytes(string, []byte) ([]byte, error)
-}, css, execJS, bridge, eng []byte) ([]byte, string, error) {
-	for _, part := range [][]byte{execJS, bridge} {
+}, css, execJS, bridge, worker, eng []byte) ([]byte, string, error) {
+	for _, part := range [][]byte{execJS, bridge, worker} {
 		if bytes.Contains(bytes.ToLower(part), []byte("</script")) {
 			return nil, "", fmt.Errorf("a script to inline contains </script")
 		}
@@ -348,8 +365,10 @@ func renderOffline(s *site, p *page, layout string, assets map[string]asset, m i
 	if bytes.Contains(bytes.ToLower(css), []byte("</style")) {
 		return nil, "", fmt.Errorf("the stylesheet contains </style")
 	}
+	// The engine's worker is made from the inlined runtime and worker
+	// source, as a blob.
 	csp := "default-src 'none'; script-src " + cspHash(execJS) + " " + cspHash(bridge) + " 'wasm-unsafe-eval'; style-src " + cspHash(css) +
-		"; img-src data:; base-uri 'none'; form-action 'none'"
+		"; worker-src blob:; img-src data:; base-uri 'none'; form-action 'none'"
 	out, err := renderPage(s, p, layout, assets, &inlineParts{csp: csp})
 	if err != nil {
 		return nil, "", err
@@ -358,7 +377,8 @@ func renderOffline(s *site, p *page, layout string, assets map[string]asset, m i
 	if err != nil {
 		return nil, "", fmt.Errorf("offline.html: cannot minify: %v", err)
 	}
-	head := "<style>" + string(css) + "</style><script>" + string(execJS) + "</script><script type=\"module\">" + string(bridge) + "</script></head>"
+	head := "<style>" + string(css) + "</style><script data-seatsmith-runtime>" + string(execJS) + "</script><script type=\"module\">" + string(bridge) + "</script>" +
+		"<script type=\"text/plain\" data-seatsmith-worker>" + string(worker) + "</script></head>"
 	body := "<script type=\"application/octet-stream\" data-seatsmith-engine data-encoding=\"gzip\">" +
 		base64.StdEncoding.EncodeToString(gzipBytes(eng)) + "</script></body>"
 	h := string(min)

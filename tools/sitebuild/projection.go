@@ -1,9 +1,12 @@
 package main
 
 import (
+	"bytes"
 	"context"
 	"errors"
+	"fmt"
 	"os"
+	"path"
 	"path/filepath"
 	"regexp"
 	"strconv"
@@ -174,17 +177,17 @@ func projectionGolden(p *page) string {
 	return b.String()
 }
 
-// projectionAssets are the projection block's own files: its stylesheet,
-// the page script and the worker that runs the engine.
+// projectionAssets are the projection block's own files: its stylesheet
+// and the page script, which runs the draws on the bridge's engine.
 var projectionAssets = []struct{ name, dir, mediatype string }{
 	{"projection.css", "site/static", "text/css"},
 	{"projection.js", "wasm/js", "text/javascript"},
-	{"projection-worker.js", "wasm/js", "text/javascript"},
 }
 
 // addProjectionAssets minifies and fingerprints the projection block's
-// files and hands each to add.
-func addProjectionAssets(root, src string, m *minify.M, add func(asset)) error {
+// files and hands each to add. The page script's import of the bridge is
+// pointed at the bridge's fingerprinted name, beside it in assets/.
+func addProjectionAssets(root, src string, m *minify.M, add func(asset), bridge asset) error {
 	for _, a := range projectionAssets {
 		dir := filepath.Join(root, a.dir)
 		if a.dir == "site/static" {
@@ -193,6 +196,13 @@ func addProjectionAssets(root, src string, m *minify.M, add func(asset)) error {
 		raw, err := os.ReadFile(filepath.Join(dir, a.name))
 		if err != nil {
 			return err
+		}
+		if a.name == "projection.js" {
+			const imp = "from './bridge.js'"
+			if !bytes.Contains(raw, []byte(imp)) {
+				return fmt.Errorf("%s: no import %s to point at the built bridge", a.name, imp)
+			}
+			raw = bytes.Replace(raw, []byte(imp), []byte("from './"+path.Base(bridge.Path)+"'"), 1)
 		}
 		min, err := minifyAs(m, a.mediatype, raw, a.name)
 		if err != nil {

@@ -123,3 +123,22 @@ func (p *page) claimIDs() map[string]bool {
 	}
 	return ids
 }
+
+// engine returns the asset name of the WebAssembly module the page's
+// blocks need: the analysis module for variation blocks, paradox claims
+// and projections, the calculator module for calculators alone, and ""
+// for a page without blocks.
+func (p *page) engine() string {
+	if len(p.Projections) > 0 {
+		return "seatsmith-analysis.wasm"
+	}
+	for _, br := range p.Blocks {
+		if br.Block.NeedsAnalysis() {
+			return "seatsmith-analysis.wasm"
+		}
+	}
+	if len(p.Blocks) > 0 {
+		return "seatsmith.wasm"
+	}
+	return ""
+}

@@ -8,14 +8,21 @@
 //     <script type="application/json">{"seats": 40, "method": "webster", "units": [...]}</script>
 //   </div>
 //
-// The bridge loads Go's wasm_exec.js and the seatsmith engine (from the
-// same folder as this file unless <meta name="seatsmith-engine"> and
-// <meta name="seatsmith-runtime"> name other URLs, or from an inlined
-// <script type="application/octet-stream" data-seatsmith-engine> block in a
-// self-contained page), then renders each calculator with the engine's
-// `calculator` function. The engine returns markup as a tree of tags, text
-// and attributes; the bridge builds DOM nodes from it and never parses
-// HTML, so names and other text from the user always show as text.
+// The bridge compiles the seatsmith engine (from the same folder as this
+// file unless <meta name="seatsmith-engine"> names another URL, or from an
+// inlined <script type="application/octet-stream" data-seatsmith-engine>
+// block in a self-contained page) as soon as it runs, and runs it in a Web
+// Worker (engine-worker.js beside this file, or <meta
+// name="seatsmith-worker">), so that no computation freezes the page. Each
+// calculator asks the engine's `calculator` function for its results; the
+// engine returns markup as a tree of tags, text and attributes; the bridge
+// builds DOM nodes from it and never parses HTML, so names and other text
+// from the user always show as text. An edit that arrives while work runs
+// supersedes it; long work shows its progress and can be stopped; an
+// engine that stops is started afresh for the next edit. Where no worker
+// can run (an old browser, a page opened from disk whose policy forbids
+// it), the engine runs in the page itself, with Go's wasm_exec.js (beside
+// this file, or <meta name="seatsmith-runtime">).
 //
 // data-seatsmith names the kind of block: "compact" or "full" for a
 // calculator, "sweep" (seats across a range of house sizes), "growth" (two
@@ -24,9 +31,15 @@
 //
 // Each calculator root carries data-state: "static" (rendered ahead of
 // time), "live" (the engine has run here) or "error" (with the message
-// shown). The edited scenario is kept in the URL fragment as
-// #ID=BASE64URL(JSON), written once the reader pauses, so a link
-// reproduces the same view.
+// shown), and data-busy="true" while the engine works for it. The edited
+// scenario is kept in the URL fragment as #ID=BASE64URL(JSON), written
+// once the reader pauses, so a link reproduces the same view. The page's
+// performance timeline gets the mark "seatsmith-live" when the first
+// calculator goes live.
+//
+// Other scripts may import findBlocks (where the blocks are), Calculator
+// (one block made live inside its root), engineFor (the page's engine) and
+// build (a render tree as DOM nodes).
 
 const ROOT = '[data-seatsmith]';
 const SVG_NS = 'http://www.w3.org/2000/svg';
@@ -173,51 +186,294 @@ function base64Bytes(text) {
   return out;
 }
 
-async function instantiate(go, analysis) {
+// engineBytes returns the bytes of an engine inlined in the page (the
+// offline file), or null.
+async function inlineBytes() {
   const inline = document.querySelector('script[type="application/octet-stream"][data-seatsmith-engine]');
-  if (inline) {
-    let bytes = base64Bytes(inline.textContent);
-    if (inline.getAttribute('data-encoding') === 'gzip') {
-      const stream = new Blob([bytes]).stream().pipeThrough(new DecompressionStream('gzip'));
-      bytes = await new Response(stream).arrayBuffer();
-    }
-    return (await WebAssembly.instantiate(bytes, go.importObject)).instance;
+  if (!inline) return null;
+  let bytes = base64Bytes(inline.textContent);
+  if (inline.getAttribute('data-encoding') === 'gzip') {
+    const stream = new Blob([bytes]).stream().pipeThrough(new DecompressionStream('gzip'));
+    bytes = await new Response(stream).arrayBuffer();
   }
+  return bytes;
+}
+
+// compileEngine fetches and compiles the calculator module, or the analysis
+// module (a superset, for variation blocks, paradox claims and
+// projections), compiling while the bytes arrive where the server allows.
+async function compileEngine(analysis) {
+  const bytes = await inlineBytes();
+  if (bytes) return WebAssembly.compile(bytes);
   const url = analysis ? metaURL('seatsmith-analysis-engine', 'seatsmith-analysis.wasm') : metaURL('seatsmith-engine', 'seatsmith.wasm');
-  if (WebAssembly.instantiateStreaming && /^https?:/.test(url)) {
+  if (WebAssembly.compileStreaming && /^https?:/.test(url)) {
     try {
-      return (await WebAssembly.instantiateStreaming(fetch(url), go.importObject)).instance;
+      return await WebAssembly.compileStreaming(fetch(url));
     } catch (e) {
-      // A server that sends the wrong MIME type: fall back to a buffer.
+      // A server that sends the wrong MIME type, or an error: try again
+      // from a buffer, which says which.
     }
   }
   const resp = await fetch(url);
-  if (!resp.ok) throw new Error('could not load the engine (' + resp.status + ')');
-  return (await WebAssembly.instantiate(await resp.arrayBuffer(), go.importObject)).instance;
+  if (!resp.ok) throw new Error('could not load the engine (' + resp.status + ' for ' + url + ')');
+  return WebAssembly.compile(await resp.arrayBuffer());
 }
 
-let enginePromise = null;
+// workerURL returns the URL of the engine's worker script: the page's
+// (meta), one built from the inlined runtime and worker source of a
+// self-contained page, or engine-worker.js beside this file.
+function workerURL() {
+  const m = document.querySelector('meta[name="seatsmith-worker"]');
+  if (m && m.content) return new URL(m.content, document.baseURI).href;
+  const src = document.querySelector('script[type="text/plain"][data-seatsmith-worker]');
+  const runtime = document.querySelector('script[data-seatsmith-runtime]');
+  if (src && runtime) return URL.createObjectURL(new Blob([runtime.textContent, '\n', src.textContent], { type: 'text/javascript' }));
+  return new URL('engine-worker.js', here).href;
+}
 
-// engine loads the seatsmith engine once and resolves to its API object:
-// the analysis module when analysis is true (a superset of the calculator
-// module, for variation blocks and paradox claims), else the calculator
-// module.
-export function engine(analysis) {
-  if (!enginePromise) {
-    enginePromise = (async () => {
+// LONG is how long, in milliseconds, a job may run before the reader sees
+// it working and can stop it, and before an edit that supersedes it ends
+// the worker rather than waiting for it.
+const LONG = 400;
+
+// EngineStopped is the error of a job whose engine stopped for good (the
+// Go program exited or trapped): the next job starts a fresh engine.
+export class EngineStopped extends Error {}
+
+// An Engine runs jobs on one module, one at a time, in a Web Worker (or,
+// where none can run, in the page). A job belongs to an owner (a
+// calculator, a projection block): a new job of an owner supersedes its
+// waiting ones, which resolve to null, and its running one, which the
+// engine ends by starting a fresh worker if it is long (asked as long, or
+// running for LONG ms) and otherwise lets finish, its answer then ignored
+// by the owner.
+class Engine {
+  constructor(analysis) {
+    this.analysis = analysis;
+    this.module = compileEngine(analysis);
+    this.module.catch(() => {}); // reported by the first job
+    this.worker = null;
+    this.ready = null; // resolves once the worker's engine has started
+    this.page = null; // the engine in the page, when no worker can run
+    this.noWorker = typeof Worker !== 'function';
+    this.queue = [];
+    this.job = null;
+    this.ids = 0;
+    // Start the worker at once, while the module downloads.
+    if (!this.noWorker) this.boot();
+  }
+
+  // boot starts a worker and hands it the module once compiled.
+  boot() {
+    let w;
+    try {
+      w = new Worker(workerURL());
+    } catch (e) {
+      this.noWorker = true;
+      return;
+    }
+    this.worker = w;
+    let started = false;
+    this.ready = new Promise((resolve, reject) => {
+      w.onmessage = (e) => {
+        const m = e.data || {};
+        if (m.type === 'ready') {
+          started = true;
+          resolve();
+        } else if (m.type === 'dead' && m.id === undefined) reject(new EngineStopped(m.message));
+        else this.message(w, m);
+      };
+      w.onerror = (e) => {
+        e.preventDefault();
+        if (this.worker !== w) return;
+        // A worker that never started (a script that cannot load, a policy
+        // that forbids it) makes the engine run in the page instead.
+        if (!started) reject(new Error('no worker: ' + (e.message || 'it did not start')));
+        else this.stopped(w, 'the engine\u2019s worker failed: ' + (e.message || 'unknown error'));
+      };
+    });
+    this.ready.catch(() => {});
+    this.module.then((module) => w.postMessage({ type: 'start', module }), () => {});
+  }
+
+  // call runs globalThis.seatsmith[fn](...args) and resolves to its answer,
+  // or to null when superseded. opts: owner, long.
+  call(fn, args, opts) {
+    return this.enqueue({ type: 'call', fn, args }, opts || {});
+  }
+
+  // project runs a projection block's draws; opts.progress(done, total)
+  // hears of each chunk.
+  project(config, block, opts) {
+    return this.enqueue({ type: 'project', config, block, chunk: 100 }, opts || {});
+  }
+
+  enqueue(msg, opts) {
+    return new Promise((resolve, reject) => {
+      const job = { msg, owner: opts.owner, long: !!opts.long, progress: opts.progress, resolve, reject, id: ++this.ids };
+      if (job.owner) {
+        this.queue = this.queue.filter((q) => {
+          if (q.owner !== job.owner) return true;
+          q.resolve(null);
+          return false;
+        });
+        const run = this.job;
+        if (run && run.owner === job.owner && (run.long || performance.now() - run.started > LONG)) this.restart();
+      }
+      this.queue.push(job);
+      this.pump();
+    });
+  }
+
+  // stop ends the owner's work: waiting jobs resolve to null, a running one
+  // ends with its worker. It reports whether anything was running.
+  stop(owner) {
+    this.queue = this.queue.filter((q) => {
+      if (q.owner !== owner) return true;
+      q.resolve(null);
+      return false;
+    });
+    if (this.job && this.job.owner === owner) {
+      if (this.job.msg.type === 'project' && this.worker) {
+        this.worker.postMessage({ type: 'cancel', id: this.job.id });
+        this.job.resolve(null);
+        this.job = null;
+        this.pump();
+      } else this.restart();
+      return true;
+    }
+    return false;
+  }
+
+  // restart ends the worker and its running job (which resolves to null),
+  // and starts another for the jobs waiting.
+  restart() {
+    const run = this.job;
+    this.job = null;
+    if (this.worker) this.worker.terminate();
+    this.worker = null;
+    this.ready = null;
+    this.page = null;
+    if (run) run.resolve(null);
+    this.pump();
+  }
+
+  // stopped is called when the engine stopped for good while running a
+  // job: the job fails with EngineStopped, and the next job gets a fresh
+  // engine.
+  stopped(worker, message) {
+    if (worker && worker !== this.worker) return;
+    if (this.worker) this.worker.terminate();
+    this.worker = null;
+    this.ready = null;
+    this.page = null;
+    const run = this.job;
+    this.job = null;
+    if (run) run.reject(new EngineStopped(message));
+    this.pump();
+  }
+
+  async pump() {
+    if (this.job || !this.queue.length) return;
+    const job = this.queue.shift();
+    this.job = job;
+    job.started = performance.now();
+    try {
+      await this.module;
+      if (!this.noWorker) {
+        if (!this.worker) this.boot();
+        try {
+          await this.ready;
+        } catch (e) {
+          if (!(e instanceof EngineStopped) && this.job === job) {
+            this.noWorker = true; // no worker can run here: use the page
+            if (this.worker) this.worker.terminate();
+            this.worker = null;
+          } else throw e;
+        }
+      }
+      if (this.job !== job) return; // superseded while the engine started
+      if (!this.noWorker) {
+        this.worker.postMessage(Object.assign({ id: job.id }, job.msg));
+        return; // answered by message
+      }
+      await this.inPage(job);
+    } catch (e) {
+      if (this.job !== job) return;
+      this.job = null;
+      job.reject(e instanceof EngineStopped ? e : new Error(e && e.message ? e.message : String(e)));
+      this.pump();
+    }
+  }
+
+  // message handles a worker's answer, progress or death.
+  message(worker, m) {
+    const job = this.job;
+    if (worker !== this.worker || !job || m.id !== job.id) return;
+    if (m.type === 'progress') {
+      if (job.progress) job.progress(m.done, m.total);
+      return;
+    }
+    if (m.type === 'dead') {
+      this.stopped(worker, m.message);
+      return;
+    }
+    this.job = null;
+    job.resolve(m.value);
+    this.pump();
+  }
+
+  // inPage runs a job on an engine in the page.
+  async inPage(job) {
+    if (!this.page) {
       if (!globalThis.Go) await loadScript(metaURL('seatsmith-runtime', 'wasm_exec.js'));
       const go = new globalThis.Go();
-      const instance = await instantiate(go, analysis);
+      const instance = await WebAssembly.instantiate(await this.module, go.importObject);
       go.run(instance).catch(() => {});
-      for (let i = 0; i < 200 && !(globalThis.seatsmith && globalThis.seatsmith.calculator); i++) {
-        await new Promise((r) => setTimeout(r, 10));
+      if (!globalThis.seatsmith) throw new Error('the engine started but offers no API');
+      this.page = { go, api: globalThis.seatsmith };
+    }
+    await new Promise((r) => setTimeout(r, 0)); // let the page draw first
+    if (this.job !== job) return;
+    const { go, api } = this.page;
+    let value;
+    const m = job.msg;
+    try {
+      if (m.type === 'call') value = api[m.fn](...m.args);
+      else {
+        const st = api.projectStart(m.config);
+        if (st.error) value = st;
+        else {
+          let r = { done: 0 };
+          while (!r.error && r.done < st.draws) {
+            r = api.projectRun({ id: st.id, draws: 1000 });
+            if (job.progress && !r.error) job.progress(r.done, st.draws);
+            await new Promise((res) => setTimeout(res, 0));
+            if (this.job !== job) return;
+          }
+          value = r.error ? r : Object.assign({ done: r.done }, api.projectResult({ id: st.id, block: m.block }));
+          api.projectDrop({ id: st.id });
+        }
       }
-      const api = globalThis.seatsmith;
-      if (!api || typeof api.calculator !== 'function') throw new Error('the engine started but offers no calculator');
-      return api;
-    })();
+    } catch (e) {
+      if (!go.exited) throw e;
+    }
+    if (go.exited) throw new EngineStopped('the engine stopped');
+    if (this.job !== job) return;
+    this.job = null;
+    job.resolve(value);
+    this.pump();
   }
-  return enginePromise;
+}
+
+const engines = new Map();
+
+// engineFor returns the page's engine: the analysis module when analysis
+// is true, else the calculator module. Each is loaded once.
+export function engineFor(analysis) {
+  const key = analysis ? 'analysis' : 'calculator';
+  if (!engines.has(key)) engines.set(key, new Engine(analysis));
+  return engines.get(key);
 }
 
 // Fragment: "#id=payload&id2=payload2"; other fragments are left alone.
@@ -284,11 +540,17 @@ function download(name, type, text) {
 }
 
 let counter = 0;
+let wentLive = false;
 
-class Calculator {
-  constructor(root, api) {
+// A Calculator makes one block live inside its root element: it keeps the
+// scenario being edited, asks the engine for results after each edit and
+// renders them into the root. The root holds the block's
+// <script type="application/json"> and, when prerendered, its editor and
+// results (data-part="editor", data-part="output").
+export class Calculator {
+  constructor(root, engine) {
     this.root = root;
-    this.api = api;
+    this.engine = engine;
     if (!root.id) root.id = 'calculator-' + ++counter;
     this.id = root.id;
     const mode = root.getAttribute('data-seatsmith');
@@ -298,12 +560,18 @@ class Calculator {
     this.scenario = null;
     this.timer = 0;
     this.marginTimer = 0;
+    this.ticket = 0; // the last request asked: an answer to an older one is dropped
+    this.wired = false;
     // The folded sections the reader opened or closed, by class, kept
     // through edits, errors included.
     this.folds = new Map();
   }
 
-  call(extra) {
+  // ask sends a request to the engine and resolves to its answer, or to
+  // null when a later request superseded it, the reader stopped it or the
+  // engine stopped (which it then says). long marks work that may take
+  // long (margins on request, loads, exports).
+  async ask(extra, long) {
     // The scenario goes as JSON text: one string crosses into the engine
     // far faster than an object it must read member by member.
     const text = this.scenario == null ? null : JSON.stringify(this.scenario);
@@ -311,12 +579,23 @@ class Calculator {
     // large house it is the longest part of the results.
     const order = this.folds.get('sc-order') === true || !!this.root.querySelector('details.sc-order[open]');
     const req = Object.assign({ block_text: this.blockText, id: this.id, mode: this.mode, scenario_text: text, order }, extra);
+    const ticket = ++this.ticket;
+    this.working(true, extra && extra.margins === true ? 'margins' : 'results');
     let r;
     try {
-      r = this.api.calculator(req);
+      r = await this.engine.call('calculator', [req], { owner: this, long });
     } catch (e) {
+      if (ticket !== this.ticket) return null;
+      this.working(false);
+      if (e instanceof EngineStopped) {
+        this.stoppedEngine(e.message);
+        return null;
+      }
       r = { error: { message: String(e && e.message ? e.message : e) } };
     }
+    if (ticket !== this.ticket) return null;
+    this.working(false);
+    if (r === null) return null;
     if (!r || typeof r !== 'object') r = { error: { message: 'the engine gave no answer' } };
     if (!r.state) {
       // An error from the API layer itself: the request never reached the calculator.
@@ -326,7 +605,62 @@ class Calculator {
     return r;
   }
 
-  start() {
+  // working shows that the engine works for this calculator: data-busy at
+  // once, and after LONG ms a line with the time taken and a Stop button.
+  working(on, what) {
+    clearTimeout(this.busyTimer);
+    clearInterval(this.busyClock);
+    const line = this.root.querySelector('[data-role="busy"]');
+    if (!on) {
+      this.root.removeAttribute('data-busy');
+      if (line) line.remove();
+      return;
+    }
+    this.root.setAttribute('data-busy', 'true');
+    if (line) line.remove();
+    const since = performance.now();
+    this.busyTimer = setTimeout(() => {
+      const p = document.createElement('p');
+      p.className = 'sc-busy';
+      p.setAttribute('role', 'status');
+      p.setAttribute('data-role', 'busy');
+      p.setAttribute('data-work', what);
+      const bar = document.createElement('progress');
+      bar.setAttribute('aria-label', 'Working');
+      const label = document.createElement('span');
+      const stop = document.createElement('button');
+      stop.type = 'button';
+      stop.className = 'sc-button';
+      stop.setAttribute('data-action', 'stop');
+      stop.textContent = 'Stop';
+      p.append(bar, ' ', label, ' ', stop);
+      const tick = () => {
+        const s = Math.round((performance.now() - since) / 1000);
+        label.textContent = (what === 'margins' ? 'Computing the margins' : 'Computing') + '\u2026 ' + s + ' s. The page stays usable; an edit starts again.';
+      };
+      tick();
+      this.busyClock = setInterval(tick, 1000);
+      this.root.insertBefore(p, this.root.querySelector('[data-part="output"]') || null);
+    }, LONG);
+  }
+
+  // stop ends the work running for this calculator, keeping the results
+  // shown.
+  stop() {
+    this.ticket++;
+    this.working(false);
+    clearTimeout(this.marginTimer);
+    this.engine.stop(this);
+    this.notice('Stopped. The results shown are those of the last finished computation.', false);
+  }
+
+  // stoppedEngine says that the engine stopped; the next edit starts a
+  // fresh one.
+  stoppedEngine(message) {
+    this.alert('The engine stopped (' + message + '). It starts again with your next edit; the results shown are those of the last finished computation.');
+  }
+
+  async start() {
     let linked = null;
     let linkError = '';
     const frag = fragmentParts();
@@ -340,8 +674,12 @@ class Calculator {
     this.scenario = linked;
     // Margins that need a search come at once for a small scenario (as the
     // page prerendered them) and on request for a large one.
-    let r = this.call({ editor: true, margins: false });
-    if (r.margins_pending && r.margins_auto) r = this.call({ editor: true });
+    let r = await this.ask({ editor: true, margins: false });
+    if (r && r.margins_pending && r.margins_auto) r = (await this.ask({ editor: true })) || r;
+    if (!r) {
+      this.wire();
+      return;
+    }
     if (r.fatal) {
       this.fail(r.error.message);
       return;
@@ -353,8 +691,8 @@ class Calculator {
     this.wire();
   }
 
-  fail(message) {
-    this.root.setAttribute('data-state', 'error');
+  // alert shows a message in the calculator's alert line.
+  alert(text) {
     let box = this.root.querySelector('[data-role="engine-error"]');
     if (!box) {
       box = document.createElement('p');
@@ -363,8 +701,13 @@ class Calculator {
       box.setAttribute('data-role', 'engine-error');
       this.root.insertBefore(box, this.root.firstChild);
     }
-    box.textContent = 'The live calculator could not start: ' + message +
-      (this.root.querySelector('[data-part="output"]') ? ' The numbers shown were computed when the page was built.' : '');
+    box.textContent = text;
+  }
+
+  fail(message) {
+    this.root.setAttribute('data-state', 'error');
+    this.alert('The live calculator could not start: ' + message +
+      (this.root.querySelector('[data-part="output"]') ? ' The numbers shown were computed when the page was built.' : ''));
   }
 
   // replacePart puts the part built from tree in place of the current one.
@@ -406,6 +749,10 @@ class Calculator {
     const err = this.root.querySelector('[data-role="engine-error"]');
     if (err) err.remove();
     this.root.setAttribute('data-state', r.state === 'live' ? 'live' : 'error');
+    if (!wentLive && r.state === 'live') {
+      wentLive = true;
+      performance.mark('seatsmith-live');
+    }
     for (const el of this.root.querySelectorAll('[aria-invalid]')) {
       el.removeAttribute('aria-invalid');
       el.removeAttribute('aria-errormessage');
@@ -439,6 +786,8 @@ class Calculator {
   }
 
   wire() {
+    if (this.wired) return;
+    this.wired = true;
     const root = this.root;
     addEventListener('pagehide', () => {
       if (this.linkTimer) this.saveFragment();
@@ -523,12 +872,14 @@ class Calculator {
     return false;
   }
 
-  // refresh recomputes after an edit. Margins that need a search (largest
-  // remainders, thresholds) are left out so that typing stays quick, and
-  // asked for once the reader pauses.
-  refresh(withEditor, extra) {
+  // refresh recomputes after an edit and resolves to the answer (null when
+  // superseded). Margins that need a search (largest remainders,
+  // thresholds) are left out so that typing stays quick, and asked for
+  // once the reader pauses.
+  async refresh(withEditor, extra, long) {
     clearTimeout(this.marginTimer);
-    const r = this.call(Object.assign({ editor: withEditor, margins: false }, extra || {}));
+    const r = await this.ask(Object.assign({ editor: withEditor, margins: false }, extra || {}), long);
+    if (!r) return null;
     if (r.fatal) {
       this.fail(r.error.message);
       return r;
@@ -575,14 +926,18 @@ class Calculator {
     return u.href;
   }
 
-  onAction(action, button) {
+  async onAction(action, button) {
     const s = this.scenario;
     switch (action) {
+      case 'stop':
+        this.stop();
+        break;
       case 'add-unit': {
         s.units = Array.isArray(s.units) ? s.units : [];
         s.units.push({ name: 'Unit ' + (s.units.length + 1), population: '0' });
-        this.refresh(true);
-        const last = this.root.querySelector('[data-field="units.' + (s.units.length - 1) + '.name"]');
+        const n = s.units.length;
+        if (!(await this.refresh(true))) break;
+        const last = this.root.querySelector('[data-field="units.' + (n - 1) + '.name"]');
         if (last) {
           last.focus();
           last.select();
@@ -593,8 +948,9 @@ class Calculator {
         const k = Number(button.getAttribute('data-index'));
         if (Array.isArray(s.units) && s.units.length > 1) {
           s.units.splice(k, 1);
-          this.refresh(true);
-          const next = this.root.querySelector('[data-action="remove-unit"][data-index="' + Math.min(k, s.units.length - 1) + '"]');
+          const n = s.units.length;
+          if (!(await this.refresh(true))) break;
+          const next = this.root.querySelector('[data-action="remove-unit"][data-index="' + Math.min(k, n - 1) + '"]');
           if (next) next.focus();
           this.notice('Removed unit ' + (k + 1) + '.', false);
         } else {
@@ -603,15 +959,14 @@ class Calculator {
         break;
       }
       case 'margins': {
-        this.refresh(false, { margins: true });
+        if (!(await this.refresh(false, { margins: true }, true))) break;
         const t = this.root.querySelector('.sc-results-wrap .sc-scroll');
         if (t) t.focus();
         break;
       }
       case 'reset': {
         this.scenario = null;
-        this.refresh(true);
-        this.notice('Back to the page\u2019s own numbers.', false);
+        if (await this.refresh(true)) this.notice('Back to the page\u2019s own numbers.', false);
         break;
       }
       case 'use-csv': {
@@ -621,13 +976,14 @@ class Calculator {
           this.notice('Paste a CSV table first: a header row (name,population) and one row a unit.', true);
           break;
         }
-        const r = this.refresh(true, { load: { name: 'pasted table', text } });
-        if (!r.load_error) this.notice('Loaded ' + (this.scenario.units || []).length + ' units from the table.', false);
+        const r = await this.refresh(true, { load: { name: 'pasted table', text } }, true);
+        if (r && !r.load_error) this.notice('Loaded ' + (this.scenario.units || []).length + ' units from the table.', false);
         break;
       }
       case 'export-csv':
       case 'export-json': {
-        const r = this.call({ export: true });
+        const r = await this.ask({ export: true }, true);
+        if (!r) break;
         if (r.state !== 'live' || !r.csv) {
           this.notice('Fix the numbers first: there are no results to export.', true);
           break;
@@ -654,9 +1010,9 @@ class Calculator {
       this.notice('That file is larger than 20 MB.', true);
       return;
     }
-    file.text().then((text) => {
-      const r = this.refresh(true, { load: { name: file.name, text } });
-      if (!r.load_error) this.notice('Loaded ' + file.name + '.', false);
+    file.text().then(async (text) => {
+      const r = await this.refresh(true, { load: { name: file.name, text } }, true);
+      if (r && !r.load_error) this.notice('Loaded ' + file.name + '.', false);
     }, () => this.notice('The file could not be read.', true));
     input.value = '';
   }
@@ -702,29 +1058,22 @@ function needsAnalysis(root) {
   }
 }
 
-// start makes every calculator on the page live.
+// findBlocks returns the calculator blocks in scope (a document, an
+// element or a shadow root).
+export function findBlocks(scope) {
+  return [...(scope || document).querySelectorAll(ROOT)];
+}
+
+// start makes every calculator on the page live. The engine is fetched
+// and compiled at once, while the calculators wait for it.
 export async function start() {
-  const roots = [...document.querySelectorAll(ROOT)];
+  const roots = findBlocks(document);
   if (!roots.length) return [];
   ensureStyles(roots[0]);
-  let api;
-  try {
-    api = await engine(roots.some(needsAnalysis));
-  } catch (e) {
-    for (const root of roots) new Calculator(root, null).fail(e.message || String(e));
-    return [];
-  }
-  const calcs = [];
-  for (const root of roots) {
-    const c = new Calculator(root, api);
-    try {
-      c.start();
-    } catch (e) {
-      c.fail(e.message || String(e));
-    }
-    calcs.push(c);
-  }
+  const engine = engineFor(roots.some(needsAnalysis));
+  const calcs = roots.map((root) => new Calculator(root, engine));
   window.addEventListener('hashchange', () => calcs.forEach((c) => c.reloadFromFragment()));
+  await Promise.all(calcs.map((c) => c.start().catch((e) => c.fail(e.message || String(e)))));
   return calcs;
 }
 

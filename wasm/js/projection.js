@@ -1,72 +1,19 @@
 // The projection block of the seatsmith site. Every <div data-projection>
 // holds its document (a <script type="application/json">), the controls,
 // and the result the site build computed. This module enables the
-// controls and runs the draws again in a Web Worker (projection-worker.js),
-// which loads Go's wasm_exec.js and the engine inside the worker and
-// makes the draws in chunks, so that the page stays responsive, shows
-// progress and can cancel. The worker hands back the result as a tree of
-// tags, attributes and text, built here with createElement and
-// textContent: no HTML is parsed, so no text from the counts becomes
-// markup.
+// controls and runs the draws again on the page's analysis engine, which
+// the bridge runs in a Web Worker: the draws are made in chunks, so that
+// the page stays responsive, shows progress and can cancel. The engine
+// hands back the result as a tree of tags, attributes and text, built by
+// the bridge with createElement and textContent: no HTML is parsed, so no
+// text from the counts becomes markup.
 //
 // Test hooks: the root's data-state is "static" (built ahead), "running",
-// "live" (the engine ran here) or "error" (the message is in the element
-// with role="alert"); data-progress counts the draws made in the current
-// run.
+// "live" (the engine ran here), "cancelled" or "error" (the message is in
+// the element with role="alert"); data-progress counts the draws made in
+// the current run.
 
-const SVG_NS = 'http://www.w3.org/2000/svg';
-const TAGS = new Set(('a abbr button caption code col colgroup dd details div dl dt em fieldset figcaption figure form h2 h3 h4 ' +
-  'input label legend li ol optgroup option output p section select small span strong summary table tbody td textarea tfoot th ' +
-  'thead tr ul br hr mark b i sup sub svg g rect line text title desc path circle tspan').split(' '));
-const URL_ATTRS = new Set(['href', 'src', 'xlink:href', 'action', 'formaction', 'srcset', 'style']);
-
-function build(t, inSvg = false) {
-  if (typeof t === 'string') return document.createTextNode(t);
-  if (!Array.isArray(t) || typeof t[0] !== 'string' || !TAGS.has(t[0])) {
-    throw new Error('the engine returned markup this page does not accept');
-  }
-  const svg = inSvg || t[0] === 'svg';
-  const el = svg ? document.createElementNS(SVG_NS, t[0]) : document.createElement(t[0]);
-  const attrs = t[1] || {};
-  for (const k of Object.keys(attrs)) {
-    if (/^on/i.test(k) || URL_ATTRS.has(k.toLowerCase()) || !/^[a-zA-Z][a-zA-Z0-9:._-]*$/.test(k)) continue;
-    el.setAttribute(k, String(attrs[k]));
-  }
-  for (let i = 2; i < t.length; i++) el.appendChild(build(t[i], svg));
-  return el;
-}
-
-function assetURL(name) {
-  const m = document.querySelector('meta[name="' + name + '"]');
-  return m && m.content ? new URL(m.content, document.baseURI).href : '';
-}
-
-function workerURL() {
-  const s = document.querySelector('script[data-projection-worker]');
-  if (s) return new URL(s.getAttribute('data-projection-worker'), document.baseURI).href;
-  return new URL('projection-worker.js', import.meta.url).href;
-}
-
-let worker = null;
-let nextRun = 1;
-const blocks = new Map(); // run id → block
-
-function getWorker() {
-  if (worker) return worker;
-  worker = new Worker(workerURL());
-  worker.onmessage = (e) => {
-    const m = e.data || {};
-    const b = blocks.get(m.run);
-    if (b) b.message(m);
-  };
-  worker.onerror = (e) => {
-    e.preventDefault();
-    for (const b of blocks.values()) b.fail('the background engine stopped: ' + (e.message || 'unknown error'));
-    blocks.clear();
-    worker = null;
-  };
-  return worker;
-}
+import { build, engineFor } from './bridge.js';
 
 class Block {
   constructor(root) {
@@ -81,7 +28,7 @@ class Block {
     this.bar = root.querySelector('[data-role="projection-progress-bar"]');
     this.status = root.querySelector('[data-role="projection-status"]');
     this.error = root.querySelector('[data-role="projection-error"]');
-    this.run = 0;
+    this.running = false;
     for (const el of this.form.querySelectorAll('fieldset, textarea')) el.disabled = false;
     this.runButton.disabled = false;
     const note = root.querySelector('#' + CSS.escape(this.id) + '-form-note');
@@ -109,27 +56,48 @@ class Block {
     return c;
   }
 
-  start() {
-    if (this.run) this.cancel();
-    const engine = assetURL('seatsmith-analysis-engine');
-    const runtime = assetURL('seatsmith-runtime');
-    this.run = nextRun++;
-    blocks.set(this.run, this);
+  async start() {
+    if (this.running) this.cancel();
+    this.running = true;
     this.showError('');
     this.root.setAttribute('data-state', 'running');
     this.root.setAttribute('data-progress', '0');
     this.setProgress(0, Number(this.field('draws')) || 0);
-    this.status.textContent = 'Starting the engine…';
+    this.status.textContent = 'Starting the engine\u2026';
     this.runButton.disabled = true;
     this.cancelButton.disabled = false;
-    getWorker().postMessage({ type: 'run', run: this.run, engine, runtime, block: this.id, config: this.config() });
+    const progress = (done, total) => {
+      this.setProgress(done, total);
+      this.status.textContent = done.toLocaleString('en') + ' of ' + total.toLocaleString('en') + ' draws made\u2026';
+    };
+    let r;
+    try {
+      r = await engineFor(true).project(this.config(), this.id, { owner: this, progress });
+    } catch (err) {
+      r = { error: { message: String(err && err.message ? err.message : err) } };
+    }
+    if (r === null) return; // cancelled, or another run started
+    this.running = false;
+    if (r.error) {
+      this.fail(r.error.message);
+      return;
+    }
+    this.finish();
+    try {
+      this.show(r.view, r.claims);
+    } catch (err) {
+      this.fail(String(err && err.message ? err.message : err));
+      return;
+    }
+    this.setProgress(r.done, r.done);
+    this.status.textContent = r.done.toLocaleString('en') + ' draws made in your browser.';
+    this.root.setAttribute('data-state', 'live');
   }
 
   cancel() {
-    if (!this.run) return;
-    if (worker) worker.postMessage({ type: 'cancel', run: this.run });
-    blocks.delete(this.run);
-    this.run = 0;
+    if (!this.running) return;
+    this.running = false;
+    engineFor(true).stop(this);
     this.finish();
     this.root.setAttribute('data-state', 'cancelled');
     this.status.textContent = 'Cancelled after ' + Number(this.root.getAttribute('data-progress') || 0).toLocaleString('en') +
@@ -147,35 +115,6 @@ class Block {
     this.progress.setAttribute('aria-valuemax', String(total));
     this.progress.setAttribute('aria-valuenow', String(done));
     this.root.setAttribute('data-progress', String(done));
-  }
-
-  message(m) {
-    if (m.run !== this.run) return;
-    switch (m.type) {
-      case 'progress':
-        this.setProgress(m.done, m.total);
-        this.status.textContent = m.done.toLocaleString('en') + ' of ' + m.total.toLocaleString('en') + ' draws made…';
-        break;
-      case 'result':
-        blocks.delete(this.run);
-        this.run = 0;
-        this.finish();
-        try {
-          this.show(m.view, m.claims);
-        } catch (err) {
-          this.fail(String(err && err.message ? err.message : err));
-          return;
-        }
-        this.setProgress(m.done, m.done);
-        this.status.textContent = m.done.toLocaleString('en') + ' draws made in your browser.';
-        this.root.setAttribute('data-state', 'live');
-        break;
-      case 'error':
-        blocks.delete(this.run);
-        this.run = 0;
-        this.fail(m.message);
-        break;
-    }
   }
 
   show(view, claims) {
