@@ -636,7 +636,7 @@ export class Calculator {
       p.append(bar, ' ', label, ' ', stop);
       const tick = () => {
         const s = Math.round((performance.now() - since) / 1000);
-        label.textContent = (what === 'margins' ? 'Computing the margins' : 'Computing') + '\u2026 ' + s + ' s. The page stays usable; an edit starts again.';
+        label.textContent = (what === 'margins' ? 'Computing the margins' : 'Computing') + '\u2026 ' + s + ' s. You can keep editing: an edit replaces this computation.';
       };
       tick();
       this.busyClock = setInterval(tick, 1000);
