@@ -14,4 +14,5 @@ require (
 	github.com/chromedp/cdproto v0.159.0 // indirect
 	github.com/go-json-experiment/json v0.0.0-20260213210345-44df1a37e875 // indirect
 	github.com/tdewolff/parse/v2 v2.25.0 // indirect
+	golang.org/x/text v0.44.0 // indirect
 )

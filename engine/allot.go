@@ -434,25 +434,10 @@ func (pr *problem) seatAward(seat int, w award) SeatAward {
 // beyond lists the next k seats the procedure would hand out after the
 // given seats.
 func (pr *problem) beyond(seats []int, filled, k int) []SeatAward {
-	a := append([]int(nil), seats...)
-	h := &prioHeap{m: pr.m, pops: pr.pops, a: a}
-	var cand []int32
-	for i, p := range pr.pops {
-		if pr.eligible[i] && p > 0 && a[i] < pr.max[i] {
-			cand = append(cand, int32(i))
-		}
-	}
-	h.heapify(cand)
+	next, _ := pr.bestSeats(seats, false, k, nil, nil)
 	var out []SeatAward
-	for j := 0; j < k && len(h.idx) > 0; j++ {
-		u := h.top()
-		out = append(out, pr.seatAward(filled+j+1, award{u, prio{pr.pops[u], a[u]}}))
-		a[u]++
-		if a[u] < pr.max[u] {
-			h.down(0)
-		} else {
-			h.pop()
-		}
+	for j, s := range next {
+		out = append(out, pr.seatAward(filled+j+1, award{s.u, prio{pr.pops[s.u], s.k}}))
 	}
 	return out
 }

@@ -186,7 +186,7 @@ func BenchmarkJumpVsSequential(b *testing.B) {
 		b.Run(m.String()+"/jump", func(b *testing.B) {
 			b.ReportAllocs()
 			for b.Loop() {
-				if _, err := pr.divisorJump(); err != nil {
+				if _, err := pr.fastForm(); err != nil {
 					b.Fatal(err)
 				}
 			}
@@ -194,7 +194,7 @@ func BenchmarkJumpVsSequential(b *testing.B) {
 			seq := time.Duration(math.MaxInt64)
 			for range 2 {
 				t0 := time.Now()
-				if _, err := pr.divisorSequential(false); err != nil {
+				if _, err := pr.sequentialForm(); err != nil {
 					b.Fatal(err)
 				}
 				seq = min(seq, time.Since(t0))
@@ -203,7 +203,7 @@ func BenchmarkJumpVsSequential(b *testing.B) {
 		})
 		b.Run(m.String()+"/sequential", func(b *testing.B) {
 			for b.Loop() {
-				if _, err := pr.divisorSequential(false); err != nil {
+				if _, err := pr.sequentialForm(); err != nil {
 					b.Fatal(err)
 				}
 			}

@@ -29,7 +29,7 @@ func (pr *problem) certificateText(low prio, lowOK bool, high prio, highOK bool)
 // certificate64 finds the certificate f·10^e below a finite upper bound
 // high in 128-bit arithmetic; false when a number does not fit.
 func (pr *problem) certificate64(low prio, lowOK bool, high prio) (f uint64, e int, ok bool) {
-	hf := pr.m.prioApprox(high, pr.places)
+	hf := pr.m.prioEstimate(high) / math.Pow10(pr.places)
 	if !(hf > 0) || math.IsInf(hf, 0) {
 		return 0, 0, false
 	}
@@ -59,16 +59,6 @@ func (pr *problem) certificate64(low prio, lowOK bool, high prio) (f uint64, e i
 // certificateSteps bounds the powers of ten certificate64 tries; beyond
 // them math/big takes over.
 const certificateSteps = 60
-
-// prioApprox is the priority value x as a float64, for estimates only.
-func (m Method) prioApprox(x prio, places int) float64 {
-	s := m.signpost(x.a)
-	v := float64(x.p) / math.Pow10(places)
-	if s.sq {
-		return v / math.Sqrt(float64(s.n))
-	}
-	return v * float64(s.d) / float64(s.n)
-}
 
 // floorOver returns floor(x / 10^e) for the priority value x, which is
 // p·d/(10^places·n), or p/(10^places·sqrt(n)) under Huntington–Hill.

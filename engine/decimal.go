@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"cmp"
 	"errors"
 	"strconv"
 )
@@ -158,13 +159,7 @@ func (d Decimal) Cmp(e Decimal) int {
 		}
 		b, pb = lo, pb+1
 	}
-	switch {
-	case a < b:
-		return -1
-	case a > b:
-		return 1
-	}
-	return 0
+	return cmp.Compare(a, b)
 }
 
 // pow10 returns 10^n for 0 <= n <= 19.

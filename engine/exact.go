@@ -72,6 +72,18 @@ func (x u128) big() *big.Int {
 	return b.Or(b, new(big.Int).SetUint64(x.lo))
 }
 
+// float is x in floating point, for estimates only.
+func (x u128) float() float64 { return float64(x.hi)*0x1p64 + float64(x.lo) }
+
+// plus returns x + y, saturating.
+func (x u128) plus(y uint64) u128 {
+	s, ok := x.add64(y)
+	if !ok {
+		return u128{^uint64(0), ^uint64(0)}
+	}
+	return s
+}
+
 func bigU(a uint64) *big.Int { return new(big.Int).SetUint64(a) }
 
 // cmpProd3 compares a*b*c with d*e*f exactly.
@@ -88,15 +100,6 @@ func cmpProd3(a, b, c, d, e, f uint64) int {
 	y := new(big.Int).Mul(bigU(d), bigU(e))
 	y.Mul(y, bigU(f))
 	return x.Cmp(y)
-}
-
-// cmpProd2 compares a*b with c*d exactly.
-func cmpProd2(a, b, c, d uint64) int {
-	if !forceBig {
-		return mul128(a, b).cmp(mul128(c, d))
-	}
-	x := new(big.Int).Mul(bigU(a), bigU(b))
-	return x.Cmp(new(big.Int).Mul(bigU(c), bigU(d)))
 }
 
 // sum128 adds non-negative values; 128 bits hold the sum of 2^64 values of
@@ -144,7 +147,7 @@ func (x u128) text() string {
 
 // isqrt128 returns floor(sqrt(x)) for x < 2^126.
 func isqrt128(x u128) uint64 {
-	f := math.Sqrt(float64(x.hi)*0x1p64 + float64(x.lo))
+	f := math.Sqrt(x.float())
 	r := uint64(f)
 	if r == 0 {
 		r = 1
@@ -197,6 +200,22 @@ func ratFloat(num u128, den uint64) float64 {
 		q |= 1
 	}
 	return math.Ldexp(float64(q), -k)
+}
+
+// bitLen128 is the number of bits of x.
+func bitLen128(x u128) int {
+	if x.hi != 0 {
+		return 64 + bits.Len64(x.hi)
+	}
+	return bits.Len64(x.lo)
+}
+
+// shlFits returns x·2^n (0 <= n <= 128) and whether it fits in 128 bits.
+func (x u128) shlFits(n int) (u128, bool) {
+	if bitLen128(x)+n > 128 {
+		return u128{}, false
+	}
+	return x.shl(uint(n)), true
 }
 
 func (x u128) shl(n uint) u128 {

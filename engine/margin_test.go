@@ -20,7 +20,7 @@ func outrightSeats(s *Scenario, i int, c uint64, places uint8) int {
 	t := cloneScenario(s)
 	t.Tie = TieRule{}
 	t.Units[i].Population = Decimal{Coef: c, Places: places}.trim()
-	res, err := Allot(t, 0)
+	res, err := Allot(t, SeatsOnly)
 	if err != nil {
 		return -1
 	}

@@ -1,6 +1,10 @@
 package engine
 
-import "strings"
+import (
+	"math/big"
+	"strconv"
+	"strings"
+)
 
 // A Method is an apportionment method. The zero Method is not valid.
 type Method uint8
@@ -135,6 +139,38 @@ func (m Method) ZeroFirstSignpost() bool {
 	return m == Adams || m == Dean || m == HuntingtonHill
 }
 
+// Signpost returns the divisor method's signpost s(a), for a ≥ 0, as the
+// fraction num/den: a quotient rounds to a seats when s(a-1) ≤ q ≤ s(a).
+// For Huntington–Hill, whose signposts are square roots, it returns s(a)²
+// and squared is true. num is zero for a zero signpost. ok is false for a
+// method that has no signposts (the largest-remainder methods).
+func (m Method) Signpost(a int) (num, den uint64, squared, ok bool) {
+	if !m.IsDivisor() || a < 0 {
+		return 0, 0, false, false
+	}
+	s := m.signpost(a)
+	return s.n, s.d, s.sq, true
+}
+
+// SignpostText returns a readable form of the signpost s(a), such as
+// "2.5", "4/3" or "sqrt(2·3)" (a decimal where one of at most six places
+// is exact, else the reduced fraction), or "" for a method without
+// signposts.
+func (m Method) SignpostText(a int) string {
+	n, d, sq, ok := m.Signpost(a)
+	switch {
+	case !ok:
+		return ""
+	case sq:
+		return "sqrt(" + strconv.Itoa(a) + "·" + strconv.Itoa(a+1) + ")"
+	}
+	r := new(big.Rat).SetFrac(bigU(n), bigU(d))
+	if t, ok := exactDecimal(r, 6); ok {
+		return t
+	}
+	return r.String()
+}
+
 // signpost describes s(a) for a divisor method: s(a) = n/d, or for
 // Huntington–Hill s(a)^2 = n/d (sq is true).
 type signpost struct {
@@ -163,13 +199,4 @@ func (m Method) signpost(a int) signpost {
 		return signpost{2*u + 1, 2, false}
 	}
 	panic("engine: signpost of a method that has none")
-}
-
-// SignpostString returns a readable form of s(a), such as "sqrt(26·27)".
-func (m Method) SignpostString(a int) string {
-	s := m.signpost(a)
-	if s.sq {
-		return "sqrt(" + itoa(a) + "·" + itoa(a+1) + ")"
-	}
-	return ratString(s.n, s.d)
 }

@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"cmp"
 	"math"
 	"math/big"
 	"strconv"
@@ -26,7 +27,7 @@ func (m Method) cmpPrio(x, y prio) int {
 // a positive population over a zero signpost is infinite.
 func cmpQuot(px uint64, sx signpost, py uint64, sy signpost) int {
 	if px == 0 || py == 0 {
-		return cmpU(px, py)
+		return cmp.Compare(px, py)
 	}
 	ix, iy := sx.n == 0, sy.n == 0
 	switch {
@@ -43,16 +44,6 @@ func cmpQuot(px uint64, sx signpost, py uint64, sy signpost) int {
 	}
 	// px*dx/nx against py*dy/ny.
 	return cmpProd3(px, sx.d, sy.n, py, sy.d, sx.n)
-}
-
-func cmpU(a, b uint64) int {
-	switch {
-	case a < b:
-		return -1
-	case a > b:
-		return 1
-	}
-	return 0
 }
 
 // prioRat returns the priority as an exact rational (divided by 10^places),
@@ -240,16 +231,6 @@ func exactDecimal(r *big.Rat, places int) (string, bool) {
 		}
 	}
 	return "", false
-}
-
-func itoa(n int) string { return strconv.Itoa(n) }
-
-func ratString(n, d uint64) string {
-	r := new(big.Rat).SetFrac(bigU(n), bigU(d))
-	if s, ok := exactDecimal(r, 6); ok {
-		return s
-	}
-	return r.String()
 }
 
 func strconvQuote(s string) string { return strconv.Quote(s) }

@@ -254,26 +254,40 @@ func refRemainder(m Method, h int, pops []*big.Rat, lo, hi []int, elig []bool) r
 			rems[j] = x.Sub(x, new(big.Rat).SetInt(f))
 			sum += got[j]
 		}
+		// A unit with no people takes no seat by remainder: it ranks after
+		// every unit with people, and a pass cannot hand out more seats by
+		// remainder than it has units with people.
+		populated := 0
+		for _, u := range active {
+			if pops[u].Sign() > 0 {
+				populated++
+			}
+		}
 		extra := left - sum
-		if extra < 0 || extra > len(active) {
+		if extra < 0 || extra > populated {
 			return out
 		}
 		rank := make([]int, len(active))
 		for j := range rank {
 			rank[j] = j
 		}
-		sort.SliceStable(rank, func(x, y int) bool { return rems[rank[x]].Cmp(rems[rank[y]]) > 0 })
+		sort.SliceStable(rank, func(x, y int) bool {
+			if c := rems[rank[x]].Cmp(rems[rank[y]]); c != 0 {
+				return c > 0
+			}
+			return pops[active[rank[x]]].Sign() > 0 && pops[active[rank[y]]].Sign() == 0
+		})
 		// A tie at the cut: units that need the seat for their minimum
 		// take it first, units at their maximum come last, input order
 		// otherwise; the tie left is the group the cut falls inside.
 		var tie *refTie
 		boundTie := false
-		if extra > 0 && extra < len(active) && rems[rank[extra-1]].Cmp(rems[rank[extra]]) == 0 {
+		if extra > 0 && extra < populated && rems[rank[extra-1]].Cmp(rems[rank[extra]]) == 0 {
 			v := rems[rank[extra-1]]
 			var groups [3][]int
 			first, k := -1, 0
 			for x, j := range rank {
-				if rems[j].Cmp(v) != 0 {
+				if rems[j].Cmp(v) != 0 || pops[active[j]].Sign() == 0 {
 					continue
 				}
 				if first < 0 {
@@ -423,6 +437,17 @@ func genScenario(t *rapid.T, m Method, maxUnits int, maxPop uint64, maxSeats int
 		}
 	}
 	return s
+}
+
+// drawTieRule draws no tie rule, input order, or lot with a drawn seed.
+func drawTieRule(t *rapid.T) TieRule {
+	switch rapid.IntRange(0, 2).Draw(t, "tie") {
+	case 1:
+		return TieRule{Kind: TieByOrder}
+	case 2:
+		return TieRule{Kind: TieByLot, Seed: rapid.Uint64().Draw(t, "seed")}
+	}
+	return TieRule{}
 }
 
 func suffix(i int) string {

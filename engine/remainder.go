@@ -31,14 +31,17 @@ type lrRound struct {
 	// ranked holds the positions in units: first those whose remainder is
 	// above the cut value (the extra-th largest remainder), then those
 	// equal to it from index gt, then those below it from index ge, each
-	// group in input order (the group at the cut as cutGroups orders it).
-	// Once sorted is set (rankAll), ranked is the full ranking, largest
-	// remainder first and equal remainders in input order.
-	ranked []int
-	gt, ge int
-	sorted bool
-	near   bool // rankNear has reordered the groups
-	extra  int  // seats handed out by remainder
+	// group in input order (the group at the cut as cutGroups orders it),
+	// and last the noPeople units without people, which take no seat by
+	// remainder. Once sorted is set (rankAll), ranked is the full
+	// ranking, largest remainder first and equal remainders in input order,
+	// the units without people last.
+	ranked   []int
+	gt, ge   int
+	noPeople int
+	sorted   bool
+	near     bool // rankNear has reordered the groups
+	extra    int  // seats handed out by remainder
 	// bound is at least every remainder; hist, when set, counts the
 	// remainders by their leading bits below it (see kthLargest).
 	bound u128
@@ -77,6 +80,7 @@ func (pr *problem) lrPass(units []int, seats int, total u128, whole []int) (*lrR
 		}
 		r.rem64 = make([]uint64, len(units))
 		r.cutOrder()
+		r.setAsideEmpty(pr.pops)
 		return r, nil
 	}
 	switch pr.m {
@@ -96,33 +100,79 @@ func (pr *problem) lrPass(units []int, seats int, total u128, whole []int) (*lrR
 		}
 	case Droop:
 		scale := pow10(pr.places)
-		div := new(big.Int).Mul(bigU(scale), big.NewInt(int64(seats)+1))
-		q := new(big.Int).Quo(r.total.big(), div)
-		q.Add(q, big.NewInt(1))
-		r.quota = new(big.Rat).SetInt(q)
-		q.Mul(q, bigU(scale)) // the quota in scaled units
-		if q.IsUint64() && !forceBig {
-			sum = r.droopFloors(pr.pops, q.Uint64())
+		q := droopQuota(r.total, seats, scale) // in scaled units
+		r.quota = new(big.Rat).SetFrac(q.big(), bigU(scale))
+		if q.hi == 0 && !forceBig {
+			sum = r.droopFloors(pr.pops, q.lo)
 		} else {
-			r.bound = bigToU128(q) // a quota beyond 128 bits is above every population
-			if q.BitLen() > 128 {
-				r.bound = u128{^uint64(0), ^uint64(0)}
-			}
+			r.bound = q
 			r.rems = make([]u128, len(units))
+			qb := q.big()
 			for j, u := range units {
-				f, rem := new(big.Int).QuoRem(bigU(pr.pops[u]), q, new(big.Int))
+				f, rem := new(big.Int).QuoRem(bigU(pr.pops[u]), qb, new(big.Int))
 				whole[u], r.rems[j] = int(f.Int64()), bigToU128(rem)
 				sum += whole[u]
 			}
 		}
 	}
 	r.extra = seats - sum
-	if r.extra < 0 || r.extra > len(units) {
+	populated := 0
+	for _, u := range units {
+		if pr.pops[u] > 0 {
+			populated++
+		}
+	}
+	if r.extra < 0 || r.extra > populated {
+		pr.trace.recordWhole(r)
 		return nil, scenarioError("seats", "the "+pr.m.Name()+" leaves "+strconv.Itoa(r.extra)+
-			" seats over for "+strconv.Itoa(len(units))+" units: too few people for this house size")
+			" seats over for "+strconv.Itoa(populated)+" units with people: too few people for this house size")
 	}
 	r.cutOrder()
+	if populated < len(units) {
+		r.setAsideEmpty(pr.pops)
+	}
 	return r, nil
+}
+
+// setAsideEmpty moves the units without people to the end of the ranking:
+// a unit with no people takes no seat by remainder, even where its
+// remainder (zero) equals the cut value. They were in the group at the
+// cut or below it, never above it.
+func (r *lrRound) setAsideEmpty(pops []uint64) {
+	var kept, empty []int
+	for _, j := range r.ranked[r.gt:] {
+		if pops[r.units[j]] == 0 {
+			empty = append(empty, j)
+		} else {
+			kept = append(kept, j)
+		}
+	}
+	if len(empty) == 0 {
+		return
+	}
+	ge := r.ge
+	for _, j := range r.ranked[r.gt:r.ge] {
+		if pops[r.units[j]] == 0 {
+			ge--
+		}
+	}
+	sortInts(empty)
+	copy(r.ranked[r.gt:], kept)
+	copy(r.ranked[r.gt+len(kept):], empty)
+	r.ge, r.noPeople = ge, len(empty)
+}
+
+// narrowRems makes the pass's remainders 64-bit, every one below bound,
+// and the histogram of their leading bits that kthLargest needs (nil for a
+// pass too small to want one) with its shift.
+func (r *lrRound) narrowRems(bound uint64) ([]uint64, *[selectBuckets]int32, int) {
+	r.bound = u128{0, bound}
+	var hist *[selectBuckets]int32
+	if len(r.units) >= selectSmall {
+		hist = new([selectBuckets]int32)
+	}
+	r.rem64 = make([]uint64, len(r.units))
+	return r.rem64, hist, selectShift(r.bound)
 }
 
 // hareFloors fills the whole parts and remainders of p·seats/total for a
@@ -132,14 +182,7 @@ func (pr *problem) lrPass(units []int, seats int, total u128, whole []int) (*lrR
 func (r *lrRound) hareFloors(pops []uint64, seats uint64) (sum int) {
 	t := r.total.lo
 	ratio := float64(seats) / float64(t)
-	r.bound = u128{0, t}
-	var hist *[selectBuckets]int32 // the histogram kthLargest needs, if any
-	if len(r.units) >= selectSmall {
-		hist = new([selectBuckets]int32)
-	}
-	shift := selectShift(r.bound)
-	rems := make([]uint64, len(r.units))
-	r.rem64 = rems
+	rems, hist, shift := r.narrowRems(t)
 	for j, u := range r.units {
 		num := mul128(pops[u], seats)
 		q := uint64(float64(pops[u]) * ratio)
@@ -168,14 +211,7 @@ func (r *lrRound) hareFloors(pops []uint64, seats uint64) (sum int) {
 // floating-point first guess exactly.
 func (r *lrRound) droopFloors(pops []uint64, q uint64) (sum int) {
 	inv := 1 / float64(q)
-	r.bound = u128{0, q}
-	var hist *[selectBuckets]int32 // the histogram kthLargest needs, if any
-	if len(r.units) >= selectSmall {
-		hist = new([selectBuckets]int32)
-	}
-	shift := selectShift(r.bound)
-	rems := make([]uint64, len(r.units))
-	r.rem64 = rems
+	rems, hist, shift := r.narrowRems(q)
 	for j, u := range r.units {
 		p := pops[u]
 		f := uint64(float64(p) * inv)
@@ -226,6 +262,26 @@ func (r *lrRound) cutTie() (awarded, left []int) {
 	return awarded, left
 }
 
+// The roles of a unit's remainder seat in a pass (remainderRole).
+const (
+	seatNeeded int8 = iota // it needs the seat to reach its minimum: it ends with it either way
+	seatFree               // its remainder decides
+	seatBarred             // it is at its maximum: it ends without the seat either way
+)
+
+// remainderRole is the role of the remainder seat of unit u, with whole
+// part f in a pass: whether the seat decides that the pass fixes it at a
+// bound.
+func (pr *problem) remainderRole(u, f int) int8 {
+	switch {
+	case f+1 == pr.min[u]:
+		return seatNeeded
+	case f == pr.max[u]:
+		return seatBarred
+	}
+	return seatFree
+}
+
 // cutGroups orders the units tied at the cut and returns the tie that is
 // left once the bounds have spoken. Among the tied units, those that need
 // the contested seat to reach their minimum come first (they end with it
@@ -245,11 +301,10 @@ func (pr *problem) cutGroups(r *lrRound) (aw, lf []int, forced bool) {
 	var need, free, full []int
 	for _, j := range append(append([]int(nil), a0...), l0...) {
 		u := r.units[j]
-		f := r.whole[u]
-		switch {
-		case f+1 == pr.min[u]:
+		switch pr.remainderRole(u, r.whole[u]) {
+		case seatNeeded:
 			need = append(need, j)
-		case f == pr.max[u]:
+		case seatBarred:
 			full = append(full, j)
 		default:
 			free = append(free, j)
@@ -284,16 +339,6 @@ func (pr *problem) cutGroups(r *lrRound) (aw, lf []int, forced bool) {
 	return nil, nil, false
 }
 
-// remainderSeats runs the largest-remainder procedure with bounds and ranks
-// every remainder of the final pass, as the explanation shows them.
-func (pr *problem) remainderSeats() (*lrOutcome, error) {
-	o, err := pr.remainderCut()
-	if err == nil && o.final != nil {
-		o.final.rankAll()
-	}
-	return o, err
-}
-
 // remainderCut runs the largest-remainder procedure with bounds. Its passes
 // find the cut by selection: the remainders on either side of the cut are
 // grouped but not ranked (see lrRound.ranked).
@@ -307,9 +352,7 @@ func (pr *problem) remainderCut() (*lrOutcome, error) {
 		if pr.eligible[i] {
 			active = append(active, i)
 			bounded = bounded || pr.min[i] > 0 || pr.max[i] != noCap
-			var c uint64
-			total.lo, c = bits.Add64(total.lo, pr.pops[i], 0)
-			total.hi += c
+			total, _ = total.add64(pr.pops[i])
 		}
 	}
 	left := pr.h
@@ -317,19 +360,23 @@ func (pr *problem) remainderCut() (*lrOutcome, error) {
 		out.rounds++
 		if len(active) == 0 {
 			if left != 0 {
+				pr.trace.fail()
 				return nil, scenarioError("max", "the bounds cannot all be met")
 			}
 			break
 		}
 		if left < 0 {
+			pr.trace.fail()
 			return nil, scenarioError("min", "the minimums cannot all be met")
 		}
 		r, err := pr.lrPass(active, left, total, out.full)
 		if err != nil {
+			pr.trace.fail()
 			return nil, err
 		}
 		out.passes = append(out.passes, r)
 		aw, lf, forced := pr.cutGroups(r)
+		pr.trace.record(pr, r)
 		// This pass's seats (the whole parts are in out.full), then the
 		// units they put outside a bound.
 		for _, j := range r.ranked[:r.extra] {

@@ -92,6 +92,7 @@ type problem struct {
 	tie       TieRule
 	threshold Decimal
 	quotas    *quotaMemo // nil but in AllotMethods
+	trace     *lrTrace   // nil but in the margins' searches
 }
 
 func (pr *problem) n() int { return len(pr.pops) }
@@ -207,18 +208,25 @@ func belowShare(p uint64, total u128, th Decimal) bool {
 }
 
 // checkFeasible refuses bounds and house sizes that no apportionment meets.
-func (pr *problem) checkFeasible() error {
+func (pr *problem) checkFeasible() error { return pr.checkFeasibleWith(-1, 0) }
+
+// checkFeasibleWith is checkFeasible with unit u's population taken as p
+// (none when u < 0), the units taking part as they are.
+func (pr *problem) checkFeasibleWith(u int, p uint64) error {
 	var sumMin, sumCapPopulated uint64
 	populated, firstSeat := 0, uint64(0)
 	anyEligible := false
-	for i := range pr.pops {
+	for i, pi := range pr.pops {
 		if !pr.eligible[i] {
 			continue
+		}
+		if i == u {
+			pi = p
 		}
 		anyEligible = true
 		lo := uint64(pr.min[i])
 		sumMin += lo
-		if pr.pops[i] > 0 {
+		if pi > 0 {
 			populated++
 			if pr.max[i] == noCap {
 				sumCapPopulated = MaxSeats + 1
@@ -237,7 +245,7 @@ func (pr *problem) checkFeasible() error {
 	if !anyEligible {
 		return scenarioError("threshold", "the threshold excludes every unit")
 	}
-	if total := pr.eligibleTotal(); total.hi == 0 && total.lo == 0 {
+	if populated == 0 {
 		return scenarioError("population", "every unit taking part has a population of zero")
 	}
 	if sumMin > h {

@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"cmp"
 	"math/bits"
 	"slices"
 )
@@ -29,7 +30,7 @@ func selectShift(bound u128) int { return max(bitLen128(bound)-11, 0) }
 // kthLargest returns the e-th largest (1 <= e <= len(keys)) of the keys,
 // and how many keys are greater than it and equal to it. The keys are wide,
 // or narrow when wide is nil. Every key is at most bound, and count holds
-// the histogram of the keys by shr128(key, selectShift(bound)), or is nil.
+// the histogram of the keys by key.shr(selectShift(bound)), or is nil.
 func kthLargest(wide []u128, narrow []uint64, e int, bound u128, count *[selectBuckets]int32) (v u128, gt, eq int) {
 	if len(wide)+len(narrow) < selectSmall {
 		in := make([]u128, 0, len(wide)+len(narrow))
@@ -38,14 +39,7 @@ func kthLargest(wide []u128, narrow []uint64, e int, bound u128, count *[selectB
 			in = append(in, u128{0, k})
 		}
 		v = quickSelect(in, e)
-		for _, k := range in {
-			switch k.cmp(v) {
-			case 1:
-				gt++
-			case 0:
-				eq++
-			}
-		}
+		gt, eq = countAround(in, v)
 		return v, gt, eq
 	}
 	shift := selectShift(bound)
@@ -53,10 +47,10 @@ func kthLargest(wide []u128, narrow []uint64, e int, bound u128, count *[selectB
 	if count == nil {
 		count = new([selectBuckets]int32)
 		for _, k := range wide {
-			count[shr128(k, shift)&mask]++
+			count[k.shr(uint(shift)).lo&mask]++
 		}
 		for _, k := range narrow {
-			count[shr128(u128{0, k}, shift)&mask]++
+			count[u128{0, k}.shr(uint(shift)).lo&mask]++
 		}
 	}
 	b, above := selectBuckets-1, 0
@@ -65,7 +59,7 @@ func kthLargest(wide []u128, narrow []uint64, e int, bound u128, count *[selectB
 	}
 	in := make([]u128, 0, count[b])
 	for _, k := range wide {
-		if shr128(k, shift)&mask == uint64(b) {
+		if k.shr(uint(shift)).lo&mask == uint64(b) {
 			in = append(in, k)
 		}
 	}
@@ -81,8 +75,13 @@ func kthLargest(wide []u128, narrow []uint64, e int, bound u128, count *[selectB
 		}
 	}
 	v = quickSelect(in, e-above)
-	gt = above
-	for _, k := range in {
+	gt, eq = countAround(in, v)
+	return v, above + gt, eq
+}
+
+// countAround counts the keys above v and equal to it.
+func countAround(keys []u128, v u128) (gt, eq int) {
+	for _, k := range keys {
 		switch k.cmp(v) {
 		case 1:
 			gt++
@@ -90,25 +89,7 @@ func kthLargest(wide []u128, narrow []uint64, e int, bound u128, count *[selectB
 			eq++
 		}
 	}
-	return v, gt, eq
-}
-
-func bitLen128(x u128) int {
-	if x.hi != 0 {
-		return 64 + bits.Len64(x.hi)
-	}
-	return bits.Len64(x.lo)
-}
-
-// shr128 returns the low 64 bits of x >> s.
-func shr128(x u128, s int) uint64 {
-	switch {
-	case s == 0:
-		return x.lo
-	case s >= 64:
-		return x.hi >> (s - 64)
-	}
-	return x.lo>>s | x.hi<<(64-s)
+	return gt, eq
 }
 
 // quickSelect returns the e-th largest (1 <= e <= len(s)) of s, reordering
@@ -171,6 +152,7 @@ func median3(a, b, c u128) u128 {
 // largest), equal to it, and below it; r.gt and r.ge are where the second
 // and third groups start. With no seats over every position is in the
 // group below the cut; with one for every unit, in the group above it.
+// (setAsideEmpty then moves the units without people to the end.)
 func (r *lrRound) cutOrder() {
 	n := len(r.units)
 	r.ranked = make([]int, n)
@@ -190,20 +172,13 @@ func (r *lrRound) cutOrder() {
 	// fill r.ranked from the front and those below it from the back (in
 	// reverse), each written at both frontiers and kept by the one that
 	// moves; the few equal to v are set aside and fill the gap between.
-	front, back := 0, n-1
-	eqs := make([]int, 0, eq)
+	p := partition{ranked: r.ranked, back: n - 1, eqs: make([]int, 0, eq)}
 	if r.rem64 != nil {
 		vv := v.lo
 		for j, x := range r.rem64 {
 			_, up := bits.Sub64(vv, x, 0)   // x > v
 			_, down := bits.Sub64(x, vv, 0) // x < v
-			r.ranked[front] = j
-			r.ranked[back] = j
-			front += int(up)
-			back -= int(down)
-			if up|down == 0 {
-				eqs = append(eqs, j)
-			}
+			p.put(j, up, down)
 		}
 	}
 	for j, x := range r.rems {
@@ -211,17 +186,34 @@ func (r *lrRound) cutOrder() {
 		_, up = bits.Sub64(v.hi, x.hi, up) // x > v
 		_, down := bits.Sub64(x.lo, v.lo, 0)
 		_, down = bits.Sub64(x.hi, v.hi, down) // x < v
-		r.ranked[front] = j
-		r.ranked[back] = j
-		front += int(up)
-		back -= int(down)
-		if up|down == 0 {
-			eqs = append(eqs, j)
-		}
+		p.put(j, up, down)
 	}
+	eqs := p.eqs
 	copy(r.ranked[gt:], eqs)
 	slices.Reverse(r.ranked[gt+eq:])
 	r.gt, r.ge = gt, gt+eq
+}
+
+// A partition fills ranked from the front with the positions above the
+// cut value and from the back with those below it; the equal ones wait in
+// eqs.
+type partition struct {
+	ranked      []int
+	front, back int
+	eqs         []int
+}
+
+// put places position j: up is 1 when it is above the cut value, down 1
+// when below. It is written at both frontiers, and kept by the one that
+// moves.
+func (p *partition) put(j int, up, down uint64) {
+	p.ranked[p.front] = j
+	p.ranked[p.back] = j
+	p.front += int(up)
+	p.back -= int(down)
+	if up|down == 0 {
+		p.eqs = append(p.eqs, j)
+	}
 }
 
 // before reports whether position x ranks before position y: a larger
@@ -229,7 +221,7 @@ func (r *lrRound) cutOrder() {
 func (r *lrRound) before(x, y int) int {
 	if r.rem64 != nil {
 		if a, b := r.rem64[x], r.rem64[y]; a != b {
-			return cmpU(b, a)
+			return cmp.Compare(b, a)
 		}
 		return x - y
 	}
@@ -246,7 +238,7 @@ func (r *lrRound) rankAll() {
 	if r.ranked == nil || r.sorted {
 		return
 	}
-	for _, g := range [][]int{r.ranked[:r.gt], r.ranked[r.ge:]} {
+	for _, g := range [][]int{r.ranked[:r.gt], r.ranked[r.ge : len(r.ranked)-r.noPeople]} {
 		if r.rem64 != nil && len(g) >= selectSmall && !r.near {
 			radixRank(g, r.rem64, bitLen128(r.bound))
 		} else {
@@ -308,7 +300,7 @@ func (r *lrRound) rankNear(k int) {
 		r.bestTo(above, k, func(x, y int) int { return -r.before(x, y) })
 		slices.Reverse(above)
 	}
-	below := r.ranked[r.ge:]
+	below := r.ranked[r.ge : len(r.ranked)-r.noPeople]
 	if k >= len(below) {
 		slices.SortFunc(below, r.before)
 	} else {

@@ -213,100 +213,55 @@ func (pr *problem) sweepRemainder(sw *SweepResult, record func(int, []int) []int
 	}
 }
 
-// sweepDivisor runs the sequential procedure once, from the minimums up to
-// the largest house size, and records the seats at every size in range.
+// sweepDivisor runs the divisor procedure's sequential form once, from the
+// minimums up to the largest house size, and records the seats at every
+// size in range, settling a tie at a size as the procedure does.
 func (pr *problem) sweepDivisor(sw *SweepResult, record func(int, []int) []int) {
 	n := pr.n()
 	a := make([]int, n)
-	cand := make([]int32, 0, n)
 	given := 0
 	for i := 0; i < n; i++ {
-		if !pr.eligible[i] {
-			continue
-		}
-		a[i] = pr.min[i]
-		given += a[i]
-		if pr.pops[i] > 0 && a[i] < pr.max[i] {
-			cand = append(cand, int32(i))
+		if pr.eligible[i] {
+			a[i] = pr.min[i]
+			given += a[i]
 		}
 	}
-	h := &prioHeap{m: pr.m, pops: pr.pops, a: a}
-	h.heapify(cand)
-	var tail []award // the latest awards with equal priority values
-	var stuck error  // set once no unit with people can take another seat
-	house := given   // seats handed out so far
+	s := pr.newStepper(a, false, make([]int32, 0, n))
+	var stuck error // set once no unit with people can take another seat
+	house := given  // seats handed out so far
 	for k := range sw.Sizes {
 		z := &sw.Sizes[k]
 		for house < z.House && stuck == nil {
-			if len(h.idx) == 0 {
-				stuck = scenarioError("max", "the maximums leave seats that no unit with people can take")
+			if _, ok := s.step(); !ok {
+				stuck = errMaximums()
 				break
 			}
-			u := h.top()
-			w := award{u, prio{pr.pops[u], a[u]}}
-			if len(tail) > 0 && pr.m.cmpPrio(tail[0].pr, w.pr) == 0 {
-				tail = append(tail, w)
-			} else {
-				tail = append(tail[:0], w)
-			}
-			a[u]++
 			house++
-			if a[u] < pr.max[u] {
-				h.down(0)
-			} else {
-				h.pop()
-			}
 		}
 		if z.Err = pr.feasibleAt(z.House); z.Err != nil {
 			continue
 		}
 		if z.House < given {
-			z.Err = scenarioError("min", "the minimums exceed the house size")
+			z.Err = errMinimums()
 			continue
 		}
 		if stuck != nil {
 			z.Err = stuck
 			continue
 		}
-		if house == given || len(h.idx) == 0 {
+		if house == given || !s.tied() {
 			z.Seats = record(z.House, a)
 			continue
 		}
-		// A tie: the best seat not awarded has the value of the last one.
-		v := tail[0].pr
-		if pr.m.cmpPrio(prio{pr.pops[h.top()], a[h.top()]}, v) != 0 {
-			z.Seats = record(z.House, a)
-			continue
-		}
-		losers := h.equalTo(v)
-		tie, seats := pr.settleTie(a, tail, losers, pr.m.value(v, pr.places))
-		z.Ties = []Tie{*tie}
-		z.Seats = record(z.House, seats)
+		// The sequential form leaves the seats at the cut where settleCut
+		// puts them, so a is the same afterwards.
+		out := divisorOutcome{full: a}
+		pr.settleCut(&out)
+		z.Ties = []Tie{*out.tie}
+		z.Seats = record(z.House, out.seats)
 		for _, s := range z.Seats {
 			z.Unassigned += s
 		}
 		z.Unassigned = z.House - z.Unassigned
 	}
-}
-
-// equalTo returns the units in the heap whose priority equals v, without
-// changing the heap. In a max-heap no element below one smaller than v can
-// equal v, so the search stops there.
-func (h *prioHeap) equalTo(v prio) []int {
-	var out []int
-	stack := []int{0}
-	for len(stack) > 0 {
-		i := stack[len(stack)-1]
-		stack = stack[:len(stack)-1]
-		if i >= len(h.idx) {
-			continue
-		}
-		u := int(h.idx[i])
-		if h.m.cmpPrio(prio{h.pops[u], h.a[u]}, v) != 0 {
-			continue
-		}
-		out = append(out, u)
-		stack = append(stack, 2*i+1, 2*i+2)
-	}
-	return out
 }

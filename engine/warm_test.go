@@ -1,9 +1,7 @@
 package engine
 
 import (
-	"encoding/csv"
 	"math/rand/v2"
-	"os"
 	"slices"
 	"strconv"
 	"testing"
@@ -44,12 +42,7 @@ func warmScenario(t *rapid.T, m Method) *Scenario {
 	if rapid.IntRange(0, 4).Draw(t, "threshold") == 0 {
 		s.Threshold = Decimal{Coef: uint64(rapid.IntRange(1, 20).Draw(t, "share")), Places: 2}
 	}
-	switch rapid.IntRange(0, 2).Draw(t, "tie") {
-	case 1:
-		s.Tie = TieRule{Kind: TieByOrder}
-	case 2:
-		s.Tie = TieRule{Kind: TieByLot, Seed: rapid.Uint64().Draw(t, "seed")}
-	}
+	s.Tie = drawTieRule(t)
 	return s
 }
 
@@ -201,31 +194,16 @@ func TestWarmBigArithmetic(t *testing.T) {
 	}
 }
 
-// warmCensus reads testdata/us-2020-apportionment.csv. Source: U.S. Census
-// Bureau, 2020 Census Apportionment Results, Table 1 "Apportionment
-// Population and Number of Representatives by State: 2020 Census"
-// (released April 26, 2021).
+// warmCensus is the 2020 apportionment of the U.S. House as a scenario
+// (Huntington–Hill, 435 seats, at least one each) and the seats of the
+// states in input order, from loadCensus2020 (its source is named there).
 func warmCensus(t testing.TB) (*Scenario, []int) {
 	t.Helper()
-	f, err := os.Open("../testdata/us-2020-apportionment.csv")
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer f.Close()
-	rows, err := csv.NewReader(f).ReadAll()
-	if err != nil {
-		t.Fatal(err)
-	}
-	s := &Scenario{Seats: 435, Method: HuntingtonHill, Min: 1}
-	var seats []int
-	for _, row := range rows[1:] {
-		p, err := ParseDecimal(row[1])
-		if err != nil {
-			t.Fatal(err)
-		}
-		n, _ := strconv.Atoi(row[2])
-		s.Units = append(s.Units, Unit{Name: row[0], Population: p})
-		seats = append(seats, n)
+	units, bySeats := loadCensus2020(t)
+	s := &Scenario{Seats: 435, Method: HuntingtonHill, Min: 1, Units: units}
+	seats := make([]int, len(units))
+	for i, u := range units {
+		seats[i] = bySeats[u.Name]
 	}
 	return s, seats
 }

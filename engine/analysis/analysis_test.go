@@ -182,3 +182,50 @@ func ExampleFindAlabama() {
 	// Tarrow 200 201 10 9
 	// Tarrow 202 203 10 9
 }
+
+// TestQuotaViolationBlame: a violation is put down to the bounds only when
+// the unit would be within quota without them. Invented figures.
+func TestQuotaViolationBlame(t *testing.T) {
+	one, two := 1, 2
+	names := []string{"Orlen", "Tamsk", "Brevia", "Caldmoor", "Pellin Reach", "Sarrow", "Upper Vell", "Keddle Isles", "Marrowgate"}
+	pops := []uint64{2694457, 2079562, 1178082, 977496, 588225, 344546, 188940, 93288, 55971}
+	// Adams gives every unit a seat of itself, so a minimum of one holds
+	// no unit where Adams would not: Orlen's shortfall (12 seats, quota
+	// 13.14) is Adams's own.
+	s := &engine.Scenario{Units: units(names, pops...), Method: engine.Adams, Min: 1}
+	sw, err := engine.Sweep(s, 40, 40)
+	if err != nil {
+		t.Fatal(err)
+	}
+	vs := FindQuotaViolations(sw, s)
+	if len(vs) == 0 {
+		t.Fatal("no violation under Adams at 20 seats")
+	}
+	for _, v := range vs {
+		if v.Bounds || strings.Contains(v.Text(), "minimums") {
+			t.Errorf("blamed on bounds that do not bind: %s", v.Text())
+		}
+	}
+	// Hamilton never breaks quota by itself; a cap of 2 on Orlen (quota
+	// about 7.8) does.
+	s = &engine.Scenario{Units: units(names, pops...), Method: engine.Hamilton}
+	s.Units[0].Max = &two
+	s.Units[5].Min = &one
+	sw, err = engine.Sweep(s, 20, 20)
+	if err != nil {
+		t.Fatal(err)
+	}
+	vs = FindQuotaViolations(sw, s)
+	found := false
+	for _, v := range vs {
+		if v.Name == "Orlen" {
+			found = true
+			if !v.Bounds || !strings.Contains(v.Text(), "the minimums or maximums cause it") {
+				t.Errorf("the cap's violation is not put down to it: %s", v.Text())
+			}
+		}
+	}
+	if !found {
+		t.Errorf("no violation for the capped unit: %v", vs)
+	}
+}

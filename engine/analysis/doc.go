@@ -17,9 +17,18 @@
 //     tests ([ImprovingTransfers], exact).
 //   - Comparison. [Compare] lines up a baseline and a proposal by unit
 //     name: seat changes, changed margins, changed settings.
+//   - Many methods. [CompareMethods] apportions one scenario by several
+//     methods, [SweepAll] sweeps it over a range of house sizes by each
+//     (with the Alabama paradoxes, and the quota violations on demand),
+//     [FindGrowth] and [Admit] run the population and new-states tests by
+//     each, [MeasureAll] measures each result. Their results are what the
+//     documents of package engine/format show.
 //   - House size. [ChooseSize] applies the cube-root law or makes the
 //     smallest unit's population the divisor; [Derive] adds a fixed number
-//     of seats per unit to an apportionment.
+//     of seats per unit to an apportionment. Statutory house rules:
+//     [ApplyRatio] gives one seat per so many people (the house size is
+//     the result), [ApplyBase] gives every unit base seats and apportions
+//     the rest.
 //   - Bias. [StudyBias] averages, over seeded random population sets, how
 //     many seats beyond their quotas large units receive against small
 //     ones.
@@ -29,7 +38,7 @@
 //
 // # JSON documents
 //
-// The documents are built by seatsmith/engine/report from these results
+// The documents are built by seatsmith/engine/format from these results
 // and printed by the seatsmith command-line tool with -format json. Every
 // document is one object that starts with version (1), kind, caution (the
 // not-official caution, always present) and title (when the scenario has
@@ -59,7 +68,9 @@
 // quota_violations (count)}]; paradoxes: the Alabama findings as above and
 // quota violations {kind: "quota", method, unit, house, seats, quota,
 // quota_exact ("n/d"), lower_quota, upper_quota, side ("above" or
-// "below"), bounds_bind (minimums or maximums bind at that size), text}.
+// "below"), bounds_bind (the minimums or maximums cause the violation:
+// without them the unit's seats at that size would be within its quota),
+// text}.
 //
 // Population paradox (kind "population-paradox", seatsmith growth): seats,
 // total_before, total_after; units: [{name, before, after, growth (percent
@@ -100,6 +111,19 @@
 // "smallest-unit"), total, value (the unrounded size as text), seats,
 // smallest ({unit, population} or null), comparison (the comparison
 // document at that size).
+//
+// Fixed ratio (kind "fixed-ratio", seatsmith house -ratio, from
+// [ApplyRatio]): method, method_name, ratio, seats (the house size the
+// ratio gives), tie_rule, unassigned; units: [{name, population, quotient
+// (population over the ratio, six places unless exact), rounded, seats,
+// lower_signpost, upper_signpost (null where there is none), at_min,
+// at_max, tied, rounded_up}]; text.
+//
+// Base seats (kind "base-seats", seatsmith house -base, from
+// [ApplyBase]): base, seats; units: [{name, population, base_seats,
+// proportional_seats, seats}]; rest (the allotment document of the
+// proportional part, or null when the base seats fill the house);
+// unassigned; text.
 //
 // Derived body (kind "derived-body", seatsmith derived): method,
 // method_name, seats, plus, body_seats, total; units: [{name, population,

@@ -108,12 +108,3 @@ func plural(n int, w string) string {
 	}
 	return itoa(n) + " " + w + "s"
 }
-
-// seatsOf returns the seats of a result, in input order.
-func seatsOf(res *engine.Result) []int {
-	s := make([]int, len(res.Units))
-	for i := range res.Units {
-		s[i] = res.Units[i].Seats
-	}
-	return s
-}

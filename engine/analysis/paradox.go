@@ -115,10 +115,11 @@ type QuotaViolation struct {
 	Quota  *big.Rat
 	// Lower and Upper are floor and ceiling of Quota.
 	Lower, Upper int
-	// Bounds is set when minimums or maximums bind at this house size:
-	// some unit sits at its minimum above its quota, or at its maximum
-	// below it, so the bounds and not the method alone may cause the
-	// violation.
+	// Bounds is set when the minimums or maximums cause the violation:
+	// apportioned by the same method at the same size without them, the
+	// unit's seats would lie within its quota. A bound that holds a unit
+	// where the method alone would put it (Adams's first seat for every
+	// unit, say, against a minimum of one) does not count.
 	Bounds bool
 }
 
@@ -126,17 +127,26 @@ type QuotaViolation struct {
 // fall below the lower quota).
 func (v *QuotaViolation) Above() bool { return v.Seats > v.Upper }
 
-// Text says what happened, in numbers.
+// Text says what happened, in numbers, naming the method.
 func (v *QuotaViolation) Text() string {
-	s := v.Method.Name() + ", house of " + itoa(v.House) + ": " + v.Name + " gets " + plural(v.Seats, "seat") + ", "
+	t := v.SizeText(true)
+	return v.Method.Name() + ", h" + t[1:]
+}
+
+// SizeText says what happened, in numbers, without naming the method:
+// "House of 40: Orlen gets 12 seats, below its lower quota 13 (quota
+// 13.142784)." bounds chooses whether it says when the bounds cause the
+// violation.
+func (v *QuotaViolation) SizeText(bounds bool) string {
+	s := "House of " + itoa(v.House) + ": " + v.Name + " gets " + plural(v.Seats, "seat") + ", "
 	if v.Above() {
 		s += "above its upper quota " + itoa(v.Upper)
 	} else {
 		s += "below its lower quota " + itoa(v.Lower)
 	}
 	s += " (quota " + Decimal(v.Quota) + ")"
-	if v.Bounds {
-		s += "; minimums or maximums bind at this size"
+	if bounds && v.Bounds {
+		s += "; the minimums or maximums cause it: without them it would be within quota"
 	}
 	return s + "."
 }
@@ -145,54 +155,123 @@ func (v *QuotaViolation) Text() string {
 // break quota. Jefferson can exceed the upper quota of large units and
 // Adams fall below the lower quota of large units; Webster, Dean and
 // Huntington–Hill can break it either way; Hamilton never does without
-// bounds. s is the swept scenario: its units' minimums and maximums tell
-// at which sizes the bounds bind.
+// bounds. s is the swept scenario: when it has minimums or maximums, the
+// sizes with a violation are apportioned again without them, to tell
+// which violations the bounds cause (see [QuotaViolation.Bounds]).
 func FindQuotaViolations(sw *engine.SweepResult, s *engine.Scenario) []QuotaViolation {
 	var out []QuotaViolation
 	total := totalOf(sw.Populations, sw.Excluded)
-	lo, hi := unitBounds(s)
+	qt := newQuotaTest(sw.Populations, sw.Excluded)
 	for k := range sw.Sizes {
 		z := &sw.Sizes[k]
 		if z.Err != nil {
 			continue
 		}
-		qs := make([]*big.Rat, len(z.Seats))
-		bind := false
 		for i, a := range z.Seats {
-			qs[i] = quotaOf(sw.Populations[i], total, z.House, sw.Excluded[i])
-			if sw.Excluded[i] {
+			if qt.within(i, a, z.House) {
 				continue
 			}
-			c := qs[i].Cmp(big.NewRat(int64(a), 1))
-			bind = bind || (a == lo[i] && c < 0) || (hi[i] >= 0 && a == hi[i] && c > 0)
+			q := quotaOf(sw.Populations[i], total, z.House, sw.Excluded[i])
+			l, u := floorCeil(q)
+			out = append(out, QuotaViolation{sw.Method, z.House, i, sw.Names[i], a, q, l, u, false})
 		}
-		for i, a := range z.Seats {
-			l, u := floorCeil(qs[i])
-			if a >= l && a <= u {
-				continue
-			}
-			out = append(out, QuotaViolation{sw.Method, z.House, i, sw.Names[i], a, qs[i], l, u, bind})
-		}
+	}
+	if len(out) > 0 && hasBounds(s) {
+		markBounds(out, sw, s)
 	}
 	return out
 }
 
-// unitBounds returns each unit's minimum and maximum (-1 for none).
-func unitBounds(s *engine.Scenario) (lo, hi []int) {
-	lo, hi = make([]int, len(s.Units)), make([]int, len(s.Units))
-	for i, u := range s.Units {
-		lo[i], hi[i] = s.Min, -1
-		if s.Max > 0 {
-			hi[i] = s.Max
+// A quotaTest tells whether a unit's seats lie within its quota p·h/P
+// without making the quota: with every population written with the same
+// number of decimal places as a whole number, a < floor(q) exactly when
+// (a+1)·P ≤ p·h, and a > ceil(q) exactly when (a−1)·P ≥ p·h. It reuses
+// its numbers, so that a sweep of millions of sizes allocates only for
+// the violations it finds.
+type quotaTest struct {
+	pops     []*big.Int // nil for an excluded unit
+	total    big.Int
+	ph, side big.Int
+}
+
+func newQuotaTest(pops []engine.Decimal, excluded []bool) *quotaTest {
+	places := 0
+	for _, p := range pops {
+		places = max(places, int(p.Places))
+	}
+	t := &quotaTest{pops: make([]*big.Int, len(pops))}
+	ten := big.NewInt(10)
+	for i, p := range pops {
+		if excluded != nil && excluded[i] {
+			continue
 		}
-		if u.Min != nil {
-			lo[i] = *u.Min
-		}
-		if u.Max != nil {
-			hi[i] = *u.Max
+		x := new(big.Int).SetUint64(p.Coef)
+		x.Mul(x, new(big.Int).Exp(ten, big.NewInt(int64(places-int(p.Places))), nil))
+		t.pops[i] = x
+		t.total.Add(&t.total, x)
+	}
+	return t
+}
+
+// within reports whether a seats of unit i lie within its quota at house
+// size h (an excluded unit's quota is zero).
+func (t *quotaTest) within(i, a, h int) bool {
+	if t.pops[i] == nil || t.total.Sign() == 0 {
+		return a == 0
+	}
+	t.ph.SetInt64(int64(h))
+	t.ph.Mul(&t.ph, t.pops[i])
+	t.side.SetInt64(int64(a + 1))
+	t.side.Mul(&t.side, &t.total)
+	if t.side.Cmp(&t.ph) <= 0 {
+		return false // below the lower quota
+	}
+	t.side.SetInt64(int64(a - 1))
+	t.side.Mul(&t.side, &t.total)
+	return t.side.Cmp(&t.ph) < 0 // not above the upper quota
+}
+
+// hasBounds reports whether any unit of s has a minimum or a maximum.
+func hasBounds(s *engine.Scenario) bool {
+	if s.Min > 0 || s.Max > 0 {
+		return true
+	}
+	for _, u := range s.Units {
+		if (u.Min != nil && *u.Min > 0) || u.Max != nil {
+			return true
 		}
 	}
-	return lo, hi
+	return false
+}
+
+// markBounds sets Bounds on the violations that the bounds of s cause:
+// those whose unit, apportioned without bounds at the same size, is within
+// its quota (a unit in a tie there counts as within when either way of
+// settling it is).
+func markBounds(vs []QuotaViolation, sw *engine.SweepResult, s *engine.Scenario) {
+	t := *s
+	t.Method, t.Min, t.Max = sw.Method, 0, 0
+	t.Units = make([]engine.Unit, len(s.Units))
+	for i, u := range s.Units {
+		t.Units[i] = engine.Unit{Name: u.Name, Population: u.Population}
+	}
+	free, err := engine.Sweep(&t, vs[0].House, vs[len(vs)-1].House)
+	if err != nil {
+		return
+	}
+	for j := range vs {
+		v := &vs[j]
+		z := &free.Sizes[v.House-free.From]
+		if z.Err != nil {
+			continue
+		}
+		a := z.Seats[v.Unit]
+		within := a >= v.Lower && a <= v.Upper
+		if tiedAt(z, v.Unit) {
+			within = within || (a+1 >= v.Lower && a+1 <= v.Upper)
+		}
+		v.Bounds = within
+	}
 }
 
 // A Population finding is one occurrence of the population paradox between
@@ -338,15 +417,31 @@ type NewStates struct {
 // seats.
 func (r *NewStates) Paradox() bool { return len(r.Changes) > 0 }
 
-// Text says what happened, in numbers.
+// Text says what happened, in numbers. When a tie leaves seats
+// unassigned in either house, the seats compared are those held outright
+// and the text says so: settling the tie may change the finding.
 func (r *NewStates) Text() string {
 	s := r.Method.Name() + ": admitting " + r.Name + " (population " + r.People.String() + ", fair share " +
 		Decimal(r.FairShare) + " seats at the old standard divisor) with " + plural(r.Added, "added seat") +
 		" raises the house from " + itoa(r.House) + " to " + itoa(r.NewHouse) + "; " + r.Name + " receives " + plural(r.NewSeats, "seat")
-	if !r.Paradox() {
-		return s + ", and no other unit's seats change."
+	var tie []string
+	if r.Before.Unassigned > 0 {
+		tie = append(tie, plural(r.Before.Unassigned, "seat")+" in the house of "+itoa(r.House))
 	}
-	return s + ", and the other units' seats change: " + changeText(r.Changes) + " (the new-states paradox)."
+	if r.After.Unassigned > 0 {
+		tie = append(tie, plural(r.After.Unassigned, "seat")+" in the house of "+itoa(r.NewHouse))
+	}
+	tail := ""
+	if len(tie) > 0 {
+		tail = "; a tie leaves " + strings.Join(tie, " and ") + " unassigned, so these are the seats held outright and settling the tie may change them"
+	}
+	switch {
+	case !r.Paradox() && tail == "":
+		return s + ", and no other unit's seats change."
+	case !r.Paradox():
+		return s + ", and no other unit's seats held outright change" + tail + "."
+	}
+	return s + ", and the other units' seats change: " + changeText(r.Changes) + " (the new-states paradox)" + tail + "."
 }
 
 // FairShare returns the whole number nearest to p·H/P (halves round up)

@@ -138,3 +138,32 @@ func TestNearestCubeRoot(t *testing.T) {
 		}
 	})
 }
+
+// TestQuotaTestMatchesRationals: the allocation-free quota test agrees
+// with the quota written as an exact rational, for populations with
+// decimal places and excluded units.
+func TestQuotaTestMatchesRationals(t *testing.T) {
+	rapid.Check(t, func(t *rapid.T) {
+		n := rapid.IntRange(1, 6).Draw(t, "units")
+		pops := make([]engine.Decimal, n)
+		excluded := make([]bool, n)
+		for i := range pops {
+			pops[i] = engine.Decimal{Coef: rapid.Uint64Range(0, 1<<40).Draw(t, "coef"), Places: uint8(rapid.IntRange(0, 3).Draw(t, "places"))}
+			excluded[i] = rapid.IntRange(0, 5).Draw(t, "excluded") == 0
+		}
+		qt := newQuotaTest(pops, excluded)
+		total := totalOf(pops, excluded)
+		h := rapid.IntRange(1, 1000).Draw(t, "house")
+		for i := range pops {
+			lo, hi := floorCeil(quotaOf(pops[i], total, h, excluded[i]))
+			for _, a := range []int{lo - 1, lo, hi, hi + 1, rapid.IntRange(0, 1000).Draw(t, "a")} {
+				if a < 0 {
+					continue
+				}
+				if want := a >= lo && a <= hi; qt.within(i, a, h) != want {
+					t.Fatalf("unit %d (%v of %v), house %d, %d seats: within %v, quota says %v", i, pops[i], total, h, a, !want, want)
+				}
+			}
+		}
+	})
+}

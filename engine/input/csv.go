@@ -11,7 +11,11 @@ import (
 
 // ReadCSV reads a table of units. file names the input in error messages.
 // The scenario-level fields (seats, method, ...) are left for the caller.
-func ReadCSV(file string, r io.Reader) (*Source, error) {
+func ReadCSV(file string, r io.Reader) (*Source, error) { return Options{}.ReadCSV(file, r) }
+
+// ReadCSV reads a table of units as the package's ReadCSV does, with the
+// options.
+func (o Options) ReadCSV(file string, r io.Reader) (*Source, error) {
 	cr := NewCSVReader(r) // every row as long as the header
 	src := &Source{File: file, Given: map[string]bool{}, fieldLines: map[string]int{}}
 	header, err := cr.Read()
@@ -20,6 +24,10 @@ func ReadCSV(file string, r io.Reader) (*Source, error) {
 	}
 	if err != nil {
 		return nil, errorOf(file, err)
+	}
+	header = append([]string(nil), header...) // the reader reuses its slice
+	if err := CheckRecord(file, 1, header, nil); err != nil {
+		return nil, err
 	}
 	col := map[string]int{}
 	for i, h := range header {
@@ -40,6 +48,7 @@ func ReadCSV(file string, r io.Reader) (*Source, error) {
 			return nil, &Error{File: file, Line: 1, Field: need, Msg: "missing column; the header must name the columns name and population"}
 		}
 	}
+	names := newNameSeen(o)
 	for {
 		rec, err := cr.Read()
 		if err == io.EOF {
@@ -52,10 +61,16 @@ func ReadCSV(file string, r io.Reader) (*Source, error) {
 		if len(src.unitLines) >= engine.MaxUnits {
 			return nil, &Error{File: file, Line: line, Msg: "more than " + strconv.Itoa(engine.MaxUnits) + " units"}
 		}
-		u, uerr := unitFromRow(rec, col)
+		if err := CheckRecord(file, line, rec, header); err != nil {
+			return nil, err
+		}
+		u, uerr := unitFromRow(rec, col, o)
 		if uerr != nil {
 			uerr.File, uerr.Line = file, line
 			return nil, uerr
+		}
+		if msg := names.check(len(src.unitLines), strings.TrimSpace(rec[col["name"]]), u.Name, src.UnitLine); msg != "" {
+			return nil, &Error{File: file, Line: line, Field: "name", Msg: msg}
 		}
 		src.Scenario.Units = append(src.Scenario.Units, u)
 		src.unitLines = append(src.unitLines, line)
@@ -66,16 +81,34 @@ func ReadCSV(file string, r io.Reader) (*Source, error) {
 	return src, nil
 }
 
-func unitFromRow(rec []string, col map[string]int) (engine.Unit, *Error) {
+// CheckRecord refuses a CSV record holding text that is not UTF-8 or
+// holds a NUL byte, naming the file, line and field (the column's name
+// from header, or its number).
+func CheckRecord(file string, line int, rec, header []string) error {
+	for i, f := range rec {
+		msg := textProblem(f)
+		if msg == "" {
+			continue
+		}
+		field := "column " + strconv.Itoa(i+1)
+		if i < len(header) && textProblem(header[i]) == "" && strings.TrimSpace(header[i]) != "" {
+			field = strings.ToLower(strings.TrimSpace(header[i]))
+		}
+		return &Error{File: file, Line: line, Field: field, Msg: "the text " + msg}
+	}
+	return nil
+}
+
+func unitFromRow(rec []string, col map[string]int, o Options) (engine.Unit, *Error) {
 	var u engine.Unit
-	u.Name = strings.TrimSpace(rec[col["name"]])
+	u.Name = o.name(rec[col["name"]])
 	if u.Name == "" {
 		return u, &Error{Field: "name", Msg: "empty"}
 	}
 	ptext := rec[col["population"]]
 	p, err := engine.ParseDecimal(ptext)
 	if err != nil {
-		return u, &Error{Field: "population", Msg: populationMsg(u.Name, ptext, err)}
+		return u, &Error{Field: "population", Msg: PopulationProblem(u.Name, ptext, err)}
 	}
 	u.Population = p
 	for _, b := range []struct {
@@ -95,16 +128,26 @@ func unitFromRow(rec []string, col map[string]int) (engine.Unit, *Error) {
 	return u, nil
 }
 
-func populationMsg(name, text string, err error) string {
-	return strconv.Quote(name) + ": " + strconv.Quote(strings.TrimSpace(text)) + " is not a population: " + decimalProblem(err)
+// PopulationProblem says why text, given as unit name's population, is
+// not one: `"North": "-5" is not a population: populations cannot be
+// negative`. err is the error of engine.ParseDecimal.
+func PopulationProblem(name, text string, err error) string {
+	return strconv.Quote(name) + ": " + NumberProblem("population", text, err)
 }
 
-func decimalProblem(err error) string {
+// NumberProblem says why text is not a kind of number (a population, a
+// count of votes), in the words every reader uses: `"-5" is not a count:
+// counts cannot be negative`. err is the error of engine.ParseDecimal.
+func NumberProblem(kind, text string, err error) string {
+	return strconv.Quote(strings.TrimSpace(text)) + " is not a " + kind + ": " + decimalProblem(kind, err)
+}
+
+func decimalProblem(kind string, err error) string {
 	switch {
 	case errors.Is(err, engine.ErrEmpty):
 		return "missing"
 	case errors.Is(err, engine.ErrNegative):
-		return "populations cannot be negative"
+		return kind + "s cannot be negative"
 	case errors.Is(err, engine.ErrTooPrecise):
 		return "at most 9 decimal places"
 	case errors.Is(err, engine.ErrTooLarge):

@@ -14,7 +14,8 @@ import (
 // order mark at the start is skipped and empty lines are ignored. Every
 // record must have as many fields as the first. It reads as it goes,
 // holding one record at a time, and gives the same records and errors as
-// encoding/csv with its default settings.
+// encoding/csv with its default settings, but for records longer than
+// [MaxRecordBytes], which it refuses.
 type CSVReader struct {
 	r       *bufio.Reader
 	line    int // lines read so far
@@ -45,6 +46,7 @@ const (
 	msgBareQuote  = "bare \" in non-quoted-field"
 	msgQuote      = "extraneous or missing \" in quoted-field"
 	msgFieldCount = "wrong number of fields"
+	msgTooLong    = "a record longer than 1 MiB: this does not look like a table"
 )
 
 // NewCSVReader returns a reader of the CSV text in r.
@@ -62,6 +64,9 @@ func (c *CSVReader) readLine() ([]byte, error) {
 	if err == bufio.ErrBufferFull {
 		c.raw = append(c.raw[:0], line...)
 		for err == bufio.ErrBufferFull {
+			if len(c.raw) > MaxRecordBytes {
+				return nil, &CSVError{Line: c.line + 1, Column: 1, Msg: msgTooLong}
+			}
 			line, err = c.r.ReadSlice('\n')
 			c.raw = append(c.raw, line...)
 		}
@@ -166,6 +171,10 @@ parse:
 			case len(line) > 0:
 				// The field goes on to the next line.
 				c.buf = append(c.buf, line...)
+				if len(c.buf) > MaxRecordBytes {
+					err = &CSVError{Line: c.start, Column: 1, Msg: msgTooLong}
+					break parse
+				}
 				if errRead != nil {
 					break parse
 				}

@@ -2,7 +2,6 @@ package input
 
 import (
 	"bufio"
-	"bytes"
 	"errors"
 	"io"
 	"strconv"
@@ -16,10 +15,14 @@ import (
 const Version = 1
 
 // ReadJSON reads a scenario document.
-func ReadJSON(file string, r io.Reader) (*Source, error) {
-	data, err := io.ReadAll(io.LimitReader(r, 1<<31))
+func ReadJSON(file string, r io.Reader) (*Source, error) { return Options{}.ReadJSON(file, r) }
+
+// ReadJSON reads a scenario document as the package's ReadJSON does, with
+// the options. A document larger than [MaxJSONBytes] is refused.
+func (o Options) ReadJSON(file string, r io.Reader) (*Source, error) {
+	data, err := ReadLimited(file, r)
 	if err != nil {
-		return nil, &Error{File: file, Msg: err.Error()}
+		return nil, err
 	}
 	v, err := jsondoc.Parse(data)
 	if err != nil {
@@ -29,37 +32,27 @@ func ReadJSON(file string, r io.Reader) (*Source, error) {
 		}
 		return nil, &Error{File: file, Msg: err.Error()}
 	}
-	return FromDoc(file, v)
+	return o.FromDoc(file, v)
 }
 
 // Read reads a scenario from CSV or JSON: JSON when the first character that
-// is not white space is '{', CSV otherwise.
-func Read(file string, r io.Reader) (*Source, error) {
-	// Read only as far as the first character that decides, then hand the
-	// whole input on: a CSV table is read as it streams in.
+// is not white space is '{', CSV otherwise. What is neither is refused
+// (see [Sniff]).
+func Read(file string, r io.Reader) (*Source, error) { return Options{}.Read(file, r) }
+
+// Read reads a scenario as the package's Read does, with the options.
+func (o Options) Read(file string, r io.Reader) (*Source, error) {
+	// Look only as far as what decides, then hand the whole input on: a
+	// CSV table is read as it streams in.
 	br := bufio.NewReaderSize(r, 64<<10)
-	var head []byte
-	for {
-		c, err := br.ReadByte()
-		if err == io.EOF {
-			break
-		}
-		if err != nil {
-			return nil, &Error{File: file, Msg: err.Error()}
-		}
-		head = append(head, c)
-		if len(head) <= 3 && bytes.HasPrefix([]byte("\xEF\xBB\xBF"), head) {
-			continue
-		}
-		if c != ' ' && c != '\t' && c != '\r' && c != '\n' {
-			break
-		}
+	kind, err := Sniff(file, br)
+	if err != nil {
+		return nil, err
 	}
-	all := io.MultiReader(bytes.NewReader(head), br)
-	if len(head) > 0 && head[len(head)-1] == '{' {
-		return ReadJSON(file, all)
+	if kind == JSON {
+		return o.ReadJSON(file, br)
 	}
-	return ReadCSV(file, all)
+	return o.ReadCSV(file, br)
 }
 
 var scenarioMembers = []string{"version", "title", "seats", "method", "min", "max", "threshold", "tie", "units"}
@@ -67,7 +60,11 @@ var unitMembers = []string{"name", "population", "min", "max"}
 
 // FromDoc reads a scenario from a parsed JSON document (or from JavaScript
 // values converted to one).
-func FromDoc(file string, v *jsondoc.Value) (*Source, error) {
+func FromDoc(file string, v *jsondoc.Value) (*Source, error) { return Options{}.FromDoc(file, v) }
+
+// FromDoc reads a scenario as the package's FromDoc does, with the
+// options.
+func (o Options) FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 	src := &Source{File: file, Given: map[string]bool{}, fieldLines: map[string]int{}}
 	bad := func(line int, field, msg string) error {
 		return &Error{File: file, Line: line, Field: field, Msg: msg}
@@ -93,6 +90,9 @@ func FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 	if x := v.Get("title"); !x.IsNull() {
 		if x.Kind != jsondoc.String {
 			return nil, bad(line(x), "title", "must be a string")
+		}
+		if msg := textProblem(x.Text); msg != "" {
+			return nil, bad(line(x), "title", "the text "+msg)
 		}
 		src.Title = x.Text
 	}
@@ -162,8 +162,14 @@ func FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 	if len(us.Items) > engine.MaxUnits {
 		return nil, bad(line(us), "units", "more than "+strconv.Itoa(engine.MaxUnits)+" units")
 	}
+	names := newNameSeen(o)
 	for k, x := range us.Items {
-		u, err := unitFromDoc(x)
+		u, err := unitFromDoc(x, o)
+		if err == nil {
+			if msg := names.check(k, strings.TrimSpace(x.Get("name").Text), u.Name, src.UnitLine); msg != "" {
+				err = &Error{Line: line(x.Get("name")), Field: "name", Msg: msg}
+			}
+		}
 		if err != nil {
 			err.File = file
 			if err.Line == 0 {
@@ -178,7 +184,7 @@ func FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 	return src, nil
 }
 
-func unitFromDoc(x *jsondoc.Value) (engine.Unit, *Error) {
+func unitFromDoc(x *jsondoc.Value, o Options) (engine.Unit, *Error) {
 	var u engine.Unit
 	if x.Kind != jsondoc.Object {
 		return u, &Error{Msg: "a unit is an object with name and population"}
@@ -192,7 +198,10 @@ func unitFromDoc(x *jsondoc.Value) (engine.Unit, *Error) {
 	if n.IsNull() || n.Kind != jsondoc.String || strings.TrimSpace(n.Text) == "" {
 		return u, &Error{Line: line(n), Field: "name", Msg: "missing or empty: every unit needs a name (a string)"}
 	}
-	u.Name = strings.TrimSpace(n.Text)
+	if msg := textProblem(n.Text); msg != "" {
+		return u, &Error{Line: line(n), Field: "name", Msg: "the text " + msg}
+	}
+	u.Name = o.name(n.Text)
 	p := x.Get("population")
 	if p.IsNull() {
 		return u, &Error{Field: "population", Msg: strconv.Quote(u.Name) + ": missing"}
@@ -202,7 +211,7 @@ func unitFromDoc(x *jsondoc.Value) (engine.Unit, *Error) {
 	}
 	d, err := engine.ParseDecimal(p.Text)
 	if err != nil {
-		return u, &Error{Line: line(p), Field: "population", Msg: populationMsg(u.Name, p.Text, err)}
+		return u, &Error{Line: line(p), Field: "population", Msg: PopulationProblem(u.Name, p.Text, err)}
 	}
 	u.Population = d
 	for _, b := range []struct {
@@ -237,7 +246,8 @@ func whole(x *jsondoc.Value) (int, error) {
 	return n, nil
 }
 
-// ParseShare reads a share of the total: "0.05", ".05" or "5%".
+// ParseShare reads a share of the total: "0.05", ".05" or "5%". Its
+// errors say what is wrong with the text.
 func ParseShare(s string) (engine.Decimal, error) {
 	t := strings.TrimSpace(s)
 	pct := strings.HasSuffix(t, "%")
@@ -245,18 +255,28 @@ func ParseShare(s string) (engine.Decimal, error) {
 	if strings.HasPrefix(t, ".") {
 		t = "0" + t
 	}
+	q := strconv.Quote(s)
 	d, err := engine.ParseDecimal(t)
-	if err != nil {
-		return engine.Decimal{}, errors.New(strconv.Quote(s) + " is not a share: write 0.05 or 5%")
+	switch {
+	case errors.Is(err, engine.ErrEmpty):
+		return engine.Decimal{}, errors.New("missing: write a share such as 0.05 or 5%")
+	case errors.Is(err, engine.ErrNegative):
+		return engine.Decimal{}, errors.New(q + " is negative; a threshold is a share from 0 to 1, such as 0.05 or 5%")
+	case errors.Is(err, engine.ErrTooPrecise):
+		return engine.Decimal{}, errors.New(q + " has more than " + strconv.Itoa(engine.MaxPlaces) + " decimal places; a threshold takes at most " +
+			strconv.Itoa(engine.MaxPlaces) + " (" + strconv.Itoa(engine.MaxPlaces-2) + " in a percentage)")
+	case err != nil:
+		return engine.Decimal{}, errors.New(q + " is not a share: write 0.05 or 5%")
 	}
 	if pct {
 		if d.Places+2 > engine.MaxPlaces {
-			return engine.Decimal{}, errors.New(strconv.Quote(s) + " has too many decimal places")
+			return engine.Decimal{}, errors.New(q + " has more than " + strconv.Itoa(engine.MaxPlaces-2) + " decimal places; a percentage takes at most " +
+				strconv.Itoa(engine.MaxPlaces-2) + " (a share " + strconv.Itoa(engine.MaxPlaces) + ")")
 		}
 		d.Places += 2
 	}
 	if d.Cmp(engine.Whole(1)) > 0 {
-		return engine.Decimal{}, errors.New(strconv.Quote(s) + " is more than the whole")
+		return engine.Decimal{}, errors.New(q + " is more than the whole")
 	}
 	return d, nil
 }

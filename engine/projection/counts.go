@@ -1,7 +1,7 @@
 package projection
 
 import (
-	"bytes"
+	"bufio"
 	"errors"
 	"io"
 	"math"
@@ -78,14 +78,24 @@ func (c *Counts) Locate(err error) error {
 
 // ReadCounts reads counts from CSV or JSON: JSON when the first character
 // that is not white space is '{', CSV otherwise. file names the input in
-// error messages.
+// error messages. What is neither is refused as input.Sniff says.
 func ReadCounts(file string, r io.Reader) (*Counts, error) {
-	data, err := io.ReadAll(io.LimitReader(r, 1<<31))
+	return ReadCountsWith(file, r, input.Options{})
+}
+
+// ReadCountsWith is ReadCounts with the scenario readers' options (such as
+// the form names are compared in).
+func ReadCountsWith(file string, r io.Reader, opt input.Options) (*Counts, error) {
+	br := bufio.NewReaderSize(r, 64<<10)
+	kind, err := input.Sniff(file, br)
 	if err != nil {
-		return nil, &input.Error{File: file, Msg: err.Error()}
+		return nil, err
 	}
-	data = bytes.TrimPrefix(data, []byte("\xEF\xBB\xBF"))
-	if bytes.HasPrefix(bytes.TrimLeft(data, " \t\r\n"), []byte("{")) {
+	if kind == input.JSON {
+		data, err := input.ReadLimited(file, br)
+		if err != nil {
+			return nil, err
+		}
 		v, err := jsondoc.Parse(data)
 		if err != nil {
 			var se *jsondoc.SyntaxError
@@ -94,16 +104,16 @@ func ReadCounts(file string, r io.Reader) (*Counts, error) {
 			}
 			return nil, &input.Error{File: file, Msg: err.Error()}
 		}
-		return CountsFromDoc(file, v)
+		return countsFromDoc(file, v, opt)
 	}
-	return readCSV(file, data)
+	return readCSV(file, br, opt)
 }
 
 var csvColumns = []string{"name", "date", "population", "rse", "min", "max"}
 
 // readCSV reads a table with one row per count.
-func readCSV(file string, data []byte) (*Counts, error) {
-	cr := input.NewCSVReader(bytes.NewReader(data))
+func readCSV(file string, r io.Reader, opt input.Options) (*Counts, error) {
+	cr := input.NewCSVReader(r)
 	bad := func(line int, field, msg string) error {
 		return &input.Error{File: file, Line: line, Field: field, Msg: msg}
 	}
@@ -113,6 +123,10 @@ func readCSV(file string, data []byte) (*Counts, error) {
 	}
 	if err != nil {
 		return nil, csvError(file, err)
+	}
+	header = append([]string(nil), header...) // the reader reuses its slice
+	if err := input.CheckRecord(file, 1, header, nil); err != nil {
+		return nil, err
 	}
 	col := map[string]int{}
 	for i, h := range header {
@@ -134,6 +148,7 @@ func readCSV(file string, data []byte) (*Counts, error) {
 	_, dated := col["date"]
 	c := &Counts{File: file, Given: map[string]bool{}, Dated: dated, fieldLines: map[string]int{}}
 	index := map[string]int{}
+	writtenAs := map[string]string{} // each name as first written
 	// Where each per-unit setting was first given.
 	setLine := map[string]int{}
 	cell := func(rec []string, k string) (string, bool) {
@@ -158,14 +173,21 @@ func readCSV(file string, data []byte) (*Counts, error) {
 		if rows > engine.MaxUnits*8 {
 			return nil, bad(line, "", "too many rows")
 		}
+		if err := input.CheckRecord(file, line, rec, header); err != nil {
+			return nil, err
+		}
 		name, _ := cell(rec, "name")
 		if name == "" {
 			return nil, bad(line, "name", "empty")
 		}
+		written := name
+		if opt.NameForm != nil {
+			name = opt.NameForm(name)
+		}
 		ptext, _ := cell(rec, "population")
 		p, err := engine.ParseDecimal(ptext)
 		if err != nil {
-			return nil, bad(line, "population", strconv.Quote(name)+": "+populationMsg(ptext, err))
+			return nil, bad(line, "population", input.PopulationProblem(name, ptext, err))
 		}
 		cnt := Count{Population: p, Line: line}
 		if dated {
@@ -183,10 +205,14 @@ func readCSV(file string, data []byte) (*Counts, error) {
 			}
 			k = len(c.Series)
 			index[name] = k
+			writtenAs[name] = written
 			c.Series = append(c.Series, Series{Name: name, Line: line})
 		} else if !dated {
 			return nil, bad(line, "name", strconv.Quote(name)+": the same name as line "+strconv.Itoa(c.Series[k].Line)+
 				"; add a date column to give several counts of one unit")
+		} else if writtenAs[name] != written {
+			return nil, bad(line, "name", strconv.Quote(name)+": the unit of line "+strconv.Itoa(c.Series[k].Line)+
+				", written with other Unicode characters; names are compared in Unicode normalization form C")
 		}
 		s := &c.Series[k]
 		for _, prev := range s.Counts {
@@ -245,10 +271,10 @@ func sortCounts(cs []Count) {
 var docMembers = []string{"version", "title", "seats", "method", "min", "max", "threshold", "tie", "units"}
 var unitMembers = []string{"name", "population", "counts", "rse", "min", "max"}
 
-// CountsFromDoc reads counts from a parsed JSON document: a scenario
+// countsFromDoc reads counts from a parsed JSON document: a scenario
 // document whose units carry either a population (one undated count) or a
 // counts array of {date, population}, and optionally an rse.
-func CountsFromDoc(file string, v *jsondoc.Value) (*Counts, error) {
+func countsFromDoc(file string, v *jsondoc.Value, opt input.Options) (*Counts, error) {
 	bad := func(line int, field, msg string) error {
 		return &input.Error{File: file, Line: line, Field: field, Msg: msg}
 	}
@@ -349,7 +375,7 @@ func CountsFromDoc(file string, v *jsondoc.Value) (*Counts, error) {
 		c.Series = append(c.Series, s)
 	}
 	plain.Set("units", plainUnits)
-	src, err := input.FromDoc(file, plain)
+	src, err := opt.FromDoc(file, plain)
 	if err != nil {
 		return nil, err
 	}
@@ -393,7 +419,7 @@ func countFromDoc(x *jsondoc.Value, name string) (Count, *input.Error) {
 	}
 	pop, perr := engine.ParseDecimal(p.Text)
 	if perr != nil {
-		return cnt, &input.Error{Line: lineOf(p), Field: "population", Msg: strconv.Quote(name) + ": " + populationMsg(p.Text, perr)}
+		return cnt, &input.Error{Line: lineOf(p), Field: "population", Msg: input.PopulationProblem(name, p.Text, perr)}
 	}
 	cnt.Date, cnt.Dated, cnt.Population = date, true, pop
 	return cnt, nil
@@ -427,21 +453,6 @@ func ParseRSE(s string) (float64, error) {
 		return 0, errors.New(strconv.Quote(s) + " is more than 100%: a relative standard error is a share of the count")
 	}
 	return f, nil
-}
-
-func populationMsg(text string, err error) string {
-	t := strconv.Quote(strings.TrimSpace(text)) + " is not a population: "
-	switch {
-	case errors.Is(err, engine.ErrEmpty):
-		return "missing"
-	case errors.Is(err, engine.ErrNegative):
-		return t + "populations cannot be negative"
-	case errors.Is(err, engine.ErrTooPrecise):
-		return t + "at most 9 decimal places"
-	case errors.Is(err, engine.ErrTooLarge):
-		return t + "at most 10^18"
-	}
-	return t + "write a whole number or an exact decimal such as 1250.5, without separators or exponents"
 }
 
 func wholeSeats(s string) (int, error) {

@@ -74,7 +74,7 @@
 //
 // # The projection document (version 1)
 //
-// report.Projection writes a summary as JSON:
+// format.ProjectionJSON writes a summary as JSON:
 //
 //	{version: 1, kind: "projection", caution, title, method, method_name,
 //	 seats, target: "YYYY-MM-DD"|null, growth: "linear"|"geometric"|null,
@@ -92,7 +92,7 @@
 //
 // Populations (latest, projected, total) are exact decimal strings; draws
 // are whole numbers; shares and rates are numbers. The full description is
-// on report.Projection.
+// on format.ProjectionJSON.
 //
 // # Running in chunks
 //

@@ -6,6 +6,7 @@ import (
 	"math"
 	"math/rand/v2"
 	"os"
+	"path/filepath"
 	"reflect"
 	"strings"
 	"testing"
@@ -15,27 +16,14 @@ import (
 )
 
 // demoCounts are dated counts for the nine provinces of Vessaria, an
-// invented federation (demo data only).
-const demoCounts = `name,date,population,rse
-Orlen,2015-04-01,2550112,
-Orlen,2020-04-01,2694457,1.5%
-Tamsk,2015-04-01,2101334,
-Tamsk,2020-04-01,2079562,
-Brevia,2015-04-01,1090220,
-Brevia,2020-04-01,1178082,
-Caldmoor,2015-04-01,960551,
-Caldmoor,2020-04-01,977496,
-Pellin Reach,2015-04-01,541870,
-Pellin Reach,2020-04-01,588225,
-Sarrow,2015-04-01,351002,
-Sarrow,2020-04-01,344546,
-Upper Vell,2015-04-01,170334,
-Upper Vell,2020-04-01,188940,
-Keddle Isles,2015-04-01,95120,
-Keddle Isles,2020-04-01,93288,
-Marrowgate,2015-04-01,51877,
-Marrowgate,2020-04-01,55971,
-`
+// invented federation (demo data only): testdata/demo/vessaria-counts.csv.
+var demoCounts = func() string {
+	b, err := os.ReadFile(filepath.Join("..", "..", "testdata", "demo", "vessaria-counts.csv"))
+	if err != nil {
+		panic(err)
+	}
+	return string(b)
+}()
 
 func demoStudy(t testing.TB, opt Options) *Study {
 	t.Helper()

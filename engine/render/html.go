@@ -8,13 +8,6 @@ var voidElements = map[string]bool{
 	"input": true, "link": true, "meta": true, "source": true, "wbr": true,
 }
 
-// svgElements are written in SVG's foreign-content form (self-closing when
-// empty).
-var svgElements = map[string]bool{
-	"svg": true, "g": true, "rect": true, "line": true, "text": true,
-	"title": true, "desc": true, "path": true, "circle": true, "tspan": true,
-}
-
 // Allowed reports whether tag is one of the elements this package writes.
 // The browser side refuses any other tag.
 func Allowed(tag string) bool { return allowed[tag] }
@@ -39,22 +32,29 @@ func HTML(n *Node) string {
 
 // WriteHTML writes n as HTML to b.
 func WriteHTML(b *strings.Builder, n *Node) {
-	writeNode(b, n, false)
+	writeNode(b, n, false, false)
 }
 
-func writeNode(b *strings.Builder, n *Node, inSVG bool) {
+// writeNode writes n as HTML, or as XML when xml is set (the SVG writer):
+// inside <svg>, and everywhere in XML, an element without children is
+// closed with "/>"; elsewhere in HTML void elements have no end tag.
+func writeNode(b *strings.Builder, n *Node, inSVG, xml bool) {
+	escape := escapeHTML
+	if xml {
+		escape = escapeXML
+	}
 	if n.Tag == "" {
-		escapeText(b, n.Text)
+		escape(b, n.Text, false)
 		return
 	}
-	svg := inSVG || n.Tag == "svg"
+	svg := inSVG || xml || n.Tag == "svg"
 	b.WriteByte('<')
 	b.WriteString(n.Tag)
 	for _, a := range n.Attrs {
 		b.WriteByte(' ')
 		b.WriteString(a.Key)
 		b.WriteString(`="`)
-		escapeAttr(b, a.Val)
+		escape(b, a.Val, true)
 		b.WriteByte('"')
 	}
 	if svg && len(n.Kids) == 0 {
@@ -66,40 +66,27 @@ func writeNode(b *strings.Builder, n *Node, inSVG bool) {
 		return
 	}
 	for _, k := range n.Kids {
-		writeNode(b, k, svg)
+		writeNode(b, k, svg, xml)
 	}
 	b.WriteString("</")
 	b.WriteString(n.Tag)
 	b.WriteByte('>')
 }
 
-func escapeText(b *strings.Builder, s string) {
+// escapeHTML writes s escaped for HTML text, or for an attribute value
+// in double quotes.
+func escapeHTML(b *strings.Builder, s string, attr bool) {
 	for i := 0; i < len(s); i++ {
-		switch c := s[i]; c {
-		case '&':
+		switch c := s[i]; {
+		case c == '&':
 			b.WriteString("&amp;")
-		case '<':
+		case c == '<':
 			b.WriteString("&lt;")
-		case '>':
+		case c == '>':
 			b.WriteString("&gt;")
-		default:
-			b.WriteByte(c)
-		}
-	}
-}
-
-func escapeAttr(b *strings.Builder, s string) {
-	for i := 0; i < len(s); i++ {
-		switch c := s[i]; c {
-		case '&':
-			b.WriteString("&amp;")
-		case '<':
-			b.WriteString("&lt;")
-		case '>':
-			b.WriteString("&gt;")
-		case '"':
+		case c == '"' && attr:
 			b.WriteString("&#34;")
-		case '\'':
+		case c == '\'' && attr:
 			b.WriteString("&#39;")
 		default:
 			b.WriteByte(c)

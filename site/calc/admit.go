@@ -45,7 +45,7 @@ func runAdmit(o *Outcome, va *variation) {
 		return
 	}
 	o.Admit = a
-	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, va.context())
+	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, o.Block.Count.claimWords(va.context()))
 }
 
 // admitProblem places an error about the admitted unit (unit n of the
@@ -76,9 +76,9 @@ func admitOutput(o *Outcome, out *Node) {
 	p.Add(Wrap("strong", m.Name()))
 	p.AddText(": admitting ")
 	p.Add(Wrap("strong", r.Name))
-	p.AddText(" (population " + Group(r.People.String()) + ") with ")
+	p.AddText(" (" + o.Block.Count.Of(Group(r.People.String())) + ") with ")
 	p.Add(Wrap("strong", plural(r.Added, "added seat")))
-	p.AddText(" raises the house from " + strconv.Itoa(r.House) + " to " + strconv.Itoa(r.NewHouse) + ". Its fair share, its population × " +
+	p.AddText(" raises the house from " + strconv.Itoa(r.House) + " to " + strconv.Itoa(r.NewHouse) + ". Its fair share, its " + o.Block.Count.Noun() + " × " +
 		strconv.Itoa(r.House) + " ÷ " + Group(unitsTotal(o.Scenario.Units)) + ", is " + analysis.Decimal(r.FairShare) + " seats")
 	if a.Added < 0 {
 		p.AddText(", which rounds to " + strconv.Itoa(r.Added) + ".")
@@ -95,7 +95,7 @@ func admitOutput(o *Outcome, out *Node) {
 	t := El("table", "class", "sc-admit", "data-role", "admit", "data-method", m.String())
 	t.Add(Wrap("caption", "Seats by "+m.Name()+" before and after admitting "+r.Name, "id", o.Block.ID+"-admit-caption"))
 	head := El("tr")
-	for _, c := range []string{"Unit", "Seats in " + strconv.Itoa(r.House), "Seats in " + strconv.Itoa(r.NewHouse), "Change", "Population"} {
+	for _, c := range []string{"Unit", "Seats in " + strconv.Itoa(r.House), "Seats in " + strconv.Itoa(r.NewHouse), "Change", o.Block.Count.Head()} {
 		head.Add(Wrap("th", c, "scope", "col"))
 	}
 	t.Add(El("thead").Add(head))
@@ -121,7 +121,7 @@ func admitOutput(o *Outcome, out *Node) {
 		Wrap("td", "–", "class", "num"), Wrap("td", strconv.Itoa(nu.Seats), "class", "num sc-seats"),
 		Wrap("td", seatDelta(0, nu.Seats), "class", "num sc-delta"), Wrap("td", Group(nu.Population.String()), "class", "num")))
 	t.Add(body)
-	wrap.Add(t)
+	wrap.Add(Stackable(t))
 	out.Add(wrap)
 
 	sec := El("section", "class", "sc-findings", "data-role", "new-states", "aria-label", "What admitting the unit does")
@@ -130,7 +130,7 @@ func admitOutput(o *Outcome, out *Node) {
 	} else {
 		sec.Add(Wrap("h3", "No paradox under "+m.Name()))
 	}
-	f := Wrap("p", r.Text(), "data-paradox", "new-states", "data-holds", strconv.FormatBool(r.Paradox()))
+	f := Wrap("p", o.Block.Count.claimWords(claim.Context{}).NewStatesText(r), "data-paradox", "new-states", "data-holds", strconv.FormatBool(r.Paradox()))
 	sec.Add(f)
 	if r.Paradox() && r.NewSeats != r.Added {
 		sec.Add(Wrap("p", r.Name+" itself receives "+plural(r.NewSeats, "seat")+", not the "+strconv.Itoa(r.Added)+" added for it, so the others must make up the difference. The paradox in its pure form is when the new unit receives exactly the seats added for it and the old units' seats still change.", "class", "sc-hint"))
@@ -144,7 +144,7 @@ func admitMethods(o *Outcome) *Node {
 	a := o.Admit
 	sec := El("section", "class", "sc-compare", "data-role", "admit-compare", "aria-label", "Every method with the new unit")
 	sec.Add(Wrap("h3", "Every method with the new unit"))
-	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "The new unit under each method (scrolls sideways)")
+	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "The new unit under each method")
 	t := El("table", "class", "sc-method-summary")
 	t.Add(El("thead").Add(El("tr").Add(Wrap("th", "Method", "scope", "col"), Wrap("th", "New unit's seats", "scope", "col"),
 		Wrap("th", "Other units' seats that change", "scope", "col"))))
@@ -164,7 +164,7 @@ func admitMethods(o *Outcome) *Node {
 		body.Add(row)
 	}
 	t.Add(body)
-	wrap.Add(t)
+	wrap.Add(Stackable(t))
 	sec.Add(wrap)
 	sec.Add(Wrap("p", "Under a divisor method, a new unit that receives exactly the seats added for it leaves every other unit's seats as they were: the divisor that worked for them before still works. Largest-remainder methods make no such promise.", "class", "sc-hint"))
 	return sec

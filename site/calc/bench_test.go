@@ -6,9 +6,9 @@ import (
 	"testing"
 
 	"seatsmith/engine"
+	"seatsmith/engine/analysis"
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 )
 
 // fiftyUnits is an invented scenario of fifty units with made-up names and
@@ -77,7 +77,7 @@ func BenchmarkLiveFifty(b *testing.B) {
 	})
 	b.Run("compare", func(b *testing.B) {
 		for b.Loop() {
-			report.Compare(src.Scenario, engine.Methods(), 0)
+			analysis.CompareMethods(src.Scenario, engine.Methods(), 0)
 		}
 	})
 }

@@ -77,6 +77,10 @@ type Block struct {
 	// Compare lists the methods the comparison shows; for growth and
 	// admit blocks, the methods whose findings are summarised.
 	Compare []engine.Method
+	// Count is what the units' numbers count (the block's count member):
+	// the calculator speaks of votes, students or applications instead of
+	// population where the block says so.
+	Count Count
 
 	// vary is the code of a variation block's mode; nil for a calculator.
 	vary *variationMode
@@ -98,9 +102,11 @@ func (b *Block) NeedsAnalysis() bool {
 }
 
 // ParseBlock reads a calculator block from its JSON document. Errors are
-// *input.Error values naming file, line and field.
-func ParseBlock(file, id string, mode Mode, v *jsondoc.Value) (*Block, error) {
+// *input.Error values naming file, line and field, in the block's words
+// once its count is known.
+func ParseBlock(file, id string, mode Mode, v *jsondoc.Value) (_ *Block, err error) {
 	b := &Block{File: file, ID: id, Mode: mode}
+	defer func() { err = b.Count.speakErr(err) }()
 	if v == nil || v.Kind != jsondoc.Object {
 		return nil, &input.Error{File: file, Line: line(v), Msg: "a calculator block holds one JSON object: a scenario with seats, method and units"}
 	}
@@ -108,12 +114,17 @@ func ParseBlock(file, id string, mode Mode, v *jsondoc.Value) (*Block, error) {
 	doc.Line = v.Line
 	for _, f := range v.Fields {
 		switch f.Key {
-		case "claims", "compare":
+		case "claims", "compare", "count":
 		default:
 			doc.Fields = append(doc.Fields, f)
 		}
 	}
 	b.Doc = doc
+	c, err := readCount(file, v.Get("count"))
+	if err != nil {
+		return nil, err
+	}
+	b.Count = c
 	vm, ierr := variationOf(file, line(v), mode)
 	if ierr != nil {
 		return nil, ierr

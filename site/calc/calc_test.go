@@ -63,7 +63,7 @@ func TestAnswer(t *testing.T) {
 	if _, ok := render.FromDoc(resp.Get("editor")); !ok {
 		t.Error("no editor tree")
 	}
-	if !strings.Contains(resp.Get("csv").Text, "Orlen,2694457,13.142784,12,NO") {
+	if !strings.Contains(resp.Get("csv").Text, "huntington-hill,40,1,,0,none,Orlen,2694457,1,,false,13.142784,13,14,12,false,") {
 		t.Errorf("csv export: %s", resp.Get("csv").Text)
 	}
 	if p := resp.Get("scenario").Get("units").Items[0].Get("population"); p.Kind != jsondoc.String || p.Text != "2694457" {

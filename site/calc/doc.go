@@ -10,10 +10,13 @@
 // # Calculator blocks
 //
 // A block is a scenario document (see package seatsmith/engine/input) that
-// must give seats and method, with two more optional members:
+// must give seats and method, with three more optional members:
 //
 //	claims    an array of claims (see package seatsmith/site/claim)
 //	compare   the method ids the comparison shows (default: every method)
+//	count     what the units' numbers count: "population" (the default),
+//	          "votes", "students" or "applications"; the calculator speaks
+//	          of it wherever it speaks of a unit's number (see [Count])
 //
 // # Study blocks
 //

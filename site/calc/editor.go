@@ -58,7 +58,11 @@ func calculatorControls(fs *Node, b *Block, doc *jsondoc.Value, id func(string) 
 
 	csv := El("details", "class", "sc-csv")
 	csv.Add(Wrap("summary", "Paste or load a table"))
-	csv.Add(Wrap("p", "A CSV table with a header row: name and population, optionally min and max. It replaces the units above.", "class", "sc-hint", "id", id("csv-hint")))
+	hint := "A CSV table with a header row: name and population, optionally min and max. It replaces the units above."
+	if c := b.Count; c != (Count{}) {
+		hint = "A CSV table with a header row: name and population (here, the " + c.Nouns() + "), optionally min and max. It replaces the units above."
+	}
+	csv.Add(Wrap("p", hint, "class", "sc-hint", "id", id("csv-hint")))
 	cf := El("div", "class", "sc-field")
 	cf.Add(Wrap("label", "CSV table", "for", id("csv")))
 	cf.Add(El("textarea", "id", id("csv"), "data-field", "csv", "rows", "5", "spellcheck", "false", "aria-describedby", id("csv-hint"),
@@ -94,7 +98,7 @@ func advancedFields(b *Block, doc *jsondoc.Value, id func(string) string) *Node 
 	tf := El("div", "class", "sc-field")
 	tf.Add(Wrap("label", "When units tie for the last seat", "for", id("tie-kind")))
 	sel := El("select", "id", id("tie-kind"), "data-field", "tie-kind")
-	for _, o := range [][2]string{{"none", "Report the tie, leave the seat open"}, {"order", "Give it to the unit listed first"}, {"lot", "Draw lots (seeded, repeatable)"}} {
+	for _, o := range [][2]string{{"none", "Report it, leave it open"}, {"order", "The unit listed first"}, {"lot", "Draw lots (seeded)"}} {
 		sel.Add(Wrap("option", o[1], "value", o[0]).SetIf(o[0] == kind, "selected", ""))
 	}
 	tf.Add(sel)
@@ -164,7 +168,7 @@ func sweepControls(fs *Node, b *Block, doc *jsondoc.Value, id func(string) strin
 	if us := doc.Get("units"); us != nil && us.Kind == jsondoc.Array {
 		n = len(us.Items)
 	}
-	units.Add(Wrap("summary", "The units and their populations ("+strconv.Itoa(n)+")"))
+	units.Add(Wrap("summary", "The units and their "+b.Count.Nouns()+" ("+strconv.Itoa(n)+")"))
 	units.Add(unitsTable(b, doc), unitActions())
 	fs.Add(units)
 	ex := El("div", "class", "sc-actions sc-export")
@@ -183,9 +187,9 @@ func growthControls(fs *Node, b *Block, doc *jsondoc.Value, id func(string) stri
 	grid.Add(numberField(id("min"), "Minimum seats per unit", "min", docText(doc, "min"), "0"))
 	fs.Add(grid)
 	fs.Add(advancedFields(b, doc, id))
-	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Units (scrolls sideways)")
+	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Units")
 	t := El("table", "class", "sc-units sc-units-growth")
-	t.Add(Wrap("caption", "Units and their two counts. A blank later population keeps the first."))
+	t.Add(Wrap("caption", "Units and their two counts. A blank later count keeps the first."))
 	t.Add(El("thead").Add(El("tr").Add(
 		Wrap("th", "#", "scope", "col"),
 		Wrap("th", "Name", "scope", "col"),
@@ -205,15 +209,15 @@ func growthControls(fs *Node, b *Block, doc *jsondoc.Value, id func(string) stri
 			row := El("tr", "data-row", strconv.Itoa(k))
 			row.Add(Wrap("td", n, "class", "num sc-idx"))
 			row.Add(cell("name", "Name", "text", "sc-in-name"))
-			row.Add(cell("population", "First population", "decimal", "sc-in-pop num"))
-			row.Add(cell("later", "Later population", "decimal", "sc-in-pop num"))
+			row.Add(cell("population", "First count", "decimal", "sc-in-pop num"))
+			row.Add(cell("later", "Later count", "decimal", "sc-in-pop num"))
 			row.Add(El("td").Add(Wrap("button", "×", "type", "button", "class", "sc-remove", "data-action", "remove-unit",
 				"data-index", strconv.Itoa(k), "aria-label", "Remove unit "+n)))
 			body.Add(row)
 		}
 	}
 	t.Add(body)
-	wrap.Add(t)
+	wrap.Add(Stackable(t))
 	fs.Add(wrap)
 	fs.Add(unitActions())
 	fs.Add(El("div", "class", "sc-actions sc-export").Add(linkButton()))
@@ -236,7 +240,7 @@ func admitControls(fs *Node, b *Block, doc *jsondoc.Value, id func(string) strin
 	nf.Add(El("input", "id", id("admit-name"), "type", "text", "data-field", "admit.name", "value", docText(a, "name"), "autocomplete", "off", "spellcheck", "false"))
 	ag.Add(nf)
 	pf := El("div", "class", "sc-field")
-	pf.Add(Wrap("label", "Its population", "for", id("admit-population")))
+	pf.Add(Wrap("label", "Its "+b.Count.Noun(), "for", id("admit-population")))
 	pf.Add(El("input", "id", id("admit-population"), "type", "text", "data-field", "admit.population", "value", docText(a, "population"),
 		"inputmode", "decimal", "autocomplete", "off", "spellcheck", "false"))
 	ag.Add(pf)
@@ -310,13 +314,13 @@ func methodField(id, val string) *Node {
 }
 
 func unitsTable(b *Block, doc *jsondoc.Value) *Node {
-	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Units (scrolls sideways)")
+	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Units")
 	t := El("table", "class", "sc-units")
-	t.Add(Wrap("caption", "Units: names and populations. A blank minimum or maximum uses the default above."))
+	t.Add(Wrap("caption", "Units: names and "+b.Count.Nouns()+". A blank minimum or maximum uses the default above."))
 	t.Add(El("thead").Add(El("tr").Add(
 		Wrap("th", "#", "scope", "col"),
 		Wrap("th", "Name", "scope", "col"),
-		Wrap("th", "Population", "scope", "col"),
+		Wrap("th", b.Count.Head(), "scope", "col"),
 		Wrap("th", "Min", "scope", "col"),
 		Wrap("th", "Max", "scope", "col"),
 		El("th", "scope", "col").Add(Wrap("span", "Remove", "class", "sc-vh")),
@@ -334,7 +338,7 @@ func unitsTable(b *Block, doc *jsondoc.Value) *Node {
 			row := El("tr", "data-row", strconv.Itoa(k))
 			row.Add(Wrap("td", n, "class", "num sc-idx"))
 			row.Add(cell("name", "Name", "text", "sc-in-name"))
-			row.Add(cell("population", "Population", "decimal", "sc-in-pop num"))
+			row.Add(cell("population", b.Count.Head(), "decimal", "sc-in-pop num"))
 			row.Add(cell("min", "Minimum seats", "numeric", "sc-in-bound num"))
 			row.Add(cell("max", "Maximum seats", "numeric", "sc-in-bound num"))
 			row.Add(El("td").Add(Wrap("button", "×", "type", "button", "class", "sc-remove", "data-action", "remove-unit",
@@ -343,6 +347,6 @@ func unitsTable(b *Block, doc *jsondoc.Value) *Node {
 		}
 	}
 	t.Add(body)
-	wrap.Add(t)
+	wrap.Add(Stackable(t))
 	return wrap
 }

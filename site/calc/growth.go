@@ -72,7 +72,7 @@ func runGrowth(o *Outcome, va *variation) {
 		return
 	}
 	o.Growth = g
-	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, va.context())
+	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, o.Block.Count.claimWords(va.context()))
 }
 
 // laterProblem places an error about the later populations at their
@@ -84,7 +84,7 @@ func laterProblem(err error) *Problem {
 		return &Problem{Field: f, Msg: placeLabel(f) + ee.Msg}
 	}
 	p := problemOf(err)
-	p.Msg = "With the later populations: " + p.Msg
+	p.Msg = "With the later counts: " + p.Msg
 	return p
 }
 
@@ -101,15 +101,15 @@ func growthOutput(o *Outcome, out *Node) {
 	p.Add(Wrap("strong", m.Name()))
 	p.AddText(" divides ")
 	p.Add(Wrap("strong", plural(r.Before.Seats, "seat")))
-	p.AddText(" among " + plural(len(r.Before.Units), "unit") + " twice: with the first populations, totalling " + Group(r.Before.Total) +
+	p.AddText(" among " + plural(len(r.Before.Units), "unit") + " twice: with the first " + o.Block.Count.Nouns() + ", totalling " + Group(r.Before.Total) +
 		", and with the later ones, totalling " + Group(r.After.Total) + " (" + growthText(r.Before.Total, r.After.Total) + ").")
 	out.Add(p)
 
 	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-labelledby", o.Block.ID+"-growth-caption")
 	t := El("table", "class", "sc-growth", "data-role", "growth", "data-method", m.String())
-	t.Add(Wrap("caption", "Seats by "+m.Name()+" with the first and the later populations, "+plural(r.Before.Seats, "seat"), "id", o.Block.ID+"-growth-caption"))
+	t.Add(Wrap("caption", "Seats by "+m.Name()+" with the first and the later "+o.Block.Count.Nouns()+", "+plural(r.Before.Seats, "seat"), "id", o.Block.ID+"-growth-caption"))
 	head := El("tr")
-	for _, c := range []string{"Unit", "Seats, first", "Seats, later", "Change", "Growth", "First population", "Later population"} {
+	for _, c := range []string{"Unit", "Seats, first", "Seats, later", "Change", "Growth", o.Block.Count.Head() + ", first", o.Block.Count.Head() + ", later"} {
 		head.Add(Wrap("th", c, "scope", "col"))
 	}
 	t.Add(El("thead").Add(head))
@@ -125,7 +125,7 @@ func growthOutput(o *Outcome, out *Node) {
 		}
 		row.Add(Wrap("th", b.Name, "scope", "row"))
 		row.Add(Wrap("td", strconv.Itoa(b.Seats), "class", "num"), Wrap("td", strconv.Itoa(a.Seats), "class", "num sc-seats"))
-		row.Add(Wrap("td", seatDelta(b.Seats, a.Seats), "class", "num sc-delta"))
+		row.Add(Wrap("td", tiedDelta(b, a, r), "class", "num sc-delta"))
 		row.Add(Wrap("td", growthText(b.Population.String(), a.Population.String()), "class", "num"))
 		row.Add(Wrap("td", Group(b.Population.String()), "class", "num"), Wrap("td", Group(a.Population.String()), "class", "num"))
 		body.Add(row)
@@ -134,9 +134,9 @@ func growthOutput(o *Outcome, out *Node) {
 	t.Add(El("tfoot").Add(El("tr").Add(Wrap("th", "Total", "scope", "row"),
 		Wrap("td", strconv.Itoa(r.Before.Seats-r.Before.Unassigned), "class", "num"), Wrap("td", strconv.Itoa(r.After.Seats-r.After.Unassigned), "class", "num"), El("td"),
 		Wrap("td", growthText(r.Before.Total, r.After.Total), "class", "num"), Wrap("td", Group(r.Before.Total), "class", "num"), Wrap("td", Group(r.After.Total), "class", "num"))))
-	wrap.Add(t)
+	wrap.Add(Stackable(t))
 	out.Add(wrap)
-	out.Add(Wrap("p", "Growth: the later population divided by the first, less one, compared between units exactly (the percentages are rounded for display).", "class", "sc-hint"))
+	out.Add(Wrap("p", "Growth: the later "+o.Block.Count.Noun()+" divided by the first, less one, compared between units exactly (the percentages are rounded for display).", "class", "sc-hint"))
 
 	sec := El("section", "class", "sc-findings", "data-role", "population", "aria-label", "Population paradoxes found")
 	if len(r.Findings) == 0 {
@@ -161,9 +161,9 @@ func growthOutput(o *Outcome, out *Node) {
 // growthMethods summarises every method's findings.
 func growthMethods(o *Outcome) *Node {
 	g := o.Growth
-	sec := El("section", "class", "sc-compare", "data-role", "growth-compare", "aria-label", "Every method with these populations")
-	sec.Add(Wrap("h3", "Every method with these two population sets"))
-	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Population paradoxes by method (scrolls sideways)")
+	sec := El("section", "class", "sc-compare", "data-role", "growth-compare", "aria-label", "Every method with these "+o.Block.Count.Nouns())
+	sec.Add(Wrap("h3", "Every method with these two sets of "+o.Block.Count.Nouns()))
+	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Population paradoxes by method")
 	t := El("table", "class", "sc-method-summary")
 	t.Add(El("thead").Add(El("tr").Add(Wrap("th", "Method", "scope", "col"), Wrap("th", "Paradoxes", "scope", "col"),
 		Wrap("th", "Seats that change", "scope", "col"))))
@@ -183,7 +183,7 @@ func growthMethods(o *Outcome) *Node {
 		body.Add(row)
 	}
 	t.Add(body)
-	wrap.Add(t)
+	wrap.Add(Stackable(t))
 	sec.Add(wrap)
 	sec.Add(Wrap("p", "Divisor methods never show the population paradox: with one divisor for everybody, a unit that grows faster than another cannot lose a seat to it. Largest-remainder methods can.", "class", "sc-hint"))
 	return sec
@@ -195,7 +195,11 @@ func movesText(before, after *engine.Result) string {
 	var parts []string
 	for i := range before.Units {
 		if i < len(after.Units) && before.Units[i].Seats != after.Units[i].Seats {
-			parts = append(parts, before.Units[i].Name+" "+strconv.Itoa(before.Units[i].Seats)+" → "+strconv.Itoa(after.Units[i].Seats))
+			p := before.Units[i].Name + " " + strconv.Itoa(before.Units[i].Seats) + " → " + strconv.Itoa(after.Units[i].Seats)
+			if (before.Units[i].Tied && before.Unassigned > 0) || (after.Units[i].Tied && after.Unassigned > 0) {
+				p += " (a tie, not settled)"
+			}
+			parts = append(parts, p)
 		}
 	}
 	if len(parts) == 0 {
@@ -222,6 +226,20 @@ func growthText(from, to string) string {
 		s = "−" + strings.TrimPrefix(s, "-")
 	}
 	return s
+}
+
+// tiedDelta is seatDelta for a unit before (b) and after (a), saying
+// "tied" where a tie leaves one of its seats unassigned: its change is
+// then not settled.
+func tiedDelta(b, a *engine.UnitResult, r *analysis.PopulationResult) string {
+	d := seatDelta(b.Seats, a.Seats)
+	if !(b.Tied && r.Before.Unassigned > 0) && !(a.Tied && r.After.Unassigned > 0) {
+		return d
+	}
+	if d == "" {
+		return "tied"
+	}
+	return d + ", tied"
 }
 
 // seatDelta writes a change of seats: "+1", "−1" or "".

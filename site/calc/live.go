@@ -6,9 +6,10 @@ import (
 	"strconv"
 	"strings"
 
+	"seatsmith/engine/format"
+	csvformat "seatsmith/engine/format/csv"
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 )
 
 // parseBlock reads a calculator block from its JSON text, or says why it
@@ -163,14 +164,14 @@ func Export(o *Outcome) (csv, js string) {
 		return "", ""
 	}
 	var b bytes.Buffer
-	if err := report.AllotTable(o.Result).WriteCSV(&b); err != nil {
+	if err := csvformat.WriteTable(&b, format.AllotmentData(o.Result, &o.Scenario, true)); err != nil {
 		b.Reset()
 	}
 	v := jsondoc.NewObject().Set("version", jsondoc.Int(1)).Set("kind", jsondoc.Str("calculator-export"))
-	v.Set("caution", jsondoc.Str(report.Caution))
+	v.Set("caution", jsondoc.Str(format.Caution))
 	v.Set("scenario", input.Encode(o.Title, &o.Scenario))
-	v.Set("allotment", report.Allotment(o.Title, o.Result))
-	v.Set("comparison", o.Comparison.Doc(o.Title))
+	v.Set("allotment", format.AllotmentJSON(o.Title, o.Result))
+	v.Set("comparison", format.ComparisonJSON(o.Title, o.Comparison))
 	v.Set("claims", verdictsDoc(o.Verdicts))
 	return b.String(), string(jsondoc.MarshalIndent(v, "  "))
 }
@@ -178,14 +179,14 @@ func Export(o *Outcome) (csv, js string) {
 func exportSweep(o *Outcome) (csv, js string) {
 	set := o.Sweep.Set
 	var b bytes.Buffer
-	if err := report.SweepCSVTable(set).WriteCSV(&b); err != nil {
+	if err := csvformat.WriteTable(&b, format.SweepData(set)); err != nil {
 		b.Reset()
 	}
 	v := jsondoc.NewObject().Set("version", jsondoc.Int(1)).Set("kind", jsondoc.Str("sweep-export"))
-	v.Set("caution", jsondoc.Str(report.Caution))
+	v.Set("caution", jsondoc.Str(format.Caution))
 	v.Set("scenario", input.Encode(o.Title, &o.Scenario))
-	v.Set("sweep", set.Doc(o.Title))
-	v.Set("paradoxes", report.ParadoxDoc(o.Title, set, &o.Scenario))
+	v.Set("sweep", format.SweepJSON(o.Title, set))
+	v.Set("paradoxes", format.ParadoxJSON(o.Title, set))
 	v.Set("claims", verdictsDoc(o.Verdicts))
 	return b.String(), string(jsondoc.MarshalIndent(v, "  "))
 }

@@ -6,9 +6,9 @@ import (
 	"strings"
 
 	"seatsmith/engine"
+	"seatsmith/engine/analysis"
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 	"seatsmith/site/claim"
 )
 
@@ -30,13 +30,13 @@ type Outcome struct {
 	Title      string
 	Scenario   engine.Scenario
 	Result     *engine.Result
-	Comparison *report.Comparison
+	Comparison *analysis.Comparison
 	Verdicts   []claim.Verdict
 	// Problem is set, and the results are nil, when the scenario cannot be
 	// apportioned.
 	Problem *Problem
 	// MarginsPending is set when the margins were left out to answer
-	// quickly (see [RunQuick]); the result has no Gain and Lose.
+	// quickly (see [Options]); the result has no Gain and Lose.
 	MarginsPending bool
 	// OrderPending is set when a full calculator's seat order was left
 	// out (see [Options]); the result has no Order, and the layout shows
@@ -73,19 +73,14 @@ func (o *Outcome) MarginsAuto() bool {
 // explanation, compares the block's methods and checks its claims.
 func Run(b *Block, doc *jsondoc.Value) *Outcome { return RunWith(b, doc, Options{}) }
 
-// RunQuick is Run without the margins when they are costly: for
-// largest-remainder methods and with a threshold, where every margin comes
-// from a search of exact apportionments. The browser shows such a result
-// at once while the reader types and asks for the margins when they pause.
-func RunQuick(b *Block, doc *jsondoc.Value) *Outcome {
-	return RunWith(b, doc, Options{QuickMargins: true})
-}
-
 // Options say what a run may leave out to answer a reader's edit quickly.
 // The zero Options leave out nothing.
 type Options struct {
-	// QuickMargins leaves out the margins where they are costly, as
-	// RunQuick does.
+	// QuickMargins leaves out the margins where they are costly: for
+	// largest-remainder methods and with a threshold, where every margin
+	// comes from a search of exact apportionments. The browser shows such
+	// a result at once while the reader types and asks for the margins
+	// when they pause.
 	QuickMargins bool
 	// NoOrder leaves out the seat order of divisor methods, which only a
 	// full calculator shows, in a section folded away until the reader
@@ -94,7 +89,11 @@ type Options struct {
 }
 
 // RunWith is Run leaving out what opt says.
-func RunWith(b *Block, doc *jsondoc.Value, opt Options) *Outcome { return run(b, doc, opt) }
+func RunWith(b *Block, doc *jsondoc.Value, opt Options) *Outcome {
+	o := run(b, doc, opt)
+	o.Problem = b.Count.relabel(o.Problem)
+	return o
+}
 
 // costlyMargins reports whether s's margins need a search.
 func costlyMargins(s *engine.Scenario) bool {
@@ -150,8 +149,8 @@ func run(b *Block, doc *jsondoc.Value, opt Options) *Outcome {
 		return o
 	}
 	o.Result = res
-	o.Comparison = report.Compare(src.Scenario, b.Compare, 0)
-	o.Verdicts = claim.Check(src.Scenario, b.Claims)
+	o.Comparison = analysis.CompareMethods(src.Scenario, b.Compare, 0)
+	o.Verdicts = claim.CheckIn(src.Scenario, b.Claims, b.Count.claimWords(claim.Context{}))
 	return o
 }
 

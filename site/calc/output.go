@@ -5,8 +5,8 @@ import (
 	"strings"
 
 	"seatsmith/engine"
+	"seatsmith/engine/format"
 	. "seatsmith/engine/render"
-	"seatsmith/engine/report"
 )
 
 // State is the calculator's data-state for an outcome rendered live:
@@ -54,7 +54,7 @@ func Output(o *Outcome) *Node {
 }
 
 func caution() *Node {
-	return Wrap("p", report.Caution, "class", "sc-caution", "data-role", "caution")
+	return Wrap("p", format.Caution, "class", "sc-caution", "data-role", "caution")
 }
 
 func plural(n int, w string) string {
@@ -73,7 +73,7 @@ func summary(o *Outcome) *Node {
 	p.Add(Wrap("strong", r.Method.Name()))
 	p.AddText(" divides ")
 	p.Add(Wrap("strong", plural(r.Seats, "seat")))
-	p.AddText(" among " + plural(len(r.Units), "unit") + " with a total population of " + Group(r.Total) + ".")
+	p.AddText(" among " + plural(len(r.Units), "unit") + " with " + o.Block.Count.Total(Group(r.Total)) + ".")
 	excluded := 0
 	for _, u := range r.Units {
 		if u.Excluded {
@@ -111,7 +111,7 @@ func tiesView(r *engine.Result) *Node {
 			for _, w := range t.Winners {
 				ws = append(ws, r.Units[w].Name)
 			}
-			s += "The chosen rule (" + ruleText(t.Rule) + ") gives " + verb(t.Seats, "it", "them") + " to " + strings.Join(ws, ", ") + "."
+			s += "The chosen rule (" + format.TieRuleText(t.Rule) + ") gives " + verb(t.Seats, "it", "them") + " to " + strings.Join(ws, ", ") + "."
 		} else {
 			s += "No tie rule is chosen, so " + verb(t.Seats, "it is", "they are") + " left unassigned. The governing rule (often a drawing of lots) decides."
 		}
@@ -120,16 +120,6 @@ func tiesView(r *engine.Result) *Node {
 	}
 	box.Add(ul)
 	return box
-}
-
-func ruleText(rule string) string {
-	switch {
-	case rule == "order":
-		return "input order"
-	case strings.HasPrefix(rule, "lot:"):
-		return "lots drawn with seed " + rule[4:]
-	}
-	return rule
 }
 
 func valueText(v *engine.Value) string {
@@ -164,23 +154,6 @@ func quotaNote(u *engine.UnitResult) (text, class string) {
 	return "above upper quota " + strconv.Itoa(u.Upper), "sc-q-high"
 }
 
-func notes(u *engine.UnitResult) string {
-	var n []string
-	if u.Excluded {
-		n = append(n, "below the threshold")
-	}
-	if u.AtMin {
-		n = append(n, "held up by its minimum of "+strconv.Itoa(u.Min))
-	}
-	if u.AtMax {
-		n = append(n, "held down by its maximum of "+strconv.Itoa(u.Max))
-	}
-	if u.Tied {
-		n = append(n, "tied")
-	}
-	return strings.Join(n, "; ")
-}
-
 func resultsTable(o *Outcome) *Node {
 	r := o.Result
 	full := o.Block.Mode == Full
@@ -189,7 +162,7 @@ func resultsTable(o *Outcome) *Node {
 	t := El("table", "class", "sc-results", "data-role", "results", "data-method", r.Method.String(), "data-house", strconv.Itoa(r.Seats))
 	t.Add(Wrap("caption", "Seats by "+r.Method.Name()+", "+plural(r.Seats, "seat"), "id", o.Block.ID+"-results-caption"))
 	head := El("tr")
-	cols := []string{"Unit", "Seats", "Quota", "Quota check", "Population"}
+	cols := []string{"Unit", "Seats", "Quota", "Quota check", o.Block.Count.Head()}
 	// Remainders are the heart of a largest-remainder result, so every
 	// calculator shows them; divisor priorities only the full one.
 	extra := full || !div
@@ -231,7 +204,7 @@ func resultsTable(o *Outcome) *Node {
 			}
 		}
 		row.Add(Wrap("td", marginText(u.Gain, o.MarginsPending), "class", "num"), Wrap("td", marginText(u.Lose, o.MarginsPending), "class", "num"))
-		row.Add(Wrap("td", notes(u), "class", "sc-notes"))
+		row.Add(Wrap("td", format.UnitNotes(u), "class", "sc-notes"))
 		body.Add(row)
 	}
 	t.Add(body)
@@ -242,7 +215,7 @@ func resultsTable(o *Outcome) *Node {
 		foot.Add(El("td"))
 	}
 	t.Add(El("tfoot").Add(foot))
-	wrap.Add(t)
+	wrap.Add(Stackable(t))
 	legend := El("p", "class", "sc-hint")
 	if o.MarginsAuto() {
 		legend.Add(Wrap("strong", "Margins are computed when you pause typing. ", "data-role", "margins-pending"))
@@ -253,7 +226,8 @@ func resultsTable(o *Outcome) *Node {
 		ask.AddText("This method's margins take a search of many exact apportionments, which can take a while for these numbers. ")
 		ask.Add(Wrap("button", "Compute the margins", "type", "button", "data-action", "margins"))
 	}
-	legend.AddText("Quota: the unit's exact share of the seats, population × seats ÷ total. Gain margin: the fewest extra people who would win the unit one more seat outright, all others fixed; lose margin: the fewest people whose loss, all others fixed, would cost it a seat or leave its last seat tied. A dash means no change of its population alone does it.")
+	c := o.Block.Count
+	legend.AddText(format.MarginLegendIn(c.Noun(), c.People(), c.who()))
 	return El("div", "class", "sc-results-wrap").Add(wrap, ask, legend)
 }
 
@@ -270,7 +244,7 @@ func explanation(o *Outcome) *Node {
 			if !d.High.Infinite {
 				hi = valueText(&d.High)
 			}
-			p.AddText("Divide each population by any divisor D between ")
+			p.AddText("Divide each unit's " + o.Block.Count.Noun() + " by any divisor D between ")
 			p.Add(Wrap("strong", valueText(&d.Low), "data-role", "divisor-low"))
 			p.AddText(" and ")
 			p.Add(Wrap("strong", hi, "data-role", "divisor-high"))
@@ -279,7 +253,7 @@ func explanation(o *Outcome) *Node {
 			p.AddText(", checked exactly.")
 		}
 		sec.Add(p)
-		sec.Add(Wrap("p", signpostText(r.Method), "class", "sc-hint"))
+		sec.Add(Wrap("p", signpostText(r.Method, o.Block.Count), "class", "sc-hint"))
 		if len(r.Beyond) > 0 {
 			ul := El("ul", "class", "sc-beyond", "data-role", "beyond")
 			for _, a := range r.Beyond {
@@ -298,7 +272,7 @@ func explanation(o *Outcome) *Node {
 		p := El("p", "data-role", "lr-quota")
 		p.AddText("The " + name + " is ")
 		p.Add(Wrap("strong", valueText(r.Quota)))
-		p.AddText(" people per seat. Every unit first gets the whole part of its population divided by the quota; the seats left over go to the largest remainders.")
+		p.AddText(" " + o.Block.Count.People() + " per seat. Every unit first gets the whole part of its " + o.Block.Count.Noun() + " divided by the quota; the seats left over go to the largest remainders.")
 		if r.Passes > 1 {
 			p.AddText(" Units whose result broke a minimum or maximum were fixed at that bound and set aside; this took " + plural(r.Passes, "pass") + ".")
 		}
@@ -322,18 +296,18 @@ func explanation(o *Outcome) *Node {
 	return sec
 }
 
-func signpostText(m engine.Method) string {
+func signpostText(m engine.Method, c Count) string {
 	switch m {
 	case engine.Jefferson:
 		return "Jefferson (D'Hondt) rounds down: a unit's quotient must reach a + 1 before it gets a + 1 seats."
 	case engine.Webster:
 		return "Webster (Sainte-Laguë) rounds at one half: a unit gets a + 1 seats once its quotient passes a + ½."
 	case engine.Adams:
-		return "Adams rounds up: any quotient above a gives a + 1 seats, so every unit with people gets a seat first."
+		return "Adams rounds up: any quotient above a gives a + 1 seats, so every unit with " + c.People() + " gets a seat first."
 	case engine.Dean:
 		return "Dean rounds at the harmonic mean 2a(a+1)/(2a+1) of a and a + 1."
 	case engine.HuntingtonHill:
-		return "Huntington–Hill rounds at the geometric mean √(a(a+1)) of a and a + 1, so every unit with people gets a seat first."
+		return "Huntington–Hill rounds at the geometric mean √(a(a+1)) of a and a + 1, so every unit with " + c.People() + " gets a seat first."
 	case engine.ModifiedSainteLague:
 		return "Modified Sainte-Laguë is Webster with the first signpost raised from ½ to 0.7, which makes a first seat harder to win."
 	}
@@ -362,14 +336,14 @@ func orderTable(o *Outcome) *Node {
 		return d.Add(Wrap("p", "Listing the seats in order…", "class", "sc-hint", "data-role", "order-pending"))
 	}
 	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Seat order")
-	t := El("table")
+	t := El("table", "class", "sc-seat-order")
 	t.Add(El("thead").Add(El("tr").Add(Wrap("th", "Seat", "scope", "col"), Wrap("th", "Unit", "scope", "col"), Wrap("th", "Its seat", "scope", "col"), Wrap("th", "Priority", "scope", "col"))))
 	body := El("tbody")
 	for _, a := range r.Order {
 		body.Add(El("tr").Add(Wrap("td", strconv.Itoa(a.Seat), "class", "num"), Wrap("td", a.Name), Wrap("td", strconv.Itoa(a.Nth), "class", "num"), Wrap("td", valueText(&a.Priority), "class", "num")))
 	}
 	t.Add(body)
-	wrap.Add(t)
+	wrap.Add(Stackable(t))
 	return d.Add(wrap)
 }
 
@@ -379,9 +353,15 @@ func comparisonView(o *Outcome) *Node {
 	if first == nil {
 		return nil
 	}
-	sec := El("section", "class", "sc-compare", "data-role", "compare", "aria-label", "The methods compared")
+	cls := "sc-compare"
+	if len(c.Methods) > 5 {
+		// Too wide for a tablet: the picker takes over sooner.
+		cls += " sc-compare-many"
+	}
+	sec := El("section", "class", cls, "data-role", "compare", "aria-label", "The methods compared")
 	sec.Add(Wrap("h3", "The methods compared"))
-	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Seats by each method (scrolls sideways)")
+	sec.Add(methodPicker(o.Block.ID, c.Methods, o.Result.Method))
+	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Seats by each method")
 	t := El("table", "class", "sc-comparison")
 	head := El("tr").Add(Wrap("th", "Unit", "scope", "col"), Wrap("th", "Quota", "scope", "col"))
 	for _, m := range c.Methods {
@@ -389,7 +369,7 @@ func comparisonView(o *Outcome) *Node {
 		th.SetIf(m == o.Result.Method, "class", "sc-current")
 		head.Add(th)
 	}
-	head.Add(Wrap("th", "Methods differ", "scope", "col"))
+	head.Add(Wrap("th", "Methods differ", "scope", "col", "class", "sc-differs-cell"))
 	t.Add(El("thead").Add(head))
 	body := El("tbody")
 	for i := range first.Units {
@@ -397,7 +377,13 @@ func comparisonView(o *Outcome) *Node {
 		row := El("tr", "data-compare-unit", u.Name)
 		differs := c.Differs(i)
 		row.SetIf(differs, "class", "sc-differs")
-		row.Add(Wrap("th", u.Name, "scope", "row"), Wrap("td", u.Quota.Text, "class", "num"))
+		name := Wrap("th", u.Name, "scope", "row")
+		if differs {
+			// Where the picker shows one method, this note stands in
+			// for the last column.
+			name.Add(Wrap("small", " methods differ", "class", "sc-differs-note"))
+		}
+		row.Add(name, Wrap("td", u.Quota.Text, "class", "num"))
 		for k, m := range c.Methods {
 			res := c.Results[k]
 			if res == nil {
@@ -417,19 +403,20 @@ func comparisonView(o *Outcome) *Node {
 			}
 			row.Add(td)
 		}
-		row.Add(Wrap("td", yesNo(differs)))
+		row.Add(Wrap("td", yesNo(differs), "class", "sc-differs-cell"))
 		body.Add(row)
 	}
 	t.Add(body)
 	foot := El("tr").Add(Wrap("th", "Units outside quota", "scope", "row"), El("td"))
 	for k := range c.Methods {
+		m := c.Methods[k].String()
 		if c.Results[k] == nil {
-			foot.Add(Wrap("td", "cannot apportion", "class", "sc-cannot"))
+			foot.Add(Wrap("td", "cannot apportion", "class", "sc-cannot", "data-method", m))
 			continue
 		}
-		foot.Add(Wrap("td", strconv.Itoa(c.QuotaViolations(k)), "class", "num"))
+		foot.Add(Wrap("td", strconv.Itoa(c.QuotaViolations(k)), "class", "num", "data-method", m))
 	}
-	foot.Add(El("td"))
+	foot.Add(El("td", "class", "sc-differs-cell"))
 	t.Add(El("tfoot").Add(foot))
 	wrap.Add(t)
 	sec.Add(wrap)
@@ -447,6 +434,27 @@ func comparisonView(o *Outcome) *Node {
 		sec.Add(Wrap("p", "Some methods cannot apportion these numbers:", "class", "sc-hint"), ul)
 	}
 	return sec
+}
+
+// methodPicker lets a reader on a narrow screen choose which method's
+// column the comparison shows: radio buttons that the stylesheet alone
+// obeys (no script), shown only where the whole table would not fit. The
+// calculator's own method is chosen first.
+func methodPicker(id string, ms []engine.Method, cur engine.Method) *Node {
+	shown := ms[0]
+	for _, m := range ms {
+		if m == cur {
+			shown = m
+		}
+	}
+	f := El("fieldset", "class", "sc-picker", "data-role", "method-picker")
+	f.Add(Wrap("legend", "Method shown"))
+	for _, m := range ms {
+		rid := id + "-shown-" + m.String()
+		in := El("input", "type", "radio", "name", id+"-shown", "id", rid, "value", m.String()).SetIf(m == shown, "checked", "")
+		f.Add(El("label", "class", "sc-check", "for", rid).Add(in, Text(m.Name())))
+	}
+	return f
 }
 
 func yesNo(b bool) string {
@@ -468,7 +476,7 @@ func claimsView(o *Outcome) *Node {
 		c := &b.Claims[i]
 		text := c.Text
 		if text == "" {
-			text = c.Statement(b.Source.Scenario.Method, b.Source.Scenario.Seats) + "."
+			text = b.Statement(c) + "."
 		}
 		li := El("li", "data-claim", c.ID, "id", b.ID+"-claim-"+c.ID)
 		if o.Verdicts == nil {

@@ -7,8 +7,8 @@ import (
 
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
+	"seatsmith/engine/format"
 	. "seatsmith/engine/render"
-	"seatsmith/engine/report"
 	"seatsmith/site/claim"
 )
 
@@ -16,7 +16,7 @@ import (
 // size of its range by each of its methods.
 type SweepOutcome struct {
 	// Set holds the sweeps and the Alabama paradoxes found in each.
-	Set *report.SweepSet
+	Set *analysis.SweepSet
 	// Violations[k] lists the quota violations of Set.Sweeps[k].
 	Violations [][]analysis.QuotaViolation
 }
@@ -26,21 +26,17 @@ type SweepOutcome struct {
 const maxListed = 4
 
 func runSweep(o *Outcome, va *variation) {
-	set := report.SweepAll(o.Scenario, va.Methods, va.From, va.To)
+	set := analysis.SweepAll(o.Scenario, va.Methods, va.From, va.To)
 	if set.First() == nil {
 		o.Problem = sweepProblem(set.Errors[0])
 		return
 	}
 	so := &SweepOutcome{Set: set, Violations: make([][]analysis.QuotaViolation, len(set.Methods))}
-	for k, sw := range set.Sweeps {
-		if sw != nil {
-			s := o.Scenario
-			s.Method = set.Methods[k]
-			so.Violations[k] = analysis.FindQuotaViolations(sw, &s)
-		}
+	for k := range set.Sweeps {
+		so.Violations[k] = set.Violations(k)
 	}
 	o.Sweep = so
-	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, va.context())
+	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, o.Block.Count.claimWords(va.context()))
 }
 
 // sweepProblem places a sweep's error at the range's fields: a sweep has
@@ -87,7 +83,7 @@ func sweepSummary(o *Outcome) *Node {
 	p.Add(Wrap("strong", plural(len(set.Methods), "method")))
 	p.AddText(" at every house size from ")
 	p.Add(Wrap("strong", strconv.Itoa(set.From)+" to "+strconv.Itoa(set.To)))
-	p.AddText(": " + plural(len(f.Names), "unit") + " with a total population of " + Group(totalText(f)) + ".")
+	p.AddText(": " + plural(len(f.Names), "unit") + " with " + o.Block.Count.Total(Group(totalText(f))) + ".")
 	al, qv := o.Sweep.SweepCount()
 	p.AddText(" Found: " + plural(al, "Alabama paradox") + " and " + plural(qv, "quota violation") + ".")
 	if ok < len(set.Methods) {
@@ -190,7 +186,7 @@ func quotaList(so *SweepOutcome) *Node {
 		}
 		head := El("p", "class", "sc-finding-head").Add(Wrap("strong", m.Name())).AddText(": " + plural(len(vs), "quota violation"))
 		if allBound {
-			head.AddText(", each at a size where minimums or maximums bind")
+			head.AddText(", each caused by the minimums or maximums")
 		}
 		sec.Add(head)
 		ul := El("ul", "class", "sc-finding-list")
@@ -201,7 +197,7 @@ func quotaList(so *SweepOutcome) *Node {
 				ul.Add(Wrap("li", "… and "+strconv.Itoa(len(vs)-maxListed)+" more under "+m.Name()+", marked in the tables below.", "class", "sc-more-findings"))
 				break
 			}
-			ul.Add(Wrap("li", violationText(v, !allBound), "data-paradox", "quota", "data-method", m.String(), "data-unit", v.Name, "data-house", strconv.Itoa(v.House)))
+			ul.Add(Wrap("li", v.SizeText(!allBound), "data-paradox", "quota", "data-method", m.String(), "data-unit", v.Name, "data-house", strconv.Itoa(v.House)))
 		}
 		sec.Add(ul)
 	}
@@ -209,7 +205,7 @@ func quotaList(so *SweepOutcome) *Node {
 		sec.Add(Wrap("p", "None in this range under "+methodList(none)+": every unit gets its lower or its upper quota at every size.", "class", "sc-hint"))
 	}
 	if bounds {
-		sec.Add(Wrap("p", "Where minimums or maximums bind, some unit sits at its minimum above its quota (or at its maximum below it), so the bounds, not the method alone, may cause the violation.", "class", "sc-hint"))
+		sec.Add(Wrap("p", "Where the minimums or maximums cause a violation, the unit would be within its quota without them, apportioned by the same method at the same size.", "class", "sc-hint"))
 	}
 	var fails []string
 	for k, err := range set.Errors {
@@ -225,22 +221,6 @@ func quotaList(so *SweepOutcome) *Node {
 		sec.Add(Wrap("p", "Some methods cannot apportion any size in this range:", "class", "sc-hint"), ul)
 	}
 	return sec
-}
-
-// violationText says what a quota violation is, in numbers: "House of 40:
-// Orlen gets 12 seats, below its lower quota 13 (quota 13.142784)."
-func violationText(v *analysis.QuotaViolation, bounds bool) string {
-	s := "House of " + strconv.Itoa(v.House) + ": " + v.Name + " gets " + plural(v.Seats, "seat") + ", "
-	if v.Above() {
-		s += "above its upper quota " + strconv.Itoa(v.Upper)
-	} else {
-		s += "below its lower quota " + strconv.Itoa(v.Lower)
-	}
-	s += " (quota " + analysis.Decimal(v.Quota) + ")"
-	if bounds && v.Bounds {
-		s += "; minimums or maximums bind at this size"
-	}
-	return s + "."
 }
 
 // sweepTables lays out every sweep as a table: one row a house size, one
@@ -267,7 +247,7 @@ func sweepTables(so *SweepOutcome) *Node {
 				off[[2]int{v.House - set.From, v.Unit}] = "below quota"
 			}
 		}
-		wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Seats by "+m.Name()+" at each house size (scrolls sideways)")
+		wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Seats by "+m.Name()+" at each house size")
 		t := El("table", "class", "sc-sweep-table", "data-method", m.String())
 		t.Add(Wrap("caption", m.Name()))
 		head := El("tr").Add(Wrap("th", "House size", "scope", "col"))
@@ -307,48 +287,16 @@ func sweepTables(so *SweepOutcome) *Node {
 				}
 				row.Add(td)
 			}
-			row.Add(Wrap("td", changeText(sw.Names, prev, z.Seats), "class", "sc-change"))
-			row.Add(Wrap("td", sizeNotes(z), "class", "sc-notes"))
+			row.Add(Wrap("td", format.SeatChanges(sw.Names, prev, z.Seats), "class", "sc-change"))
+			row.Add(Wrap("td", format.TiesText(z.Ties, func(i int) string { return sw.Names[i] }), "class", "sc-notes"))
 			body.Add(row)
 			prev = z.Seats
 		}
 		t.Add(body)
-		wrap.Add(t)
+		wrap.Add(Stackable(t))
 		d.Add(wrap)
 	}
 	return d
-}
-
-// changeText names the units that gain and lose seats from one size to
-// the next: "Sarrow −1, Brevia +1".
-func changeText(names []string, prev, cur []int) string {
-	if prev == nil {
-		return ""
-	}
-	var down, up []string
-	for i := range cur {
-		switch d := cur[i] - prev[i]; {
-		case d < 0:
-			down = append(down, names[i]+" −"+strconv.Itoa(-d))
-		case d > 0:
-			up = append(up, names[i]+" +"+strconv.Itoa(d))
-		}
-	}
-	return strings.Join(append(down, up...), ", ")
-}
-
-func sizeNotes(z *engine.SweepSize) string {
-	var n []string
-	for _, t := range z.Ties {
-		s := "tie: " + strings.Join(t.Names, ", ") + " for " + plural(t.Seats, "seat")
-		if len(t.Winners) == 0 {
-			s += ", left open"
-		} else {
-			s += ", settled by " + ruleText(t.Rule)
-		}
-		n = append(n, s)
-	}
-	return strings.Join(n, "; ")
 }
 
 // methodList names methods in a sentence: "A, B and C".

@@ -1,7 +1,6 @@
 package calc
 
 import (
-	"errors"
 	"strconv"
 	"strings"
 
@@ -203,7 +202,7 @@ func readGrowth(file string, doc, sdoc *jsondoc.Value, va *variation) *input.Err
 		}
 		d, err := engine.ParseDecimal(later.Text)
 		if err != nil {
-			return bad(later, field, strconv.Quote(name)+": "+strconv.Quote(strings.TrimSpace(later.Text))+" is not a population: "+decimalProblem(err))
+			return bad(later, field, input.PopulationProblem(name, later.Text, err))
 		}
 		va.Later[i], va.laterGiven[i] = d, true
 	}
@@ -243,7 +242,7 @@ func readAdmit(file string, doc, sdoc *jsondoc.Value, va *variation) *input.Erro
 	}
 	d, err := engine.ParseDecimal(p.Text)
 	if err != nil {
-		return bad(p, "admit.population", strconv.Quote(name)+": "+strconv.Quote(strings.TrimSpace(p.Text))+" is not a population: "+decimalProblem(err))
+		return bad(p, "admit.population", input.PopulationProblem(name, p.Text, err))
 	}
 	va.Admit = &engine.Unit{Name: name, Population: d}
 	if x := a.Get("added"); !x.IsNull() {
@@ -287,22 +286,6 @@ func wholeOf(v *jsondoc.Value) (int, bool) {
 		n = n*10 + int(t[i]-'0')
 	}
 	return n, true
-}
-
-// decimalProblem says why a population could not be read, as the scenario
-// reader does.
-func decimalProblem(err error) string {
-	switch {
-	case errors.Is(err, engine.ErrEmpty):
-		return "missing"
-	case errors.Is(err, engine.ErrNegative):
-		return "populations cannot be negative"
-	case errors.Is(err, engine.ErrTooPrecise):
-		return "at most 9 decimal places"
-	case errors.Is(err, engine.ErrTooLarge):
-		return "at most 10^18"
-	}
-	return "write a whole number or an exact decimal such as 1250.5, without separators or exponents"
 }
 
 func contains(list []string, s string) bool {

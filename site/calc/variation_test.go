@@ -74,7 +74,7 @@ func TestLiveSweep(t *testing.T) {
 			t.Errorf("sweep editor lacks %s", w)
 		}
 	}
-	if csv := resp.Get("csv"); csv == nil || !strings.Contains(csv.Text, "hamilton,41,13,10,6,5,3,1,1,1,1") {
+	if csv := resp.Get("csv"); csv == nil || !strings.Contains(csv.Text, "1,,0,none,hamilton,41,Sarrow,1,false,0,true,\n") {
 		t.Errorf("sweep CSV: %v", jsondoc.Marshal(csv))
 	}
 	if js := resp.Get("json"); js == nil || !strings.Contains(js.Text, `"kind": "sweep-export"`) || !strings.Contains(js.Text, `"kind": "paradoxes"`) {
@@ -147,7 +147,7 @@ func TestLiveGrowth(t *testing.T) {
 	for _, w := range []string{
 		`<tr data-growth-unit="Sarrow" data-before="2" data-after="1" class="sc-lost">`, `<tr data-growth-unit="Caldmoor" data-before="4" data-after="5" class="sc-won">`,
 		"+3.01%", "+2.00%", `data-paradox="population" data-unit="Sarrow" data-gainer="Caldmoor"`, "8,230,425 (+0.36%)",
-		`<tr data-method="webster"><th scope="row">Webster (Sainte-Laguë)</th><td class="num" data-paradoxes="0">0</td>`,
+		`<tr data-method="webster"><th scope="row" data-label="Method">Webster (Sainte-Laguë)</th><td class="num" data-paradoxes="0" data-label="Paradoxes">0</td>`,
 	} {
 		if !strings.Contains(h, w) {
 			t.Errorf("growth output lacks %s", w)
@@ -295,3 +295,24 @@ func benchSweep(b *testing.B, from, to int) {
 }
 
 func itoa(n int) string { return strconv.Itoa(n) }
+
+// TestLiveGrowthTie: a seat left open by a tie in the later apportionment
+// is not shown as a plain change of seats. Invented wards: under
+// Jefferson at 4 seats, East and West Ward tie at 300 for the last seat
+// once Hill Ward has grown to 1100.
+func TestLiveGrowthTie(t *testing.T) {
+	block := `{"seats": 4, "method": "jefferson", "units": [
+    {"name": "East Ward", "population": 310, "later": 300},
+    {"name": "West Ward", "population": 300},
+    {"name": "Hill Ward", "population": 1000, "later": 1100}]}`
+	resp := live(studyRequest("growth", block))
+	if liveState(t, resp) != "live" {
+		t.Fatalf("error: %s", jsondoc.Marshal(resp.Get("error")))
+	}
+	h := outputHTML(t, resp)
+	for _, w := range []string{`<td class="num sc-delta" data-label="Change">−1, tied</td>`, "East Ward 1 → 0 (a tie, not settled)"} {
+		if !strings.Contains(h, w) {
+			t.Errorf("growth output lacks %s:\n%s", w, h)
+		}
+	}
+}

@@ -34,6 +34,33 @@ type Context struct {
 	// the block admits none.
 	Admit *engine.Unit
 	Added int
+	// Noun, Nouns and People are the words for what the units' numbers
+	// count: a unit's count after "its" ("population", "votes"), the
+	// counts of several units ("populations", "votes") and what a margin
+	// measures ("people", "votes"). Empty, they are "population",
+	// "populations" and "people".
+	Noun, Nouns, People string
+}
+
+func (ctx Context) noun() string {
+	if ctx.Noun == "" {
+		return "population"
+	}
+	return ctx.Noun
+}
+
+func (ctx Context) nouns() string {
+	if ctx.Nouns == "" {
+		return "populations"
+	}
+	return ctx.Nouns
+}
+
+func (ctx Context) people() string {
+	if ctx.People == "" {
+		return "people"
+	}
+	return ctx.People
 }
 
 // Missing says what a claim needs that the context lacks ("" when nothing):
@@ -160,6 +187,12 @@ func (ch *checker) house(c *Claim) int {
 // Statement returns the claim in standard wording, for a scenario whose own
 // method and house size are m and h.
 func (c *Claim) Statement(m engine.Method, h int) string {
+	return c.StatementIn(m, h, Context{})
+}
+
+// StatementIn is [Claim.Statement] in the words of the context: a margin
+// in votes for a block that counts votes.
+func (c *Claim) StatementIn(m engine.Method, h int, ctx Context) string {
 	if c.Method.Valid() {
 		m = c.Method
 	}
@@ -179,9 +212,9 @@ func (c *Claim) Statement(m engine.Method, h int) string {
 	case MeetsQuota:
 		return c.Unit + " gets its lower or upper quota" + under
 	case GainBelow:
-		return c.Unit + " is fewer than " + render.Group(c.Below.String()) + " people from gaining a seat" + under
+		return c.Unit + " is fewer than " + render.Group(c.Below.String()) + " " + ctx.people() + " from gaining a seat" + under
 	case LoseBelow:
-		return c.Unit + " can lose fewer than " + render.Group(c.Below.String()) + " people before it drops a seat" + under
+		return c.Unit + " can lose fewer than " + render.Group(c.Below.String()) + " " + ctx.people() + " before it drops a seat" + under
 	case Alabama:
 		return c.Unit + " loses a seat when the house grows from " + strconv.Itoa(h) + " to " + strconv.Itoa(h+1) + " under " + m.Name()
 	case Excluded:
@@ -207,7 +240,7 @@ func (c *Claim) Statement(m engine.Method, h int) string {
 		}
 		return "Under " + m.Name() + ", " + c.Unit + " gets its lower or upper quota at every house size" + span
 	case PopulationParadox:
-		who := "a unit that grew more slowly"
+		who := "another unit"
 		if c.Gainer != "" {
 			who = c.Gainer
 		}
@@ -319,7 +352,7 @@ func (ch *checker) check(c *Claim) Verdict {
 			d, word = u.Lose, "lose"
 		}
 		if d == nil {
-			return Verdict{Found: c.Unit + " has no " + word + " margin" + under + ": no change of its population alone does it"}
+			return Verdict{Found: c.Unit + " has no " + word + " margin" + under + ": no change of its " + ch.ctx.noun() + " alone does it"}
 		}
 		return Verdict{Holds: d.Cmp(c.Below) < 0, Found: c.Unit + "'s " + word + " margin is " + render.Group(d.String()) + under}
 	case Excluded, Included:

@@ -263,11 +263,11 @@ func parseOne(x *jsondoc.Value) (Claim, *input.Error) {
 				return c, &input.Error{Line: f.Value.Line, Field: "below", Msg: "only gain-below and lose-below claims have below"}
 			}
 			if f.Value.Kind != jsondoc.Number && f.Value.Kind != jsondoc.String {
-				return c, &input.Error{Line: f.Value.Line, Field: "below", Msg: "must be a population (a number)"}
+				return c, &input.Error{Line: f.Value.Line, Field: "below", Msg: "must be a number (the margin stays below it)"}
 			}
 			d, e := engine.ParseDecimal(f.Value.Text)
 			if e != nil {
-				return c, &input.Error{Line: f.Value.Line, Field: "below", Msg: strconv.Quote(f.Value.Text) + " is not a population"}
+				return c, &input.Error{Line: f.Value.Line, Field: "below", Msg: strconv.Quote(f.Value.Text) + " is not a bound for a margin: " + e.Error()}
 			}
 			c.Below = d
 		}

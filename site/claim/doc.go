@@ -26,7 +26,8 @@
 //	agree          methods [A, B] give unit the same seats
 //	breaks-quota   unit gets less than its lower or more than its upper quota
 //	meets-quota    unit gets its lower or its upper quota
-//	gain-below     unit's gain margin is below below (a population)
+//	gain-below     unit's gain margin is below below (people, or votes,
+//	               students or applications: what the block counts)
 //	lose-below     unit's lose margin is below below
 //	alabama        unit gets fewer seats at house+1 than at house (the
 //	               Alabama paradox)
@@ -49,6 +50,9 @@
 //
 // Claims of the last four kinds need what their block adds to the scenario
 // (a [Context]); a seats claim with a house covers one size of a sweep.
+// The Context also holds the words for what the units' numbers count, so
+// that [Claim.StatementIn] and the verdicts speak of votes where the block
+// counts votes.
 // Growth rates, quotas and seats are compared exactly: a claim's verdict
 // never rests on a rounded number.
 package claim

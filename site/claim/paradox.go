@@ -100,7 +100,7 @@ func (ch *checker) checkGrowth(c *Claim, m engine.Method, h int) Verdict {
 	t.Method, t.Seats = m, h
 	pr, err := analysis.FindPopulation(&s, &t)
 	if err != nil {
-		return Verdict{Found: "the two population sets cannot both be apportioned by " + m.Name() + " at " + plural(h, "seat") + ": " + errText(err)}
+		return Verdict{Found: "the first and the later " + ch.ctx.nouns() + " cannot both be apportioned by " + m.Name() + " at " + plural(h, "seat") + ": " + errText(err)}
 	}
 	var hits []analysis.Population
 	for _, f := range pr.Findings {
@@ -112,7 +112,7 @@ func (ch *checker) checkGrowth(c *Claim, m engine.Method, h int) Verdict {
 		if len(hits) > 0 {
 			return Verdict{Holds: true, Found: strings.TrimSuffix(hits[0].Text(), ".")}
 		}
-		found := c.Unit + " gets " + plural(seatsOf(pr.Before, c.Unit), "seat") + " with the first populations and " +
+		found := c.Unit + " gets " + plural(seatsOf(pr.Before, c.Unit), "seat") + " with the first " + ch.ctx.nouns() + " and " +
 			strconv.Itoa(seatsOf(pr.After, c.Unit)) + " with the later ones under " + m.Name() + " at " + plural(h, "seat")
 		if c.Gainer != "" {
 			found += ", and " + c.Gainer + " gets " + strconv.Itoa(seatsOf(pr.Before, c.Gainer)) + " and " + strconv.Itoa(seatsOf(pr.After, c.Gainer))
@@ -144,5 +144,16 @@ func (ch *checker) checkAdmit(c *Claim, m engine.Method, h int) Verdict {
 			changed = true
 		}
 	}
-	return Verdict{Holds: changed == (c.Kind == NewStates), Found: strings.TrimSuffix(r.Text(), ".")}
+	return Verdict{Holds: changed == (c.Kind == NewStates), Found: strings.TrimSuffix(ch.ctx.NewStatesText(r), ".")}
+}
+
+// NewStatesText is [analysis.NewStates.Text] in the words of the context:
+// the unit admitted with its votes rather than its population where the
+// block counts votes.
+func (ctx Context) NewStatesText(r *analysis.NewStates) string {
+	s := r.Text()
+	if ctx.noun() == "population" {
+		return s
+	}
+	return strings.Replace(s, "(population "+r.People.String()+",", "("+r.People.String()+" "+ctx.people()+",", 1)
 }

@@ -4,9 +4,9 @@ import (
 	"math"
 	"strconv"
 
+	"seatsmith/engine/format"
 	model "seatsmith/engine/projection"
 	. "seatsmith/engine/render"
-	"seatsmith/engine/report"
 )
 
 // Form is the block's controls: the target date, growth model, error
@@ -140,7 +140,7 @@ func Output(c *Config, s *model.Summary, id string) *Node {
 		}
 		out.Add(ul)
 	}
-	out.Add(Wrap("p", "A projection is an estimate from a growth model and an assumed error, not a forecast of record. "+report.Caution,
+	out.Add(Wrap("p", "A projection is an estimate from a growth model and an assumed error, not a forecast of record. "+format.Caution,
 		"class", "pj-caution", "data-role", "caution"))
 	return out
 }
@@ -154,22 +154,6 @@ func join(xs []string) string {
 		s += x
 	}
 	return s
-}
-
-// shareText writes a share of n draws for people: one decimal, "<0.1%"
-// and ">99.9%" near the ends, "0" and "100%" only when exact.
-func shareText(sh model.Share, n int64) string {
-	switch {
-	case sh.Draws == 0:
-		return "0"
-	case sh.Draws == n:
-		return "100%"
-	case sh.P < 0.0005:
-		return "<0.1%"
-	case sh.P > 0.9995:
-		return ">99.9%"
-	}
-	return strconv.FormatFloat(100*sh.P, 'f', 1, 64) + "%"
 }
 
 func table(s *model.Summary, id string) *Node {
@@ -195,19 +179,19 @@ func table(s *model.Summary, id string) *Node {
 			proj += " (line below 0)"
 		}
 		tr.Add(Wrap("td", latest, "class", "num"), Wrap("td", proj, "class", "num"), Wrap("td", strconv.Itoa(u.BaselineSeats), "class", "num"),
-			Wrap("td", strconv.Itoa(u.CentralSeats), "class", "num"), Wrap("td", shareText(u.Lose, n), "class", "num"),
-			Wrap("td", shareText(u.Gain, n), "class", "num"))
+			Wrap("td", strconv.Itoa(u.CentralSeats), "class", "num"), Wrap("td", format.ShareText(u.Lose, n), "class", "num"),
+			Wrap("td", format.ShareText(u.Gain, n), "class", "num"))
 		dist := El("td", "class", "pj-dist")
 		for k, d := range u.Dist {
 			if k > 0 {
 				dist.AddText(" ")
 			}
-			dist.Add(Wrap("span", strconv.Itoa(d.Seats)+": "+shareText(d.Share, n), "data-seats", strconv.Itoa(d.Seats), "data-draws", strconv.FormatInt(d.Draws, 10)))
+			dist.Add(Wrap("span", strconv.Itoa(d.Seats)+": "+format.ShareText(d.Share, n), "data-seats", strconv.Itoa(d.Seats), "data-draws", strconv.FormatInt(d.Draws, 10)))
 		}
 		tr.Add(dist)
 		body.Add(tr)
 	}
-	return t.Add(body)
+	return Stackable(t.Add(body))
 }
 
 // Chart geometry, in SVG user units: about a phone's width, so that its
@@ -224,14 +208,56 @@ const (
 
 // chart draws one bar a unit, split into the seat counts the draws gave it,
 // each as wide as its share: fewer seats than now, the same, or more (by
-// class, with the seat count written in every segment wide enough). At the
-// right stand the shares of losing and gaining a seat.
+// class, with the seat count written in every segment wide enough), with
+// the shares of losing and gaining a seat. It is drawn twice and the
+// stylesheet shows one: the names and shares beside the bars where there
+// is room, and above them in a narrow block (a phone).
 func chart(s *model.Summary, id string) *Node {
 	fig := El("figure", "class", "pj-chart", "data-role", "projection-chart")
 	cap := id + "-chart-caption"
 	fig.Add(Wrap("figcaption", "Seats each unit gets across the draws: every bar is all the draws, split by seat count; the number in a segment is the seat count. The table below holds the same numbers.", "id", cap))
+	return fig.Add(wideChart(s, id, cap), narrowChart(s, id, cap))
+}
+
+// segments adds the bar of unit u, from x0 and y, w wide and h high, to g.
+func segments(g *Node, u *model.UnitSummary, n int64, x0, y, w, h float64) {
+	g.Add(El("rect", "x", num(x0), "y", num(y), "width", num(w), "height", num(h), "class", "pj-track"))
+	x := x0
+	for _, d := range u.Dist {
+		sw := w * d.P
+		cls := "pj-same"
+		switch {
+		case d.Seats < u.BaselineSeats:
+			cls = "pj-fewer"
+		case d.Seats > u.BaselineSeats:
+			cls = "pj-more"
+		}
+		seg := El("rect", "x", num(x), "y", num(y), "width", num(sw), "height", num(h), "class", "pj-seg "+cls)
+		seg.Add(Wrap("title", u.Name+": "+strconv.Itoa(d.Seats)+" seats in "+format.ShareText(d.Share, n)+" of the draws"))
+		g.Add(seg)
+		if sw >= 16 {
+			g.Add(Wrap("text", strconv.Itoa(d.Seats), "x", num(x+sw/2), "y", num(y+h/2+4), "text-anchor", "middle", "class", "pj-seglabel "+cls))
+		}
+		x += sw
+	}
+}
+
+// legend adds the key to the bars' colours, from x and y, to svg.
+func legend(svg *Node, x, y float64) {
+	leg := El("g", "class", "pj-legend")
+	for _, l := range [][2]string{{"pj-fewer", "fewer than now"}, {"pj-same", "as now"}, {"pj-more", "more than now"}} {
+		leg.Add(El("rect", "x", num(x), "y", num(y), "width", "12", "height", "12", "class", "pj-seg "+l[0]))
+		leg.Add(Wrap("text", l[1], "x", num(x+16), "y", num(y+10)))
+		x += 16 + 7*float64(len(l[1])) + 10
+	}
+	svg.Add(leg)
+}
+
+// wideChart is the chart with each unit's name and seats now at the left
+// of its bar and its shares of losing and gaining a seat at the right.
+func wideChart(s *model.Summary, id, cap string) *Node {
 	h := chartTop + rowH*float64(len(s.Units)) + chartFoot
-	svg := El("svg", "viewBox", "0 0 "+num(chartW)+" "+num(h), "role", "img", "aria-labelledby", id+"-chart-title "+cap, "class", "pj-svg")
+	svg := El("svg", "viewBox", "0 0 "+num(chartW)+" "+num(h), "role", "img", "aria-labelledby", id+"-chart-title "+cap, "class", "pj-svg pj-svg-wide")
 	svg.Add(Wrap("title", "Chance of each seat count, by unit", "id", id+"-chart-title"))
 	hd := El("g", "class", "pj-axis")
 	hd.Add(Wrap("text", "seats now", "x", num(labelW), "y", "14", "text-anchor", "end"))
@@ -239,42 +265,63 @@ func chart(s *model.Summary, id string) *Node {
 	hd.Add(Wrap("text", "lose / gain", "x", num(chartW), "y", "14", "text-anchor", "end"))
 	svg.Add(hd)
 	n := s.Apportioned
-	for i, u := range s.Units {
+	for i := range s.Units {
+		u := &s.Units[i]
 		y := chartTop + rowH*float64(i)
 		g := El("g", "class", "pj-row", "data-unit", u.Name)
 		g.Add(Wrap("text", u.Name+" "+strconv.Itoa(u.BaselineSeats), "x", num(labelW), "y", num(y+rowH/2+4), "text-anchor", "end", "class", "pj-name"))
-		g.Add(El("rect", "x", num(barX), "y", num(y+4), "width", num(barW), "height", num(rowH-8), "class", "pj-track"))
-		x := barX
-		for _, d := range u.Dist {
-			w := barW * d.P
-			cls := "pj-same"
-			switch {
-			case d.Seats < u.BaselineSeats:
-				cls = "pj-fewer"
-			case d.Seats > u.BaselineSeats:
-				cls = "pj-more"
-			}
-			seg := El("rect", "x", num(x), "y", num(y+4), "width", num(w), "height", num(rowH-8), "class", "pj-seg "+cls)
-			seg.Add(Wrap("title", u.Name+": "+strconv.Itoa(d.Seats)+" seats in "+shareText(d.Share, n)+" of the draws"))
-			g.Add(seg)
-			if w >= 16 {
-				g.Add(Wrap("text", strconv.Itoa(d.Seats), "x", num(x+w/2), "y", num(y+rowH/2+4), "text-anchor", "middle", "class", "pj-seglabel "+cls))
-			}
-			x += w
-		}
-		g.Add(Wrap("text", shareText(u.Lose, n)+" / "+shareText(u.Gain, n), "x", num(chartW), "y", num(y+rowH/2+4), "text-anchor", "end", "class", "pj-odds"))
+		segments(g, u, n, barX, y+4, barW, rowH-8)
+		g.Add(Wrap("text", format.ShareText(u.Lose, n)+" / "+format.ShareText(u.Gain, n), "x", num(chartW-2), "y", num(y+rowH/2+4), "text-anchor", "end", "class", "pj-odds"))
 		svg.Add(g)
 	}
-	ly := chartTop + rowH*float64(len(s.Units)) + 10
-	leg := El("g", "class", "pj-legend")
-	lx := barX
-	for _, l := range [][2]string{{"pj-fewer", "fewer than now"}, {"pj-same", "as now"}, {"pj-more", "more than now"}} {
-		leg.Add(El("rect", "x", num(lx), "y", num(ly), "width", "12", "height", "12", "class", "pj-seg "+l[0]))
-		leg.Add(Wrap("text", l[1], "x", num(lx+16), "y", num(ly+10)))
-		lx += 16 + 7*float64(len(l[1])) + 10
+	legend(svg, barX, chartTop+rowH*float64(len(s.Units))+10)
+	return svg
+}
+
+// Narrow chart geometry: a header line, then each row holds a line of
+// text (the unit and its seats now, its shares of losing and gaining a
+// seat) above its bar.
+const (
+	narrowW    = 320.0
+	narrowTop  = 20.0
+	narrowRowH = 42.0
+	narrowBarY = 19.0
+	narrowBarH = 18.0
+)
+
+// narrowChart is the chart with each unit's name and seats now and its
+// shares of losing and gaining a seat on a line above its bar, so that the
+// bars take the chart's whole width; drawn about as wide as a phone.
+func narrowChart(s *model.Summary, id, cap string) *Node {
+	h := narrowTop + narrowRowH*float64(len(s.Units)) + chartFoot
+	svg := El("svg", "viewBox", "0 0 "+num(narrowW)+" "+num(h), "role", "img", "aria-labelledby", id+"-chart-title-narrow "+cap, "class", "pj-svg pj-svg-narrow")
+	svg.Add(Wrap("title", "Chance of each seat count, by unit", "id", id+"-chart-title-narrow"))
+	hd := El("g", "class", "pj-axis")
+	hd.Add(Wrap("text", "unit, seats now", "x", "2", "y", "12"))
+	hd.Add(Wrap("text", "lose / gain", "x", num(narrowW-2), "y", "12", "text-anchor", "end"))
+	svg.Add(hd)
+	n := s.Apportioned
+	for i := range s.Units {
+		u := &s.Units[i]
+		y := narrowTop + narrowRowH*float64(i)
+		g := El("g", "class", "pj-row", "data-unit", u.Name)
+		g.Add(Wrap("text", shortName(u.Name, 18)+" "+strconv.Itoa(u.BaselineSeats), "x", "2", "y", num(y+13), "class", "pj-name"))
+		g.Add(Wrap("text", format.ShareText(u.Lose, n)+" / "+format.ShareText(u.Gain, n), "x", num(narrowW-2), "y", num(y+13), "text-anchor", "end", "class", "pj-odds"))
+		segments(g, u, n, 2, y+narrowBarY, narrowW-4, narrowBarH)
+		svg.Add(g)
 	}
-	svg.Add(leg)
-	return fig.Add(svg)
+	legend(svg, 2, narrowTop+narrowRowH*float64(len(s.Units))+6)
+	return svg
+}
+
+// shortName cuts a unit's name to at most n characters, the last an
+// ellipsis when it is cut.
+func shortName(name string, n int) string {
+	r := []rune(name)
+	if len(r) > n {
+		return string(r[:n-1]) + "…"
+	}
+	return name
 }
 
 // num writes a coordinate with at most two decimals.

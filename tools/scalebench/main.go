@@ -38,8 +38,9 @@ import (
 	"time"
 
 	"seatsmith/engine"
+	"seatsmith/engine/format"
+	"seatsmith/engine/format/csv"
 	"seatsmith/engine/input"
-	"seatsmith/engine/report"
 )
 
 func main() {
@@ -106,7 +107,7 @@ func writeChunks(name string, res *engine.Result) error {
 	for i := 0; i < len(res.Units); i += 10_000 {
 		part.Units = res.Units[i:min(i+10_000, len(res.Units))]
 		b.Reset()
-		if err := report.AllotTable(&part).WriteCSV(&b); err != nil {
+		if err := (csv.Encoder{}).Encode(&b, format.Allotment("", &part, &engine.Scenario{}, format.AllotOptions{})); err != nil {
 			f.Close()
 			return err
 		}
@@ -189,10 +190,10 @@ func allot(args []string, stdout, stderr io.Writer) int {
 		step("write")
 		return 0
 	}
-	t := report.AllotTable(res)
+	doc := format.Allotment("", res, &engine.Scenario{}, format.AllotOptions{})
 	step("table")
 	var b bytes.Buffer
-	if err := t.WriteCSV(&b); err != nil {
+	if err := (csv.Encoder{}).Encode(&b, doc); err != nil {
 		fmt.Fprintln(stderr, "scalebench:", err)
 		return 1
 	}

@@ -38,7 +38,7 @@ func TestGenAndAllot(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		if rows := strings.Count(string(got), "\n"); rows != 51 || !strings.HasPrefix(string(got), "unit,population,") {
+		if rows := strings.Count(string(got), "\n"); rows != 51 || !strings.HasPrefix(string(got), "method,house_size,default_min,default_max,threshold,tie_rule,unit,population,") {
 			t.Fatalf("allot (lean %v) wrote %d lines", lean, rows)
 		}
 		if !strings.Contains(log.String(), "allot") {

@@ -1,15 +1,13 @@
 package main
 
 import (
-	"bufio"
-	"bytes"
 	"flag"
 	"io"
 	"strconv"
 
 	"seatsmith/engine"
-	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
+	"seatsmith/engine/analysis"
+	"seatsmith/engine/format"
 )
 
 func init() {
@@ -33,9 +31,9 @@ seats. -margins and -order ask for them at any size; -margins=false and
 -order=false leave them out at any size. CSV never needs the seat order.
 
 Examples:
-  seatsmith allot -method huntington-hill -seats 40 -min 1 testdata/demo/vessaria.csv
+  seatsmith allot -method huntington-hill -seats 40 testdata/demo/vessaria.csv
   seatsmith allot -format json testdata/demo/vessaria.json
-  seatsmith allot -method dhondt -seats 20 -threshold 5% -tiebreak lot:7 votes.csv
+  seatsmith allot -method dhondt -seats 20 -threshold 5% -tiebreak lot:7 testdata/demo/party-votes.csv
 
 Options:
 `
@@ -47,7 +45,7 @@ the units the methods treat differently (*) and seat counts outside the
 unit's lower and upper quota (!).
 
 Examples:
-  seatsmith compare -seats 40 -min 1 testdata/demo/vessaria.csv
+  seatsmith compare -seats 40 testdata/demo/vessaria.csv
   seatsmith compare -format markdown testdata/demo/vessaria.json
 
 Options:
@@ -58,7 +56,7 @@ func helpFunc(fs *flag.FlagSet, w io.Writer, text string) func() {
 		io.WriteString(w, text)
 		fs.SetOutput(w)
 		fs.PrintDefaults()
-		io.WriteString(w, "\nExit status: 0 done, 1 bad input, 2 bad command line, 3 a tie left seats unassigned.\n\n"+report.Wrap(report.Caution, 76)+"\n")
+		io.WriteString(w, "\nExit status: 0 done, 1 bad input, 2 bad command line, 3 a tie left seats unassigned.\n\n"+format.Wrap(format.Caution, 76)+"\n")
 	}
 }
 
@@ -72,11 +70,8 @@ func runAllot(e *env, args []string) int {
 	order := fs.Bool("order", false, "compute the seat order at any house size and list all of it, not just the last\nand next seats (text format)")
 	margins := fs.Bool("margins", false, "compute every unit's gain and lose margins at any size (default: on small\ninputs only)")
 	fs.Usage = helpFunc(fs, e.stdout, allotHelp)
-	if err := fs.Parse(args); err != nil {
-		if err == flag.ErrHelp {
-			return exitOK
-		}
-		return exitUsage
+	if code, done := parseArgs(fs, args); done {
+		return code
 	}
 	if err := of.check("text", "csv", "json", "markdown"); err != nil {
 		return fail(e, "allot", err)
@@ -90,6 +85,10 @@ func runAllot(e *env, args []string) int {
 	}
 	set := map[string]bool{}
 	fs.Visit(func(f *flag.Flag) { set[f.Name] = true })
+	if *order && src.Scenario.Seats > maxOrderSeats && src.Scenario.Method.IsDivisor() && of.format != "csv" {
+		return fail(e, "allot", usageError("-order: the seat order lists every seat and is held in memory, so it is listed for at most "+
+			strconv.Itoa(maxOrderSeats)+" seats, not "+strconv.Itoa(src.Scenario.Seats)+"; leave out -order for the last and next seats"))
+	}
 	plan := planDetail(&src.Scenario, of.format, set["margins"], *margins, set["order"], *order)
 	for _, n := range plan.notes {
 		io.WriteString(e.stderr, "seatsmith allot: "+n+"\n")
@@ -107,17 +106,8 @@ func runAllot(e *env, args []string) int {
 	if err != nil {
 		return fail(e, "allot", src.Locate(err))
 	}
-	err = of.stream(e, func(w *bufio.Writer) error {
-		switch of.format {
-		case "json":
-			return report.WriteAllotJSON(w, src.Title, res, plan.skipped)
-		case "csv":
-			return report.WriteAllotCSV(w, res)
-		case "markdown":
-			return report.WriteAllotMarkdown(w, src.Title, res, plan.skipped)
-		}
-		return report.WriteAllotText(w, src.Title, res, *order, plan.skipped)
-	})
+	doc := format.Allotment(src.Title, res, &src.Scenario, format.AllotOptions{Order: *order, Skipped: plan.skipped})
+	err = of.encode(e, doc)
 	if err != nil {
 		return fail(e, "allot", err)
 	}
@@ -136,11 +126,8 @@ func runCompare(e *env, args []string) int {
 	sf.bind(fs, false)
 	of.bind(fs, "text", "csv", "json", "markdown")
 	fs.Usage = helpFunc(fs, e.stdout, compareHelp)
-	if err := fs.Parse(args); err != nil {
-		if err == flag.ErrHelp {
-			return exitOK
-		}
-		return exitUsage
+	if code, done := parseArgs(fs, args); done {
+		return code
 	}
 	if err := of.check("text", "csv", "json", "markdown"); err != nil {
 		return fail(e, "compare", err)
@@ -149,33 +136,18 @@ func runCompare(e *env, args []string) int {
 	if err != nil {
 		return fail(e, "compare", err)
 	}
-	c := report.Compare(src.Scenario, nil, 0)
+	c := analysis.CompareMethods(src.Scenario, nil, 0)
 	if c.First() == nil {
 		// Every method failed: the scenario itself is at fault.
 		return fail(e, "compare", src.Locate(c.Errors[0]))
 	}
-	var b bytes.Buffer
-	switch of.format {
-	case "json":
-		b.Write(jsondoc.MarshalIndent(c.Doc(src.Title), "  "))
-	case "csv":
-		err = report.ComparisonTable(c).WriteCSV(&b)
-	case "markdown":
-		err = report.WriteComparisonMarkdown(&b, src.Title, c)
-	default:
-		err = report.WriteComparisonText(&b, src.Title, c)
-	}
-	if err == nil {
-		err = of.write(e, &b)
-	}
+	err = of.encode(e, format.Comparison(src.Title, c))
 	if err != nil {
 		return fail(e, "compare", err)
 	}
-	for _, r := range c.Results {
-		if r != nil && r.Unassigned > 0 {
-			io.WriteString(e.stderr, "seatsmith compare: a tie left seats unassigned under at least one method; settle it with -tiebreak\n")
-			return exitTie
-		}
+	if c.Unsettled() {
+		io.WriteString(e.stderr, "seatsmith compare: a tie left seats unassigned under at least one method; settle it with -tiebreak\n")
+		return exitTie
 	}
 	return exitOK
 }
@@ -192,6 +164,9 @@ const (
 	autoSearchUnits = 1_000
 	// autoOrderSeats: the seat order holds one entry per seat.
 	autoOrderSeats = 100_000
+	// maxOrderSeats: the most seats -order lists (about 128 bytes a seat
+	// in memory).
+	maxOrderSeats = 1_000_000
 )
 
 // detailPlan is what allot computes and what it leaves out.

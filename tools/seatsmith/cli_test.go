@@ -6,8 +6,8 @@ import (
 	"strings"
 	"testing"
 
+	"seatsmith/engine/format"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 )
 
 const demoCSV = "testdata/demo/vessaria.csv"
@@ -18,7 +18,7 @@ func TestAllotText(t *testing.T) {
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
-	for _, want := range []string{"Huntington–Hill, 40 seats, population 8200567", "Orlen", "Divisor range:", "Next seats beyond the house size:", report.Wrap(report.Caution, 76)} {
+	for _, want := range []string{"Huntington–Hill, 40 seats, population 8200567", "Orlen", "Divisor range:", "Next seats beyond the house size:", format.Wrap(format.Caution, 76)} {
 		if !strings.Contains(out, want) {
 			t.Errorf("output lacks %q:\n%s", want, out)
 		}
@@ -97,7 +97,7 @@ func TestStdin(t *testing.T) {
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
-	if !strings.Contains(out, "North Ward,5000,5,5,yes") {
+	if !strings.Contains(out, "webster,10,0,,0,none,North Ward,5000,0,,false,5,5,5,5,true,") {
 		t.Errorf("csv output:\n%s", out)
 	}
 }
@@ -165,7 +165,7 @@ func TestTieExitStatus(t *testing.T) {
 	if code != 3 {
 		t.Fatalf("exit %d, want 3 for an unsettled tie: %s", code, errOut)
 	}
-	if !strings.Contains(out, "TIE: East Ward, West Ward") || !strings.Contains(out, "1 seat left unassigned") {
+	if !strings.Contains(out, "TIE: East Ward, West Ward") || !strings.Contains(out, "tie at 300 for 1 seat: left unassigned") {
 		t.Errorf("tie not reported:\n%s", out)
 	}
 	out, _, code = cli(t, in, "allot", "-method", "jefferson", "-seats", "4", "-tiebreak", "lot:11", "-format", "json", "-")

@@ -1,13 +1,14 @@
 package main
 
 import (
-	"bytes"
 	"flag"
 	"strings"
 
+	"golang.org/x/text/unicode/norm"
+
 	"seatsmith/engine"
-	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
+	"seatsmith/engine/analysis"
+	"seatsmith/engine/format"
 )
 
 func init() {
@@ -29,7 +30,7 @@ paradox, changes: [{unit, before, after}], units: [{name, before, after}],
 unassigned_before, unassigned_after, text}]}.
 
 Examples:
-  seatsmith admit -seats 40 -min 1 -name "Ostry Fen" -population 410000 testdata/demo/vessaria.csv
+  seatsmith admit -seats 40 -name "Ostry Fen" -population 410000 testdata/demo/vessaria.csv
   seatsmith admit -method hamilton -name "Ostry Fen" -population 410000 -added 2 -format json testdata/demo/vessaria.json
 
 Options:
@@ -74,35 +75,22 @@ func runAdmit(e *env, args []string) int {
 	if err != nil {
 		return fail(e, "admit", err)
 	}
+	newName := norm.NFC.String(strings.TrimSpace(*name))
+	if msg := nameProblem(newName); msg != "" {
+		return fail(e, "admit", usageError("-name: "+msg))
+	}
 	for _, u := range src.Scenario.Units {
-		if strings.TrimSpace(u.Name) == strings.TrimSpace(*name) {
-			return fail(e, "admit", usageError("-name: "+quote(*name)+" is already a unit of "+src.File))
+		if u.Name == newName {
+			return fail(e, "admit", usageError("-name: "+quote(newName)+" is already a unit of "+src.File))
 		}
 	}
-	a := report.Admit(src.Scenario, engine.Unit{Name: *name, Population: p}, *added, ms)
+	a := analysis.Admit(src.Scenario, engine.Unit{Name: newName, Population: p}, *added, ms)
 	if a.First() == nil {
 		return fail(e, "admit", src.Locate(a.Errors[0]))
 	}
-	var b bytes.Buffer
-	switch of.format {
-	case "json":
-		b.Write(jsondoc.MarshalIndent(a.Doc(src.Title), "  "))
-	case "csv":
-		err = report.AdmitTable(a).WriteCSV(&b)
-	default:
-		err = report.WriteAdmitText(&b, src.Title, a, of.format == "markdown")
-	}
-	if err == nil {
-		err = of.write(e, &b)
-	}
+	err = of.encode(e, format.Admit(src.Title, a))
 	if err != nil {
 		return fail(e, "admit", err)
 	}
-	unsettled := false
-	for _, r := range a.Results {
-		if r != nil && (r.Before.Unassigned > 0 || r.After.Unassigned > 0) {
-			unsettled = true
-		}
-	}
-	return tieNote(e, "admit", unsettled)
+	return tieNote(e, "admit", a.Unsettled())
 }

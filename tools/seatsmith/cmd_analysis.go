@@ -32,15 +32,33 @@ func methodList(s string) ([]engine.Method, error) {
 
 const methodListHelp = "methods: all (the default), or ids separated by commas, such as webster,huntington-hill"
 
-// parseArgs parses the command line; it returns done when the command
-// should stop at once with the given status (help shown, or bad flags).
+// parseArgs parses the command line, with options and file arguments in
+// any order ("allot FILE -seats 5" as "allot -seats 5 FILE"); after "--"
+// everything is a file argument. It returns done when the command should
+// stop at once with the given status (help shown, or bad options).
 func parseArgs(fs *flag.FlagSet, args []string) (status int, done bool) {
-	if err := fs.Parse(args); err != nil {
-		if err == flag.ErrHelp {
-			return exitOK, true
+	var files []string
+	rest := args
+	for {
+		if err := fs.Parse(rest); err != nil {
+			if err == flag.ErrHelp {
+				return exitOK, true
+			}
+			return exitUsage, true
 		}
-		return exitUsage, true
+		left := fs.Args()
+		if used := len(rest) - len(left); used > 0 && rest[used-1] == "--" {
+			files = append(files, left...) // everything after "--"
+			break
+		}
+		if len(left) == 0 {
+			break
+		}
+		files = append(files, left[0])
+		rest = left[1:]
 	}
+	// Leave the file arguments as the flag set's arguments.
+	fs.Parse(append([]string{"--"}, files...))
 	return 0, false
 }
 
@@ -48,7 +66,7 @@ func parseArgs(fs *flag.FlagSet, args []string) (status int, done bool) {
 // that were given on the command line main, exactly as scenarioFlags.load
 // applies them; extra sets further options by name (such as "seats").
 func loadFileWith(e *env, main *flag.FlagSet, withMethod bool, file string, extra map[string]string) (*input.Source, error) {
-	fs := flag.NewFlagSet("", flag.ContinueOnError)
+	fs := flag.NewFlagSet(main.Name(), flag.ContinueOnError)
 	fs.SetOutput(io.Discard)
 	var sf scenarioFlags
 	sf.bind(fs, withMethod)

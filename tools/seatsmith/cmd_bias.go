@@ -1,13 +1,11 @@
 package main
 
 import (
-	"bytes"
 	"flag"
 	"strconv"
 
 	"seatsmith/engine/analysis"
-	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
+	"seatsmith/engine/format"
 )
 
 func init() {
@@ -84,18 +82,7 @@ func runBias(e *env, args []string) int {
 	if err != nil {
 		return fail(e, "bias", usageError(err.Error()))
 	}
-	var b bytes.Buffer
-	switch of.format {
-	case "json":
-		b.Write(jsondoc.MarshalIndent(report.BiasDoc("", st), "  "))
-	case "csv":
-		err = report.BiasTable(st).WriteCSV(&b)
-	default:
-		err = report.WriteBiasText(&b, "", st, of.format == "markdown")
-	}
-	if err == nil {
-		err = of.write(e, &b)
-	}
+	err = of.encode(e, format.Bias("", st))
 	if err != nil {
 		return fail(e, "bias", err)
 	}

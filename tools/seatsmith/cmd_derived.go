@@ -1,13 +1,11 @@
 package main
 
 import (
-	"bytes"
 	"flag"
 
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
-	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
+	"seatsmith/engine/format"
 )
 
 func init() {
@@ -30,7 +28,7 @@ body_share, house_weight, body_weight}], ties, unassigned, measures:
 and weights are exact fractions written with six decimal places.
 
 Examples:
-  seatsmith derived -method huntington-hill -seats 40 -min 1 -plus 2 testdata/demo/vessaria.csv
+  seatsmith derived -method huntington-hill -seats 40 -plus 2 testdata/demo/vessaria.csv
   seatsmith derived -plus 2 -format json testdata/demo/vessaria.json
 
 Options:
@@ -69,18 +67,7 @@ func runDerived(e *env, args []string) int {
 	if err != nil {
 		return fail(e, "derived", usageError("-plus: "+err.Error()))
 	}
-	var b bytes.Buffer
-	switch of.format {
-	case "json":
-		b.Write(jsondoc.MarshalIndent(report.DerivedDoc(src.Title, d), "  "))
-	case "csv":
-		err = report.DerivedTable(d).WriteCSV(&b)
-	default:
-		err = report.WriteDerivedText(&b, src.Title, d, of.format == "markdown")
-	}
-	if err == nil {
-		err = of.write(e, &b)
-	}
+	err = of.encode(e, format.Derived(src.Title, d, &src.Scenario))
 	if err != nil {
 		return fail(e, "derived", err)
 	}

@@ -1,16 +1,14 @@
 package main
 
 import (
-	"bytes"
 	"errors"
 	"flag"
 	"strconv"
 
 	"seatsmith/engine"
 	"seatsmith/engine/analysis"
+	"seatsmith/engine/format"
 	"seatsmith/engine/input"
-	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 )
 
 func init() {
@@ -41,9 +39,10 @@ lose_margin_after, margins_changed}], measures: {baseline: {loosemore_hanby,
 gallagher, sainte_lague, ratio}, proposal: {...}}, lines: [text]}.
 
 Examples:
-  seatsmith diff -method huntington-hill -seats 40 -min 1 -new-method webster testdata/demo/vessaria.csv
+  seatsmith diff -method huntington-hill -seats 40 -new-method webster testdata/demo/vessaria.csv
   seatsmith diff -new-seats 45 testdata/demo/vessaria.json
-  seatsmith diff -method hamilton -seats 40 testdata/demo/vessaria.csv later.csv
+  seatsmith diff -method hamilton -seats 40 testdata/demo/vessaria.csv testdata/demo/vessaria-later.csv
+  seatsmith diff testdata/demo/vessaria.json testdata/demo/vessaria-proposal.csv
 
 Options:
 `
@@ -129,18 +128,7 @@ func runDiff(e *env, args []string) int {
 		}
 		return fail(e, "diff", err)
 	}
-	var b bytes.Buffer
-	switch of.format {
-	case "json":
-		b.Write(jsondoc.MarshalIndent(report.DiffDoc(base.Title, d), "  "))
-	case "csv":
-		err = report.DiffTable(d).WriteCSV(&b)
-	default:
-		err = report.WriteDiffText(&b, base.Title, d, of.format == "markdown")
-	}
-	if err == nil {
-		err = of.write(e, &b)
-	}
+	err = of.encode(e, format.Diff(base.Title, d, &base.Scenario, &prop))
 	if err != nil {
 		return fail(e, "diff", err)
 	}

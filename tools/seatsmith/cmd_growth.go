@@ -1,15 +1,14 @@
 package main
 
 import (
-	"bytes"
 	"flag"
 	"os"
 	"strconv"
 	"strings"
 
+	"seatsmith/engine/analysis"
+	"seatsmith/engine/format"
 	"seatsmith/engine/input"
-	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 )
 
 func init() {
@@ -34,8 +33,8 @@ to, growth, growth_exact, seats_before, seats_after}, gainer: {...},
 faster, tied, text}]}.
 
 Examples:
-  seatsmith growth -seats 40 -min 1 testdata/demo/vessaria.csv later.csv
-  seatsmith growth -method hamilton -format json before.json after.csv
+  seatsmith growth -seats 40 testdata/demo/vessaria.csv testdata/demo/vessaria-later.csv
+  seatsmith growth -method hamilton -format json testdata/demo/vessaria.json testdata/demo/vessaria-later.csv
 
 Options:
 `
@@ -70,47 +69,30 @@ func runGrowth(e *env, args []string) int {
 	if err != nil {
 		return fail(e, "growth", err)
 	}
-	g, err := report.FindGrowth(src.Scenario, later.Scenario, ms)
+	g, err := analysis.FindGrowth(src.Scenario, later.Scenario, ms)
 	if err != nil {
 		return fail(e, "growth", &input.Error{File: later.File, Msg: err.Error()})
 	}
 	if g.First() == nil {
 		return fail(e, "growth", src.Locate(g.Errors[0]))
 	}
-	var b bytes.Buffer
-	switch of.format {
-	case "json":
-		b.Write(jsondoc.MarshalIndent(g.Doc(src.Title), "  "))
-	case "csv":
-		err = report.GrowthTable(g).WriteCSV(&b)
-	default:
-		err = report.WriteGrowthText(&b, src.Title, g, of.format == "markdown")
-	}
-	if err == nil {
-		err = of.write(e, &b)
-	}
+	err = of.encode(e, format.Growth(src.Title, g))
 	if err != nil {
 		return fail(e, "growth", err)
 	}
-	unsettled := false
-	for _, r := range g.Results {
-		if r != nil && (r.Before.Unassigned > 0 || r.After.Unassigned > 0) {
-			unsettled = true
-		}
-	}
-	return tieNote(e, "growth", unsettled)
+	return tieNote(e, "growth", g.Unsettled())
 }
 
 // readSource reads a scenario file (or standard input for "-") without
 // applying any option.
 func readSource(e *env, name string) (*input.Source, error) {
 	if name == "-" {
-		return input.Read("stdin", e.stdin)
+		return readOptions.Read("stdin", e.stdin)
 	}
 	f, err := os.Open(name)
 	if err != nil {
 		return nil, &input.Error{File: name, Msg: "cannot read: " + strings.TrimPrefix(err.Error(), "open "+name+": ")}
 	}
 	defer f.Close()
-	return input.Read(name, f)
+	return readOptions.Read(name, f)
 }

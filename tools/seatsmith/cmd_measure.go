@@ -1,11 +1,10 @@
 package main
 
 import (
-	"bytes"
 	"flag"
 
-	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
+	"seatsmith/engine/analysis"
+	"seatsmith/engine/format"
 )
 
 func init() {
@@ -32,7 +31,7 @@ relative_difference, unseated, improving_transfers: {relative_difference,
 district_size_difference, representation_difference}}]}.
 
 Examples:
-  seatsmith measure -seats 40 -min 1 testdata/demo/vessaria.csv
+  seatsmith measure -seats 40 testdata/demo/vessaria.csv
   seatsmith measure -method webster,huntington-hill -format json testdata/demo/vessaria.json
 
 Options:
@@ -61,28 +60,13 @@ func runMeasure(e *env, args []string) int {
 	if err != nil {
 		return fail(e, "measure", err)
 	}
-	set := report.MeasureAll(src.Scenario, ms)
+	set := analysis.MeasureAll(src.Scenario, ms)
 	if set.Comparison.First() == nil {
 		return fail(e, "measure", src.Locate(set.Comparison.Errors[0]))
 	}
-	var b bytes.Buffer
-	switch of.format {
-	case "json":
-		b.Write(jsondoc.MarshalIndent(set.Doc(src.Title), "  "))
-	case "csv":
-		err = report.MeasureTable(set).WriteCSV(&b)
-	default:
-		err = report.WriteMeasureText(&b, src.Title, set, of.format == "markdown")
-	}
-	if err == nil {
-		err = of.write(e, &b)
-	}
+	err = of.encode(e, format.Measures(src.Title, set))
 	if err != nil {
 		return fail(e, "measure", err)
 	}
-	unsettled := false
-	for _, r := range set.Comparison.Results {
-		unsettled = unsettled || (r != nil && r.Unassigned > 0)
-	}
-	return tieNote(e, "measure", unsettled)
+	return tieNote(e, "measure", set.Comparison.Unsettled())
 }

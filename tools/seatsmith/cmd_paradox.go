@@ -1,14 +1,13 @@
 package main
 
 import (
-	"bytes"
 	"flag"
 	"strconv"
 
 	"seatsmith/engine"
+	"seatsmith/engine/analysis"
+	"seatsmith/engine/format"
 	"seatsmith/engine/input"
-	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 )
 
 func init() {
@@ -69,28 +68,44 @@ func runParadox(e *env, args []string) int {
 	if set == nil {
 		return code
 	}
-	var b bytes.Buffer
-	switch of.format {
-	case "json":
-		b.Write(jsondoc.MarshalIndent(report.ParadoxDoc(src.Title, set, &src.Scenario), "  "))
-	case "csv":
-		err = report.ParadoxTable(set, &src.Scenario).WriteCSV(&b)
-	default:
-		err = report.WriteParadoxText(&b, src.Title, set, &src.Scenario, *limit, of.format == "markdown")
-	}
-	if err == nil {
-		err = of.write(e, &b)
-	}
+	err = of.encode(e, format.Paradoxes(src.Title, set, *limit))
 	if err != nil {
 		return fail(e, "paradox", err)
 	}
 	return tieNote(e, "paradox", set.Unsettled())
 }
 
+// Limits on one run of sweep or paradox, over all the methods swept: every
+// house size of every method is held in memory (about 80 bytes, and 8 a
+// unit), so the run is refused up front, naming the limit, rather than
+// grown without bound.
+const (
+	maxSweepResults = 10_000_000 // house sizes × units × methods
+	maxSweepSizes   = 1_000_000  // house sizes × methods
+)
+
+// sweepSize checks a run of sizes house sizes of n units by k methods
+// against the limits.
+func sweepSize(sizes, n, k int) error {
+	what := strconv.Itoa(sizes) + " house sizes"
+	if k > 1 {
+		what += " by " + strconv.Itoa(k) + " methods"
+	}
+	switch {
+	case sizes > maxSweepSizes/k:
+		return usageError("-from/-to: " + what + " is more than the limit of " + strconv.Itoa(maxSweepSizes) +
+			" apportionments in one run (house sizes × methods); sweep a shorter range or fewer methods (-method)")
+	case n > 0 && sizes > maxSweepResults/n/k:
+		return usageError("-from/-to: " + what + " of " + strconv.Itoa(n) + " units is more than the limit of " +
+			strconv.Itoa(maxSweepResults) + " seat counts in one run (house sizes × units × methods); sweep a shorter range or fewer methods (-method)")
+	}
+	return nil
+}
+
 // sweepFromFlags loads the one FILE argument with the scenario options and
 // sweeps it from from to to (to defaulting to the house size). On failure
 // it reports the error and returns a nil set with the exit status.
-func sweepFromFlags(e *env, cmd string, fs *flag.FlagSet, ms []engine.Method, from, to int) (*report.SweepSet, *input.Source, int) {
+func sweepFromFlags(e *env, cmd string, fs *flag.FlagSet, ms []engine.Method, from, to int) (*analysis.SweepSet, *input.Source, int) {
 	if from < 1 || from > engine.MaxSeats {
 		return nil, nil, fail(e, cmd, usageError("-from: must be between 1 and "+strconv.Itoa(engine.MaxSeats)))
 	}
@@ -110,15 +125,17 @@ func sweepFromFlags(e *env, cmd string, fs *flag.FlagSet, ms []engine.Method, fr
 	}
 	if !given(fs, "to") {
 		to = src.Scenario.Seats
+		if to == 0 && src.Given["seats"] {
+			return nil, nil, fail(e, cmd, src.Locate(&engine.Error{Unit: -1, Field: "seats", Msg: "the house size must be at least 1, not 0"}))
+		}
 		if to < from {
 			return nil, nil, fail(e, cmd, usageError("-to: the house size "+strconv.Itoa(to)+" is below -from "+strconv.Itoa(from)+"; give -to"))
 		}
 	}
-	if n := len(src.Scenario.Units); n > 0 && to-from+1 > engine.MaxSweepCells/n {
-		return nil, nil, fail(e, cmd, usageError("-from/-to: "+strconv.Itoa(to-from+1)+" house sizes of "+strconv.Itoa(n)+
-			" units is more than the limit of "+strconv.Itoa(engine.MaxSweepCells)+" results"))
+	if err := sweepSize(to-from+1, len(src.Scenario.Units), len(ms)); err != nil {
+		return nil, nil, fail(e, cmd, err)
 	}
-	set := report.SweepAll(src.Scenario, ms, from, to)
+	set := analysis.SweepAll(src.Scenario, ms, from, to)
 	if set.First() == nil {
 		return nil, nil, fail(e, cmd, src.Locate(set.Errors[0]))
 	}

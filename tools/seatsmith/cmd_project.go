@@ -1,20 +1,17 @@
 package main
 
 import (
-	"bytes"
 	"context"
 	"flag"
 	"io"
 	"os"
-	"os/signal"
 	"strconv"
 	"strings"
 
 	"seatsmith/engine"
+	"seatsmith/engine/format"
 	"seatsmith/engine/input"
-	"seatsmith/engine/jsondoc"
 	"seatsmith/engine/projection"
-	"seatsmith/engine/report"
 )
 
 func init() {
@@ -59,7 +56,7 @@ counts. The same -seed gives the same numbers for any -workers.
 Examples:
   seatsmith project -seats 40 -method huntington-hill -min 1 -target 2030-04-01 -rse 2% testdata/demo/vessaria-counts.csv
   seatsmith project -rse 1.5% -draws 100000 -seed 7 testdata/demo/vessaria.json
-  seatsmith project -target 2031 -growth geometric -fit last2 -error lognormal -rse 3% -format json -o outlook.json counts.json
+  seatsmith project -target 2031 -growth geometric -fit last2 -error lognormal -rse 3% -format json -o outlook.json testdata/demo/vessaria-counts.json
 
 Options:
 `
@@ -70,7 +67,7 @@ func runProject(e *env, args []string) int {
 	var sf scenarioFlags
 	var of outputFlags
 	sf.bind(fs, true)
-	of.bind(fs, "text", "csv", "json")
+	of.bind(fs, "text", "csv", "json", "markdown")
 	target := fs.String("target", "", "project the counts to this date (YYYY-MM-DD, YYYY-MM or YYYY); none: use the latest counts")
 	growth := fs.String("growth", "linear", "growth model: linear or geometric")
 	fit := fs.String("fit", "all", "counts the growth model is fitted to: all (least squares) or last2 (the two latest)")
@@ -81,13 +78,10 @@ func runProject(e *env, args []string) int {
 	workers := fs.Int("workers", 0, "goroutines making draws (0: one per CPU); the numbers do not depend on it")
 	contest := fs.Int("contest", projection.DefaultContest, "seats tracked on each side of the cut: the last seats held and the first beyond")
 	fs.Usage = helpFunc(fs, e.stdout, projectHelp)
-	if err := fs.Parse(args); err != nil {
-		if err == flag.ErrHelp {
-			return exitOK
-		}
-		return exitUsage
+	if code, done := parseArgs(fs, args); done {
+		return code
 	}
-	if err := of.check("text", "csv", "json"); err != nil {
+	if err := of.check("text", "csv", "json", "markdown"); err != nil {
 		return fail(e, "project", err)
 	}
 	opt, err := projectOptions(*target, *growth, *fit, *errModel, *rse, *draws, *seed, *workers, *contest)
@@ -98,31 +92,18 @@ func runProject(e *env, args []string) int {
 	if err != nil {
 		return fail(e, "project", err)
 	}
-	if err := applyScenarioFlags(fs, &sf, c); err != nil {
+	if err := applyScenarioFlags(e, fs, &sf, c); err != nil {
 		return fail(e, "project", err)
 	}
 	st, err := projection.New(c, opt)
 	if err != nil {
 		return fail(e, "project", err)
 	}
-	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
-	defer stop()
-	if err := st.RunAll(ctx); err != nil {
+	if err := st.RunAll(context.Background()); err != nil {
 		return fail(e, "project", err)
 	}
 	s := st.Summary()
-	var b bytes.Buffer
-	switch of.format {
-	case "json":
-		b.Write(jsondoc.MarshalIndent(report.Projection(s), "  "))
-	case "csv":
-		err = report.ProjectionTable(s).WriteCSV(&b)
-	default:
-		err = report.WriteProjectionText(&b, s)
-	}
-	if err == nil {
-		err = of.write(e, &b)
-	}
+	err = of.encode(e, format.Projection(s, &c.Scenario))
 	if err != nil {
 		return fail(e, "project", err)
 	}
@@ -176,26 +157,27 @@ func readCounts(e *env, fs *flag.FlagSet) (*projection.Counts, error) {
 	}
 	name := fs.Arg(0)
 	if name == "-" {
-		return projection.ReadCounts("stdin", e.stdin)
+		return projection.ReadCountsWith("stdin", e.stdin, readOptions)
 	}
 	f, err := os.Open(name)
 	if err != nil {
 		return nil, &input.Error{File: name, Msg: "cannot read: " + strings.TrimPrefix(err.Error(), "open "+name+": ")}
 	}
 	defer f.Close()
-	return projection.ReadCounts(name, f)
+	return projection.ReadCountsWith(name, f, readOptions)
 }
 
 // applyScenarioFlags lets the scenario options override the file's own
 // settings, as scenarioFlags.load does for scenario files.
-func applyScenarioFlags(fs *flag.FlagSet, f *scenarioFlags, c *projection.Counts) error {
+func applyScenarioFlags(e *env, fs *flag.FlagSet, f *scenarioFlags, c *projection.Counts) error {
 	over, err := f.overrides(fs)
 	if err != nil {
 		return err
 	}
-	if err := f.apply(over, &c.Scenario); err != nil {
+	if err := f.apply(over, &c.Scenario, c.Given); err != nil {
 		return err
 	}
+	f.note(e, f.boundsNote(c.File, func(i int) (bool, bool) { return c.Series[i].Min != nil, c.Series[i].Max != nil }, len(c.Series)))
 	if !c.Scenario.Method.Valid() {
 		return usageError("no method: give -method (or \"method\" in a JSON file)")
 	}

@@ -1,11 +1,9 @@
 package main
 
 import (
-	"bytes"
 	"flag"
 
-	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
+	"seatsmith/engine/format"
 )
 
 func init() {
@@ -32,7 +30,7 @@ text}]}. "seats" in a size is the house size.
 
 Examples:
   seatsmith sweep -method hamilton -from 30 -to 60 testdata/demo/vessaria.csv
-  seatsmith sweep -method huntington-hill -min 1 -from 9 -to 80 -format svg -o chart.svg testdata/demo/vessaria.csv
+  seatsmith sweep -method huntington-hill -from 9 -to 80 -format svg -o chart.svg testdata/demo/vessaria.csv
   seatsmith sweep -from 1 -to 40 -format json testdata/demo/vessaria.json
 
 Options:
@@ -63,22 +61,7 @@ func runSweep(e *env, args []string) int {
 	if set == nil {
 		return code
 	}
-	var b bytes.Buffer
-	switch of.format {
-	case "json":
-		b.Write(jsondoc.MarshalIndent(set.Doc(src.Title), "  "))
-	case "csv":
-		err = report.SweepCSVTable(set).WriteCSV(&b)
-	case "markdown":
-		err = report.WriteSweepMarkdown(&b, src.Title, set)
-	case "svg":
-		b.WriteString(report.SweepChart(src.Title, set))
-	default:
-		err = report.WriteSweepText(&b, src.Title, set)
-	}
-	if err == nil {
-		err = of.write(e, &b)
-	}
+	err = of.encode(e, format.Sweep(src.Title, set))
 	if err != nil {
 		return fail(e, "sweep", err)
 	}

@@ -8,10 +8,12 @@ package main
 import (
 	"io"
 	"os"
+	"os/signal"
 	"sort"
 	"strings"
+	"syscall"
 
-	"seatsmith/engine/report"
+	"seatsmith/engine/format"
 )
 
 // Exit statuses.
@@ -41,6 +43,20 @@ type env struct {
 }
 
 func main() {
+	// A signal stops the program at once; the output file in the making
+	// is removed first, and the file it was to replace stays as it was.
+	sig := make(chan os.Signal, 1)
+	signal.Notify(sig, os.Interrupt, syscall.SIGTERM, syscall.SIGHUP)
+	go func() {
+		s := <-sig
+		removeTemporaries()
+		io.WriteString(os.Stderr, "seatsmith: stopped ("+s.String()+")\n")
+		code := 130
+		if n, ok := s.(syscall.Signal); ok {
+			code = 128 + int(n)
+		}
+		os.Exit(code)
+	}()
 	os.Exit(run(&env{os.Stdin, os.Stdout, os.Stderr}, os.Args[1:]))
 }
 
@@ -96,7 +112,7 @@ Run "seatsmith COMMAND -h" for a command's options and examples.
 Exit status: 0 done, 1 bad input, 2 bad command line, 3 a tie left seats
 unassigned (choose -tiebreak to settle it).
 
-` + report.Wrap(report.Caution, 76) + "\n")
+` + format.Wrap(format.Caution, 76) + "\n")
 	io.WriteString(w, b.String())
 }
 

@@ -7,8 +7,8 @@ import (
 	"strings"
 	"testing"
 
+	"seatsmith/engine/format"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 )
 
 // demoCounts are the invented dated counts of Vessaria's provinces.
@@ -30,7 +30,7 @@ func TestProjectText(t *testing.T) {
 		"Orlen", "Marrowgate",
 		"holds the last seat (seat 40):",
 		"would take the next seat (41):",
-		report.Wrap(report.Caution, 76),
+		format.Wrap(format.Caution, 76),
 	} {
 		if !strings.Contains(out, want) {
 			t.Errorf("output lacks %q:\n%s", want, out)
@@ -57,7 +57,7 @@ func TestProjectJSON(t *testing.T) {
 	if err != nil {
 		t.Fatalf("not JSON: %v", err)
 	}
-	for key, want := range map[string]string{"kind": "projection", "target": "2031-01-01", "growth": "geometric", "fit": "all", "draws": "2000", "seed": "5", "caution": report.Caution} {
+	for key, want := range map[string]string{"kind": "projection", "target": "2031-01-01", "growth": "geometric", "fit": "all", "draws": "2000", "seed": "5", "caution": format.Caution} {
 		if got := v.Get(key); got == nil || got.Text != want {
 			t.Errorf("%s = %v, want %s", key, got, want)
 		}
@@ -108,10 +108,11 @@ func TestProjectCSVAndFile(t *testing.T) {
 		t.Fatal(err)
 	}
 	lines := strings.Split(strings.TrimSpace(string(b)), "\n")
-	if len(lines) != 10 || !strings.HasPrefix(lines[0], "unit,latest_date,latest,projected,rse,baseline_seats,central_seats,mean_seats,p_lose,p_gain") {
+	if len(lines) != 10 || !strings.HasPrefix(lines[0], "method,house_size,default_min,default_max,threshold,tie_rule,target,growth,fit,error_model,default_rse,draws,apportioned,seed,"+
+		"unit,latest_date,latest,projected,rse,baseline_seats,central_seats,baseline_tied,central_tied,baseline_unassigned,central_unassigned,mean_seats,p_lose,p_gain") {
 		t.Fatalf("csv:\n%s", b)
 	}
-	if !strings.HasPrefix(lines[1], "Orlen,,2694457,2694457,0.0100,12,12,") {
+	if !strings.HasPrefix(lines[1], "huntington-hill,40,1,,0,none,,,,normal,0.01,500,500,1,Orlen,,2694457,2694457,0.01,12,12,false,false,0,0,") {
 		t.Errorf("first row %q", lines[1])
 	}
 }
@@ -192,7 +193,7 @@ func TestProjectHelp(t *testing.T) {
 	if code != 0 {
 		t.Fatalf("exit %d", code)
 	}
-	for _, want := range []string{"Usage: seatsmith project", "Examples:", "-target", "-rse", "-draws", "-seed", "-workers", "-growth", "-error", report.Wrap(report.Caution, 76)} {
+	for _, want := range []string{"Usage: seatsmith project", "Examples:", "-target", "-rse", "-draws", "-seed", "-workers", "-growth", "-error", format.Wrap(format.Caution, 76)} {
 		if !strings.Contains(out, want) {
 			t.Errorf("help lacks %q", want)
 		}

@@ -6,6 +6,9 @@ import (
 	"os"
 	"strconv"
 	"strings"
+	"unicode/utf8"
+
+	"golang.org/x/text/unicode/norm"
 
 	"seatsmith/engine"
 	"seatsmith/engine/input"
@@ -14,6 +17,8 @@ import (
 // scenarioFlags are the options every scenario-reading command shares.
 // Options given on the command line override the file's own values.
 type scenarioFlags struct {
+	cmd       string // the command, for notes
+	ownMethod bool   // -method is this scenario's method (not a list of methods)
 	seats     int
 	method    string
 	min, max  int
@@ -23,6 +28,7 @@ type scenarioFlags struct {
 }
 
 func (f *scenarioFlags) bind(fs *flag.FlagSet, withMethod bool) {
+	f.cmd, f.ownMethod = fs.Name(), withMethod
 	fs.IntVar(&f.seats, "seats", 0, "house size: the number of seats to divide")
 	if withMethod {
 		fs.StringVar(&f.method, "method", "", "method: "+strings.Join(engine.MethodIDs(), ", ")+"\n(aliases: hare, dhondt, sainte-lague, equal-proportions)")
@@ -39,6 +45,9 @@ func (f *scenarioFlags) bind(fs *flag.FlagSet, withMethod bool) {
 func (f *scenarioFlags) overrides(fs *flag.FlagSet) (*engine.Scenario, error) {
 	f.set = map[string]bool{}
 	fs.Visit(func(fl *flag.Flag) { f.set[fl.Name] = true })
+	if !f.ownMethod {
+		delete(f.set, "method") // the command's own list of methods
+	}
 	over := &engine.Scenario{}
 	flagErr := func(flagName, msg string) error {
 		return usageError("-" + flagName + ": " + msg)
@@ -87,8 +96,10 @@ func (f *scenarioFlags) overrides(fs *flag.FlagSet) (*engine.Scenario, error) {
 
 // apply copies the options given on the command line (as returned by
 // overrides) over the scenario read from a file, and checks that a house
-// size is set.
-func (f *scenarioFlags) apply(over, sc *engine.Scenario) error {
+// size is set. given says which settings the file gave itself: a house
+// size of 0 given by the file is left for the engine to refuse, so that
+// the message names the file and line.
+func (f *scenarioFlags) apply(over, sc *engine.Scenario, given map[string]bool) error {
 	if f.set["seats"] {
 		sc.Seats = over.Seats
 	}
@@ -107,11 +118,59 @@ func (f *scenarioFlags) apply(over, sc *engine.Scenario) error {
 	if f.set["tiebreak"] {
 		sc.Tie = over.Tie
 	}
-	if sc.Seats == 0 {
+	if sc.Seats == 0 && !given["seats"] {
 		return usageError("no house size: give -seats N (or \"seats\" in a JSON scenario)")
 	}
 	return nil
 }
+
+// boundsNote says, when -min or -max was given, how many units keep a
+// bound of their own from the file (its min and max column, or the
+// members of its units), which takes precedence over the option's
+// default; "" when none does.
+func (f *scenarioFlags) boundsNote(file string, own func(i int) (min, max bool), n int) string {
+	var notes []string
+	for _, b := range []struct {
+		flag, word string
+		value      int
+		min        bool
+	}{{"min", "minimum", f.min, true}, {"max", "maximum", f.max, false}} {
+		if !f.set[b.flag] {
+			continue
+		}
+		k := 0
+		for i := 0; i < n; i++ {
+			mn, mx := own(i)
+			if (b.min && mn) || (!b.min && mx) {
+				k++
+			}
+		}
+		opt := "-" + b.flag + " " + strconv.Itoa(b.value)
+		switch {
+		case k == 0:
+			continue
+		case k == n:
+			notes = append(notes, opt+" changes nothing: every unit of "+file+" gives its own "+b.word+
+				", which takes precedence over the option's default")
+		default:
+			notes = append(notes, opt+" is the default for the units without their own "+b.word+": "+strconv.Itoa(k)+" of the "+
+				strconv.Itoa(n)+" units of "+file+" give their own, which they keep")
+		}
+	}
+	return strings.Join(notes, "; ")
+}
+
+// note writes a note about the command line on standard error.
+func (f *scenarioFlags) note(e *env, msg string) {
+	if msg != "" {
+		io.WriteString(e.stderr, "seatsmith "+f.cmd+": "+msg+"\n")
+	}
+}
+
+// readOptions are how every command reads its files: names are compared
+// in Unicode normalization form C, so that a name written with a composed
+// letter and with a letter and a combining mark is one name.
+var readOptions = input.Options{NameForm: norm.NFC.String}
 
 // load reads the scenario named by the single file argument and applies
 // the options. It returns a located error for bad input.
@@ -128,13 +187,15 @@ func (f *scenarioFlags) load(e *env, fs *flag.FlagSet) (*input.Source, error) {
 		return nil, err
 	}
 	defer closeFile()
-	src, err := input.Read(name, r)
+	src, err := readOptions.Read(name, r)
 	if err != nil {
 		return nil, err
 	}
-	if err := f.apply(over, &src.Scenario); err != nil {
+	if err := f.apply(over, &src.Scenario, src.Given); err != nil {
 		return nil, err
 	}
+	us := src.Scenario.Units
+	f.note(e, f.boundsNote(src.File, func(i int) (bool, bool) { return us[i].Min != nil, us[i].Max != nil }, len(us)))
 	return src, nil
 }
 
@@ -172,4 +233,16 @@ func fail(e *env, cmd string, err error) int {
 		return exitUsage
 	}
 	return exitInput
+}
+
+// nameProblem says why a name given on the command line is not one, or
+// returns "".
+func nameProblem(s string) string {
+	if strings.IndexByte(s, 0) >= 0 {
+		return "holds a NUL byte"
+	}
+	if !utf8.ValidString(s) {
+		return "is not UTF-8 text"
+	}
+	return ""
 }

@@ -8,8 +8,8 @@ import (
 	"strings"
 	"testing"
 
+	"seatsmith/engine/format"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 )
 
 // textbookCSV is the worked example of the Alabama paradox in Tannenbaum,
@@ -109,11 +109,11 @@ func TestSweepSVG(t *testing.T) {
 
 func TestSweepTieExit(t *testing.T) {
 	out, _, code := cli(t, "name,population\nA,500\nB,500\n", "sweep", "-method", "webster", "-from", "1", "-to", "4", "-")
-	if code != exitTie || !strings.Contains(out, "TIE A, B for 1 seat (unassigned)") {
+	if code != exitTie || !strings.Contains(out, "A, B tie at 1000 for 1 seat: left unassigned") {
 		t.Errorf("exit %d, want %d:\n%s", code, exitTie, out)
 	}
 	out, _, code = cli(t, "name,population\nA,500\nB,500\n", "sweep", "-method", "webster", "-tiebreak", "order", "-from", "1", "-to", "4", "-")
-	if code != 0 || !strings.Contains(out, "settled by order") {
+	if code != 0 || !strings.Contains(out, "settled by input order for A") {
 		t.Errorf("exit %d:\n%s", code, out)
 	}
 }
@@ -124,7 +124,7 @@ func TestAnalysisHelp(t *testing.T) {
 		if code != 0 {
 			t.Errorf("%s -h: exit %d", c, code)
 		}
-		for _, want := range []string{"Usage: seatsmith " + c, "Examples:", "seatsmith " + c + " ", "Exit status:", report.Wrap(report.Caution, 76)} {
+		for _, want := range []string{"Usage: seatsmith " + c, "Examples:", "seatsmith " + c + " ", "Exit status:", format.Wrap(format.Caution, 76)} {
 			if !strings.Contains(out, want) {
 				t.Errorf("%s -h lacks %q", c, want)
 			}

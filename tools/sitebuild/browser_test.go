@@ -426,8 +426,9 @@ func TestBrowser(t *testing.T) {
 		tb.do(chromedp.Focus(sel), chromedp.SendKeys(sel, "x"))
 		tb.waitFor("the error state", `document.querySelector('#carts').dataset.state === 'error'`)
 		msg := eval[string](tb, `document.querySelector('#carts [data-role=error]').textContent`)
-		if !strings.Contains(msg, "Unit 3") || !strings.Contains(msg, "population") {
-			t.Errorf("error message %q does not name the unit and field", msg)
+		// The devices page counts students, and its messages say so.
+		if !strings.Contains(msg, "Unit 3, students: ") || !strings.Contains(msg, "is not a number of students") || strings.Contains(msg, "population") {
+			t.Errorf("error message %q does not name the unit and field in the block's words", msg)
 		}
 		if eval[string](tb, `document.querySelector('#carts [data-field="units.2.population"]').getAttribute('aria-invalid')`) != "true" {
 			t.Error("the bad field is not marked invalid")

@@ -11,8 +11,8 @@ import (
 	"sort"
 	"strings"
 
+	"seatsmith/engine/format"
 	"seatsmith/engine/render"
-	"seatsmith/engine/report"
 	"seatsmith/site/calc"
 )
 
@@ -283,7 +283,7 @@ func renderPage(s *site, p *page, layout string, assets map[string]asset, inline
 			n := render.El("mark", "class", "sc-ref", "data-claim-ref", id, "data-holds", "true").AddText(text)
 			return template.HTML(render.HTML(n)), nil
 		},
-		"caution": func() string { return report.Caution },
+		"caution": func() string { return format.Caution },
 		"link": func(name string) string {
 			if inline != nil {
 				return ""
@@ -303,7 +303,7 @@ func renderPage(s *site, p *page, layout string, assets map[string]asset, inline
 			return nil, fmt.Errorf("%s: the page defines no %q template ({{define %q}}…{{end}})", p.File, need, need)
 		}
 	}
-	d := pageData{Name: p.Name, CSP: CSP, Caution: report.Caution, Engine: p.engine()}
+	d := pageData{Name: p.Name, CSP: CSP, Caution: format.Caution, Engine: p.engine()}
 	if inline != nil {
 		d.Offline = true
 		d.CSP = inline.csp

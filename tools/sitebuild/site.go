@@ -98,7 +98,7 @@ func loadPage(file string) (*page, []string, error) {
 			if !v.Holds {
 				says := c.Text
 				if says == "" {
-					says = c.Statement(b.Source.Scenario.Method, b.Source.Scenario.Seats)
+					says = b.Statement(c)
 				}
 				bad = append(bad, file+":"+strconv.Itoa(c.Line)+": calculator "+strconv.Quote(b.ID)+", claim "+strconv.Quote(c.ID)+
 					" does not hold: it says "+strconv.Quote(says)+", but "+v.Found)

@@ -75,14 +75,14 @@ func TestReadModule(t *testing.T) {
 
 func TestPackageOf(t *testing.T) {
 	paths := map[string]string{}
-	for _, p := range []string{"runtime", "math/big", "seatsmith/engine", "seatsmith/engine/report", "github.com/hack-pad/safejs", "github.com/hack-pad/safejs/internal/catch"} {
+	for _, p := range []string{"runtime", "math/big", "seatsmith/engine", "seatsmith/engine/format", "github.com/hack-pad/safejs", "github.com/hack-pad/safejs/internal/catch"} {
 		paths[mangle.ReplaceAllString(p, "_")] = p
 	}
 	for _, tc := range []struct{ name, want string }{
 		{"runtime.mallocgc", "runtime"},
 		{"math_big.nat.divRecursiveStep", "math/big"},
 		{"seatsmith_engine.__problem_.allot", "seatsmith/engine"},
-		{"seatsmith_engine_report.unitDoc", "seatsmith/engine/report"},
+		{"seatsmith_engine_format.unitDoc", "seatsmith/engine/format"},
 		{"github.com_hack_pad_safejs.Value.Get", "github.com/hack-pad/safejs"},
 		{"github.com_hack_pad_safejs_internal_catch.Try_go.shape.int_", "github.com/hack-pad/safejs/internal/catch"},
 		{"type_.eq.main.x", "(type)"},

@@ -5,11 +5,11 @@ import (
 	"errors"
 	"strconv"
 
+	"seatsmith/engine/format"
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
 	model "seatsmith/engine/projection"
 	"seatsmith/engine/render"
-	"seatsmith/engine/report"
 	"seatsmith/site/projection"
 )
 
@@ -21,7 +21,7 @@ import (
 //	                             and prepares its run, no draws made
 //	projectRun({id, draws: k}) → {done, draws}: makes the next k draws
 //	projectResult({id, block}) → {document, view, claims}: the projection
-//	                             document (report.Projection), the result
+//	                             document (format.ProjectionJSON), the result
 //	                             markup (projection.Output as a render
 //	                             tree, element ids prefixed by block) and
 //	                             each claim's {id, holds, found}
@@ -135,7 +135,7 @@ func projectResult(arg, _ *jsondoc.Value) (*jsondoc.Value, error) {
 		v := c.Check(s)
 		claims.Append(jsondoc.NewObject().Set("id", jsondoc.Str(c.ID)).Set("holds", jsondoc.Boolean(v.Holds)).Set("found", jsondoc.Str(v.Found)))
 	}
-	return jsondoc.NewObject().Set("document", report.Projection(s)).
+	return jsondoc.NewObject().Set("document", format.ProjectionJSON(s)).
 		Set("view", render.JSON(projection.Output(r.cfg, s, block))).Set("claims", claims), nil
 }
 

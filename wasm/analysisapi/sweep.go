@@ -5,9 +5,10 @@ import (
 	"strings"
 
 	"seatsmith/engine"
+	"seatsmith/engine/analysis"
+	"seatsmith/engine/format"
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 	"seatsmith/wasm/api"
 )
 
@@ -17,7 +18,7 @@ import (
 const MaxSweepCells = 1_000_000
 
 // sweep apportions a scenario at every house size of a range, by each of a
-// list of methods, and returns the sweep document (engine/report): every
+// list of methods, and returns the sweep document (engine/format): every
 // unit's seats at every size, the ties, and every Alabama paradox found,
 // the same content as "seatsmith sweep -format json". The argument is a
 // scenario with three more members:
@@ -78,11 +79,11 @@ func sweep(arg, _ *jsondoc.Value) (*jsondoc.Value, error) {
 			ms = append(ms, m)
 		}
 	}
-	set := report.SweepAll(src.Scenario, ms, from, to)
+	set := analysis.SweepAll(src.Scenario, ms, from, to)
 	if set.First() == nil {
 		return nil, set.Errors[0]
 	}
-	return set.Doc(src.Title), nil
+	return format.SweepJSON(src.Title, set), nil
 }
 
 // houseArg reads a house size: a whole number, or a string of digits, from

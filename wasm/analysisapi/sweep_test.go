@@ -6,9 +6,10 @@ import (
 	"testing"
 
 	"seatsmith/engine"
+	"seatsmith/engine/analysis"
+	"seatsmith/engine/format"
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 	"seatsmith/wasm/api"
 )
 
@@ -44,7 +45,7 @@ func TestSweepMatchesReport(t *testing.T) {
 	if got.Get("error") != nil {
 		t.Fatalf("sweep failed: %s", jsondoc.Marshal(got))
 	}
-	exp := report.SweepAll(src.Scenario, []engine.Method{engine.Hamilton, engine.Webster}, 30, 45).Doc(src.Title)
+	exp := format.SweepJSON(src.Title, analysis.SweepAll(src.Scenario, []engine.Method{engine.Hamilton, engine.Webster}, 30, 45))
 	if g, w := string(jsondoc.Marshal(got)), string(jsondoc.Marshal(exp)); g != w {
 		t.Errorf("got  %.300s\nwant %.300s", g, w)
 	}

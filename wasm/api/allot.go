@@ -5,13 +5,13 @@ import (
 	"unsafe"
 
 	"seatsmith/engine"
+	"seatsmith/engine/format"
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 )
 
 // allot apportions a scenario by its method and returns the allotment
-// document (engine/report), the content of "seatsmith allot -format
+// document (engine/format), the content of "seatsmith allot -format
 // json". opts may ask for the costly parts of the explanation, which are
 // otherwise left out beyond a small size and then listed in the
 // document's skipped member:
@@ -53,17 +53,17 @@ func allot(arg, opts *jsondoc.Value) (*jsondoc.Value, error) {
 	return jsondoc.RawJSON(allotmentJSON(src.Title, res, skipped)), nil
 }
 
-// allotmentJSON writes the allotment document of res (report.Allotment,
-// with the skipped member of report.WriteAllotJSON) as compact JSON. The
+// allotmentJSON writes the allotment document of res (format.AllotmentJSON,
+// with the skipped member the command-line tool writes) as compact JSON. The
 // units are laid out a chunk at a time, each chunk's tree made by
-// report.Allotment on a result holding just those units and dropped once
+// format.AllotmentJSON on a result holding just those units and dropped once
 // written, so that a hundred thousand units never stand as one tree.
-// It gives the content of report.WriteAllotJSON, without the indentation.
+// It gives the content of "seatsmith allot -format json", without the indentation.
 func allotmentJSON(title string, res *engine.Result, skipped []string) string {
 	head := *res
 	head.Units, head.Ties = nil, nil // the ties name units by index
-	doc := report.Allotment(title, &head)
-	doc.Set("ties", report.Ties(res))
+	doc := format.AllotmentJSON(title, &head)
+	doc.Set("ties", format.Ties(res))
 	if len(skipped) > 0 {
 		arr := jsondoc.NewArray()
 		for _, s := range skipped {
@@ -83,7 +83,7 @@ func allotmentJSON(title string, res *engine.Result, skipped []string) string {
 	part.Order, part.Beyond, part.Ties = nil, nil, nil
 	for i := 0; i < len(res.Units); i += chunk {
 		part.Units = res.Units[i:min(i+chunk, len(res.Units))]
-		for j, u := range report.Allotment("", &part).Get("units").Items {
+		for j, u := range format.AllotmentJSON("", &part).Get("units").Items {
 			if i+j > 0 {
 				b = append(b, ',')
 			}

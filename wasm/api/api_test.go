@@ -8,9 +8,10 @@ import (
 	"testing"
 
 	"seatsmith/engine"
+	"seatsmith/engine/analysis"
+	"seatsmith/engine/format"
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 )
 
 // fn returns the calculator module's function name.
@@ -128,8 +129,8 @@ func TestDocumentsMatchReport(t *testing.T) {
 		f    string
 		want *jsondoc.Value
 	}{
-		{"allot", report.Allotment(src.Title, res)},
-		{"compare", report.Compare(src.Scenario, nil, 0).Doc(src.Title)},
+		{"allot", format.AllotmentJSON(src.Title, res)},
+		{"compare", format.ComparisonJSON(src.Title, analysis.CompareMethods(src.Scenario, nil, 0))},
 	} {
 		got := string(jsondoc.Marshal(call(t, tc.f, doc, nil)))
 		if want := string(jsondoc.Marshal(tc.want)); got != want {

@@ -1,12 +1,13 @@
 package api
 
 import (
+	"seatsmith/engine/analysis"
+	"seatsmith/engine/format"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 )
 
 // compare apportions a scenario by every method and returns the comparison
-// document (engine/report), the same content as "seatsmith compare -format
+// document (engine/format), the same content as "seatsmith compare -format
 // json", for at most MaxCompareUnits units. The scenario's method, if any,
 // is ignored. A method that cannot apportion the scenario carries its
 // error in the document; when none can, the scenario itself is at fault
@@ -16,9 +17,9 @@ func compare(arg, _ *jsondoc.Value) (*jsondoc.Value, error) {
 	if err != nil {
 		return nil, err
 	}
-	c := report.Compare(src.Scenario, nil, 0)
+	c := analysis.CompareMethods(src.Scenario, nil, 0)
 	if c.First() == nil {
 		return nil, c.Errors[0]
 	}
-	return c.Doc(src.Title), nil
+	return format.ComparisonJSON(src.Title, c), nil
 }

@@ -8,8 +8,8 @@ import (
 
 	"github.com/hack-pad/safejs"
 
+	"seatsmith/engine/format"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 )
 
 // Serve installs the API object on globalThis.seatsmith, with the
@@ -47,7 +47,7 @@ func install(fns []Function) error {
 	if err := obj.Set("version", Version); err != nil {
 		return err
 	}
-	if err := obj.Set("caution", report.Caution); err != nil {
+	if err := obj.Set("caution", format.Caution); err != nil {
 		return err
 	}
 	for _, f := range fns {

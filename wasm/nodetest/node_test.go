@@ -17,9 +17,10 @@ import (
 	"time"
 
 	"seatsmith/engine"
+	"seatsmith/engine/analysis"
+	"seatsmith/engine/format"
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 	"seatsmith/wasm/wasmbuild"
 )
 
@@ -68,13 +69,13 @@ func native(fn string, arg *jsondoc.Value) (*jsondoc.Value, error) {
 			if err != nil {
 				return nil, err
 			}
-			return report.Allotment(src.Title, res), nil
+			return format.AllotmentJSON(src.Title, res), nil
 		}
-		c := report.Compare(src.Scenario, nil, 0)
+		c := analysis.CompareMethods(src.Scenario, nil, 0)
 		if c.First() == nil {
 			return nil, c.Errors[0]
 		}
-		return c.Doc(src.Title), nil
+		return format.ComparisonJSON(src.Title, c), nil
 	case "readCSV":
 		if arg.Kind != jsondoc.String {
 			return nil, &input.Error{Msg: "not a string"}
@@ -451,8 +452,8 @@ func checkShape(t *testing.T, shape *jsondoc.Value) {
 	if v := shape.Get("version"); v == nil || v.Text != "1" {
 		t.Errorf("seatsmith.version = %s, want 1", jsondoc.Marshal(v))
 	}
-	if c := shape.Get("caution"); c == nil || c.Text != report.Caution {
-		t.Errorf("seatsmith.caution = %s, want report.Caution", jsondoc.Marshal(c))
+	if c := shape.Get("caution"); c == nil || c.Text != format.Caution {
+		t.Errorf("seatsmith.caution = %s, want format.Caution", jsondoc.Marshal(c))
 	}
 	if f := shape.Get("frozen"); f == nil || !f.Bool {
 		t.Error("seatsmith is not frozen")

@@ -12,8 +12,8 @@ import (
 	"testing"
 	"time"
 
+	"seatsmith/engine/format"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/engine/report"
 	"seatsmith/site/projection"
 	"seatsmith/wasm/wasmbuild"
 )
@@ -121,7 +121,7 @@ func sameJSON(path string, a, b *jsondoc.Value) string {
 
 // TestProjectionUnderNode runs the projection block's study in the
 // WebAssembly engine, in chunks as the page's worker makes them, and
-// checks that its projection document equals the native report.Projection
+// checks that its projection document equals the native format.ProjectionJSON
 // of the same block with the same seed, draw for draw.
 func TestProjectionUnderNode(t *testing.T) {
 	type study struct {
@@ -144,7 +144,7 @@ func TestProjectionUnderNode(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		want := report.Projection(s)
+		want := format.ProjectionJSON(s)
 		doc := got[i].Get("document")
 		if doc == nil {
 			t.Fatalf("study %d: the engine gave %s", i, jsondoc.Marshal(got[i]))

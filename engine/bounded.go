@@ -1,0 +1,379 @@
+package engine
+
+import "slices"
+
+// This file finds a margin under a largest-remainder method when some
+// units have a minimum or a maximum (or when the Droop quota could leave
+// more seats over than units with people): the passes that fix units at a
+// bound, and so the units and seats of the pass that decides unit i's
+// seats, change with its population. The changes are taken in stretches
+// over which the passes provably stay what they are, and inside each
+// stretch the seats of unit i come from counting claims in its final pass
+// (claims.go).
+//
+// What the procedure decides in a pass depends on the population only
+// through the whole parts, the quota and which remainders rank above
+// which. While only unit i's population moves, the whole parts and the
+// quota move monotonically, and with them fixed every remainder is linear
+// in the population (the numerator p·S - f·T over the pass's total T, or
+// p - f·Q under a fixed Droop quota). So if at both ends of a stretch the
+// whole parts and the quota are the same and a set of remainders ranks
+// above another, the smallest of the first set less the largest of the
+// second is a concave function of the population, positive at both ends:
+// the first set ranks above the second all along. Hence two runs of the
+// procedure at the ends of a stretch prove it (certify):
+//
+//   - every pass has the same units, seats and whole parts at both ends;
+//   - in every pass, either the same remainders lie above the cut value,
+//     equal to it and below it at both ends (it is the same pass all
+//     along), or no unit's remainder seat decides a bound: every unit
+//     whose seat decides one (it needs the seat to reach its minimum, or is
+//     at its maximum) ranks above every unit without a seat if it has one,
+//     and below every unit with one if it has none, at both ends. A pass's remainder seats then change only among units they
+//     decide nothing for: it fixes the same units at their bounds, and the
+//     next pass has the same units and seats. Inside such a stretch unit
+//     i's seats change only with its remainder seat in the last pass (a
+//     unit that needs, or is at its maximum, has none to change), and are
+//     counted.
+//
+// Under the Droop quota the quota may differ at the ends; every remainder
+// is then linear in the population and the quota together, and the bounds
+// are checked at the four corners of the two (cornersHold).
+//
+// A stretch as long as it can be proven is found by galloping and
+// bisection from where a whole part is next due to change; the next
+// stretch starts where the passes change.
+
+// boundedStretch finds the least change in [x, e] at which unit i's seats
+// meet the wish of dir, over which the units taking part stay the same.
+func (w *marginWorker) boundedStretch(i, a, dir int, x, e uint64) (uint64, bool) {
+	meets := func(s int) bool { return s >= 0 && ((dir > 0 && s > a) || (dir < 0 && s < a)) }
+	for lo := x; lo <= e; {
+		s := w.traceAt(i, dir, lo, 0)
+		if meets(s) {
+			return lo, true
+		}
+		if lo == e {
+			return 0, false
+		}
+		// The longest stretch from lo the two runs prove, looked for from
+		// where a whole part is next due to change.
+		kind := certifyNone
+		last := lo
+		hi, found := leastWhere(lo+1, e, w.nextWhole(i, dir, lo), func(y uint64) bool {
+			w.traceAt(i, dir, y, 1)
+			k := w.certify(i)
+			if k == certifyNone {
+				return true
+			}
+			last, kind = y, k
+			return false
+		})
+		if !found {
+			hi = e + 1
+		}
+		end := hi - 1 // the stretch [lo, end] is proven
+		if last != end {
+			w.traceAt(i, dir, end, 1)
+			kind = w.certify(i)
+		}
+		if kind == certifyPasses && end > lo {
+			if got, ok := w.finalSearch(i, a, dir, lo+1, end); ok {
+				return got, true
+			}
+		}
+		lo = end + 1
+	}
+	return 0, false
+}
+
+// nextWhole returns the least change after lo at which a whole part of a
+// pass that unit i takes part in, as w.tr[0] records them at lo, is due to
+// change, if the passes stayed as they are; lo+1 when it cannot tell. Only
+// a guess where to look: no result depends on it.
+func (w *marginWorker) nextWhole(i, dir int, lo uint64) uint64 {
+	t := &w.tr[0]
+	next := ^uint64(0)
+	p := w.trPop[0]
+	for k := 0; k < t.n; k++ {
+		x := &t.passes[k]
+		pos := slices.Index(x.units, i)
+		if pos < 0 || x.seats == 0 {
+			continue
+		}
+		var tot u128
+		for _, u := range x.units {
+			if u == i {
+				tot, _ = tot.add64(p)
+			} else {
+				tot, _ = tot.add64(w.q.pops[u])
+			}
+		}
+		if tot.hi != 0 || w.pr.m != Hamilton {
+			return lo + 1
+		}
+		next = min(next, hareWholeChange(x, w.q.pops, pos, p, tot.lo, dir))
+	}
+	if next == ^uint64(0) || next > ^uint64(0)-lo {
+		return lo + 1
+	}
+	return lo + max(next, 1)
+}
+
+// hareWholeChange returns after how many more people of change (dir) a
+// whole part floor(p_u·S/T) of the Hamilton pass x changes, unit i (at
+// position pos) moving from population p, and with it the total from t.
+func hareWholeChange(x *lrPassTrace, pops []uint64, pos int, p, t uint64, dir int) uint64 {
+	s := uint64(x.seats)
+	best := ^uint64(0)
+	for j, u := range x.units {
+		f := uint64(x.whole[j])
+		var d u128
+		switch {
+		case j == pos && dir > 0:
+			// Unit i's rises to f+1 once (p+d)·S >= (f+1)·(t+d).
+			if s <= f+1 {
+				continue
+			}
+			num := mul128(f+1, t).sub(mul128(p, s))
+			q, r := num.div64(s - f - 1)
+			if d = q; r != 0 {
+				d = q.plus(1)
+			}
+		case j == pos:
+			// Unit i's falls below f once (p-d)·S < f·(t-d).
+			if f == 0 || s <= f {
+				continue
+			}
+			q, _ := mul128(p, s).sub(mul128(f, t)).div64(s - f)
+			d = q.plus(1)
+		case dir > 0:
+			// Another's falls below f once t+d > p_u·S/f.
+			if f == 0 {
+				continue
+			}
+			q, _ := mul128(pops[u], s).div64(f)
+			d = q.plus(1).sub(u128{0, t})
+		default:
+			// Another's rises to f+1 once t-d <= p_u·S/(f+1).
+			q, _ := mul128(pops[u], s).div64(f + 1)
+			d = u128{0, t}.sub(q)
+		}
+		if d.hi == 0 {
+			best = min(best, d.lo)
+		}
+	}
+	return best
+}
+
+// Kinds of stretch the two runs prove.
+const (
+	certifyNone   = iota // nothing: the passes may change inside
+	certifySame          // the whole run, unit i's seats included
+	certifyPasses        // the passes; unit i's remainder seat may change
+)
+
+// traceAt runs the procedure with unit i's population after the change y,
+// recording it in w.tr[k], and returns unit i's outright seats (-1 when
+// there is no apportionment).
+func (w *marginWorker) traceAt(i, dir int, y uint64, k int) int {
+	w.setPop(i, w.popAt(i, dir, y))
+	w.trPop[k] = w.q.pops[i]
+	t := &w.tr[k]
+	t.reset()
+	if w.q.checkFeasible() != nil {
+		t.failed = true
+		return -1
+	}
+	w.q.trace = t
+	o, err := w.q.remainderCut()
+	w.q.trace = nil
+	if err != nil {
+		return -1
+	}
+	return o.seats[i]
+}
+
+// certify compares the runs in w.tr[0] and w.tr[1] (see the top of the
+// file).
+func (w *marginWorker) certify(i int) int {
+	x, y := &w.tr[0], &w.tr[1]
+	if x.failed != y.failed || x.n != y.n {
+		return certifyNone
+	}
+	same := true
+	for k := 0; k < x.n; k++ {
+		a, b := &x.passes[k], &y.passes[k]
+		if a.seats != b.seats || a.extra != b.extra ||
+			!slices.Equal(a.units, b.units) || !slices.Equal(a.whole, b.whole) {
+			return certifyNone
+		}
+		if len(a.place) == 0 {
+			continue // a pass that failed on its whole parts: they decide
+		}
+		if a.quota != b.quota {
+			// The Droop quota moves with the total between the ends.
+			if !w.cornersHold(i, a, b) {
+				return certifyNone
+			}
+			same = false
+			continue
+		}
+		if slices.Equal(a.place, b.place) && slices.Equal(a.win, b.win) {
+			continue
+		}
+		if !w.boundsHold(a, a.rems) || !w.boundsHold(a, b.rems) {
+			return certifyNone
+		}
+		same = false
+	}
+	if same || x.failed {
+		// Unchanged; or failing all along, for the same reason: why a run
+		// fails (whole parts, units fixed at their bounds) is proven the
+		// same.
+		return certifySame
+	}
+	return certifyPasses
+}
+
+// boundsHold reports whether, in the pass a, with the remainders rems, no
+// unit's remainder seat decides whether the pass fixes it at a bound:
+// every unit for which it does (one that needs the seat to reach its
+// minimum, or is at its maximum) and has the seat ranks above every unit
+// without one, and every such unit without it ranks below every unit with
+// one (a deciding which units have one).
+func (w *marginWorker) boundsHold(a *lrPassTrace, rems []u128) bool {
+	pr := w.pr
+	var minWin, maxLose, minDecWin, maxDecLose u128
+	hasWin, hasLose, hasDecWin, hasDecLose := false, false, false, false
+	for j, u := range a.units {
+		if a.place[j] == 3 {
+			continue
+		}
+		r := rems[j]
+		decides := pr.remainderRole(u, a.whole[j]) != seatFree
+		if a.win[j] {
+			if !hasWin || r.cmp(minWin) < 0 {
+				minWin, hasWin = r, true
+			}
+			if decides && (!hasDecWin || r.cmp(minDecWin) < 0) {
+				minDecWin, hasDecWin = r, true
+			}
+		} else {
+			if !hasLose || r.cmp(maxLose) > 0 {
+				maxLose, hasLose = r, true
+			}
+			if decides && (!hasDecLose || r.cmp(maxDecLose) > 0) {
+				maxDecLose, hasDecLose = r, true
+			}
+		}
+	}
+	return !(hasDecWin && hasLose && minDecWin.cmp(maxLose) <= 0) && !(hasDecLose && hasWin && maxDecLose.cmp(minWin) >= 0)
+}
+
+// cornersHold proves a pass of the Droop quota the same all along when the
+// quota differs at the ends (a and b): it rises with the total, a person at
+// a time, as unit i's population moves. With the whole parts fixed, every
+// remainder p_u - f_u·Q is linear in the population of unit i and in the
+// quota, so the smallest of one set of remainders less the largest of
+// another is concave in both, and positive over the rectangle of
+// populations and quotas between the ends if it is at its four corners.
+// There the bounds must hold as boundsHold has them, and unit i's whole
+// part must be the same where it is least and where greatest.
+func (w *marginWorker) cornersHold(i int, a, b *lrPassTrace) bool {
+	p0, p1 := min(w.trPop[0], w.trPop[1]), max(w.trPop[0], w.trPop[1])
+	q0, q1 := a.quota, b.quota
+	if q0.cmp(q1) > 0 {
+		q0, q1 = q1, q0
+	}
+	pos := slices.Index(a.units, i)
+	if pos < 0 {
+		return false
+	}
+	f := a.whole[pos]
+	if wholeOf(p0, q1) != f || wholeOf(p1, q0) != f {
+		return false
+	}
+	for _, p := range [2]uint64{p0, p1} {
+		for _, q := range [2]u128{q0, q1} {
+			if !w.boundsHold(a, w.cornerRems(a, i, p, q)) {
+				return false
+			}
+		}
+	}
+	return true
+}
+
+// wholeOf is floor(p/q).
+func wholeOf(p uint64, q u128) int {
+	if q.hi != 0 || q.lo == 0 {
+		return 0
+	}
+	return int(p / q.lo)
+}
+
+// cornerRems returns the remainders p_u - f_u·q of pass a's units, unit i
+// at population p, in scratch.
+func (w *marginWorker) cornerRems(a *lrPassTrace, i int, p uint64, q u128) []u128 {
+	w.rems = resize(w.rems, len(a.units))
+	for j, u := range a.units {
+		pu := w.q.pops[u]
+		if u == i {
+			pu = p
+		}
+		fq, ok := q.mulSmall(uint64(a.whole[j]))
+		if !ok || fq.cmp(u128{0, pu}) > 0 {
+			fq = u128{0, pu}
+		}
+		w.rems[j] = u128{0, pu}.sub(fq)
+	}
+	return w.rems
+}
+
+// finalSearch finds the least change in [lo, hi] at which unit i's seats
+// meet the wish of dir, where the passes stay as w.tr[0] records them and
+// only the remainder seats of the last pass change: by counting claims in
+// that pass.
+func (w *marginWorker) finalSearch(i, a, dir int, lo, hi uint64) (uint64, bool) {
+	pr := w.pr
+	t := &w.tr[0]
+	f := &t.passes[t.n-1]
+	pos := slices.Index(f.units, i)
+	if pos < 0 {
+		return 0, false // unit i is fixed at a bound all along
+	}
+	if pr.remainderRole(i, f.whole[pos]) != seatFree {
+		return 0, false // its remainder seat is given, or withheld, all along
+	}
+	if fw := f.whole[pos]; fw+1 < pr.min[i] || fw > pr.max[i] {
+		// The last pass fixed every unit at a bound (there is no final
+		// pass): unit i is held at its bound all along, with its remainder
+		// seat or without.
+		return 0, false
+	}
+	c := &w.pass
+	*c = claimPass{m: pr.m, pops: w.q.pops, units: f.units, i: i, seats: f.seats, sc: pow10(pr.places)}
+	for _, u := range f.units {
+		if u != i {
+			c.rest, _ = c.rest.add64(w.q.pops[u])
+		}
+	}
+	if cap(w.group) < pr.n() {
+		w.group, w.floor = make([]int8, pr.n()), make([]int, pr.n())
+	}
+	c.group, c.floor = w.group[:pr.n()], w.floor[:pr.n()]
+	for j, u := range f.units {
+		c.floor[u] = f.whole[j]
+		c.group[u] = pr.remainderRole(u, f.whole[j])
+	}
+	// Unit i's seats all come from this pass, as it takes part in it.
+	s, k := c.wish(a, dir)
+	if s < 0 {
+		return 0, false
+	}
+	ok := func(y uint64) bool { return c.meets(w.popAt(i, dir, y), s, k, dir) }
+	if pr.m == Droop {
+		return w.droopSearch(c, i, dir, lo, hi, lo, ok, func(a, b uint64) (uint64, bool) { return leastWhere(a, b, a, ok) })
+	}
+	return leastWhere(lo, hi, lo, ok)
+}
