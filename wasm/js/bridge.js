@@ -33,9 +33,10 @@
 // time), "live" (the engine has run here) or "error" (with the message
 // shown), and data-busy="true" while the engine works for it. The edited
 // scenario is kept in the URL fragment as #ID=BASE64URL(JSON), written
-// once the reader pauses, so a link reproduces the same view. The page's
-// performance timeline gets the mark "seatsmith-live" when the first
-// calculator goes live.
+// once the reader pauses, so a link reproduces the same view. When the
+// engine's first answer has been put in place (the first calculator goes
+// live), the page's performance timeline gets the mark "seatsmith-live"
+// and the html element data-seatsmith-live="true".
 //
 // Other scripts may import findBlocks (where the blocks are), Calculator
 // (one block made live inside its root), engineFor (the page's engine) and
@@ -752,6 +753,7 @@ export class Calculator {
     if (!wentLive && r.state === 'live') {
       wentLive = true;
       performance.mark('seatsmith-live');
+      document.documentElement.setAttribute('data-seatsmith-live', 'true');
     }
     for (const el of this.root.querySelectorAll('[aria-invalid]')) {
       el.removeAttribute('aria-invalid');
