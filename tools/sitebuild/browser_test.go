@@ -28,9 +28,10 @@ import (
 )
 
 var (
-	builtOnce sync.Once
-	builtDir  string
-	builtErr  error
+	builtOnce  sync.Once
+	builtDir   string
+	builtFiles []string // the files the build wrote (tests add pages beside them)
+	builtErr   error
 )
 
 // builtSite builds the real site once for every browser test.
@@ -48,7 +49,10 @@ func builtSite(t testing.TB) string {
 			return
 		}
 		builtDir = filepath.Join(dir, "site")
-		_, builtErr = Build(Options{Src: siteSrc, Out: builtDir, Engines: eng})
+		var st *Stats
+		if st, builtErr = Build(Options{Src: siteSrc, Out: builtDir, Engines: eng}); builtErr == nil {
+			builtFiles = st.Files
+		}
 	})
 	if builtErr != nil {
 		t.Fatalf("building the site: %v", builtErr)
