@@ -35,8 +35,7 @@
 // scenario is kept in the URL fragment as #ID=BASE64URL(JSON), written
 // once the reader pauses, so a link reproduces the same view. When the
 // engine's first answer has been put in place (the first calculator goes
-// live), the page's performance timeline gets the mark "seatsmith-live"
-// and the html element data-seatsmith-live="true".
+// live), the page's performance timeline gets the mark "seatsmith-live".
 //
 // Other scripts may import findBlocks (where the blocks are), Calculator
 // (one block made live inside its root), engineFor (the page's engine) and
@@ -753,7 +752,6 @@ export class Calculator {
     if (!wentLive && r.state === 'live') {
       wentLive = true;
       performance.mark('seatsmith-live');
-      document.documentElement.setAttribute('data-seatsmith-live', 'true');
     }
     for (const el of this.root.querySelectorAll('[aria-invalid]')) {
       el.removeAttribute('aria-invalid');
@@ -820,6 +818,9 @@ export class Calculator {
     const f = el.getAttribute && el.getAttribute('data-field');
     if (!f || f === 'csv') return;
     if (!this.setField(f, el.value)) return;
+    // An answer to a request sent before this edit is stale: the scenario
+    // it carries back would undo the edit.
+    this.ticket++;
     clearTimeout(this.timer);
     clearTimeout(this.marginTimer);
     if (committed || el.tagName === 'SELECT') this.refresh(false);
