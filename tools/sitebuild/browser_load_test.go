@@ -127,6 +127,9 @@ func TestBrowserLoading(t *testing.T) {
 			if eval[string](tb, `window.__wasmLoads.join(',')`) == tc.loads {
 				t.Fatal("the engine was compiled before it arrived")
 			}
+			// Nothing waits for the engine to paint: the first contentful
+			// paint has happened while the engine is held back.
+			tb.waitFor("the first contentful paint", `performance.getEntriesByType('paint').some((e) => e.name === 'first-contentful-paint')`)
 			gate.release()
 			tb.waitFor("live", allLive)
 			sameRows(t, "live", tb.rows(), want)
@@ -135,6 +138,19 @@ func TestBrowserLoading(t *testing.T) {
 			}
 			if tc.mime == "" {
 				tb.checkClean(srv.URL + "/")
+				// The page asked for the engine once: the bridge's fetch
+				// took the preloaded answer.
+				tb.mu.Lock()
+				n := 0
+				for _, r := range tb.requests {
+					if strings.HasSuffix(r, ".wasm") {
+						n++
+					}
+				}
+				tb.mu.Unlock()
+				if n != 1 {
+					t.Errorf("the engine was requested %d times", n)
+				}
 			}
 		})
 	}

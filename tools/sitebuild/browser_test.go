@@ -28,9 +28,10 @@ import (
 )
 
 var (
-	builtOnce sync.Once
-	builtDir  string
-	builtErr  error
+	builtOnce  sync.Once
+	builtDir   string
+	builtFiles []string // the files the build wrote (tests add pages beside them)
+	builtErr   error
 )
 
 // builtSite builds the real site once for every browser test.
@@ -48,7 +49,10 @@ func builtSite(t testing.TB) string {
 			return
 		}
 		builtDir = filepath.Join(dir, "site")
-		_, builtErr = Build(Options{Src: siteSrc, Out: builtDir, Engines: eng})
+		var st *Stats
+		if st, builtErr = Build(Options{Src: siteSrc, Out: builtDir, Engines: eng}); builtErr == nil {
+			builtFiles = st.Files
+		}
 	})
 	if builtErr != nil {
 		t.Fatalf("building the site: %v", builtErr)
@@ -56,12 +60,18 @@ func builtSite(t testing.TB) string {
 	return builtDir
 }
 
+// chromiumExe is the Chromium the browser tests ask for first:
+// SEATSMITH_CHROMIUM, or /usr/bin/chromium.
+func chromiumExe() string {
+	if p := os.Getenv("SEATSMITH_CHROMIUM"); p != "" {
+		return p
+	}
+	return "/usr/bin/chromium"
+}
+
 func chromiumPath(t testing.TB) string {
 	t.Helper()
-	p := os.Getenv("SEATSMITH_CHROMIUM")
-	if p == "" {
-		p = "/usr/bin/chromium"
-	}
+	p := chromiumExe()
 	if _, err := os.Stat(p); err != nil {
 		if lp, lerr := exec.LookPath("chromium"); lerr == nil {
 			return lp
@@ -117,7 +127,14 @@ type tab struct {
 	mu       sync.Mutex
 	console  []chromedp.ConsoleMessage
 	requests []string
+	// engineEncoding is the Content-Encoding of the last WebAssembly
+	// module the page received.
+	engineEncoding string
+	cancel         func()
 }
+
+// close ends the tab before the test does.
+func (tb *tab) close() { tb.cancel() }
 
 func newTab(t testing.TB, parent context.Context) *tab {
 	t.Helper()
@@ -130,9 +147,28 @@ func newTabFor(t testing.TB, parent context.Context, d time.Duration) *tab {
 	ctx, cancel := chromedp.NewContext(parent)
 	ctx, tcancel := context.WithTimeout(ctx, d)
 	t.Cleanup(func() { tcancel(); cancel() })
-	tb := &tab{t: t, ctx: ctx}
+	tb := &tab{t: t, ctx: ctx, cancel: func() { tcancel(); cancel() }}
 	msgs := chromedp.Console(ctx)
 	reqs := chromedp.Events(ctx, network.RequestWillBeSent)
+	resps := chromedp.Events(ctx, network.ResponseReceived)
+	go func() {
+		for ev, err := range resps {
+			if err != nil {
+				return
+			}
+			if strings.HasSuffix(ev.Response.URL, ".wasm") {
+				enc := ""
+				for k, v := range ev.Response.Headers {
+					if strings.EqualFold(k, "Content-Encoding") {
+						enc, _ = v.(string)
+					}
+				}
+				tb.mu.Lock()
+				tb.engineEncoding = enc
+				tb.mu.Unlock()
+			}
+		}
+	}()
 	go func() {
 		for m, err := range msgs {
 			if err != nil {
@@ -172,10 +208,16 @@ func eval[T any](tb *tab, js string) T {
 	return v
 }
 
-// waitFor polls a JavaScript condition.
+// waitFor polls a JavaScript condition for at most 20 seconds.
 func (tb *tab) waitFor(what, js string) {
 	tb.t.Helper()
-	if _, err := chromedp.Run(tb.ctx, chromedp.Poll[bool](js, chromedp.WithPollingTimeout(20*time.Second), chromedp.WithPollingInterval(50*time.Millisecond))); err != nil {
+	tb.waitForWithin(what, js, 20*time.Second)
+}
+
+// waitForWithin polls a JavaScript condition for at most d.
+func (tb *tab) waitForWithin(what, js string, d time.Duration) {
+	tb.t.Helper()
+	if _, err := chromedp.Run(tb.ctx, chromedp.Poll[bool](js, chromedp.WithPollingTimeout(d), chromedp.WithPollingInterval(50*time.Millisecond))); err != nil {
 		state := eval[string](tb, `JSON.stringify([...document.querySelectorAll('[data-seatsmith]')].map(e => [e.id, e.dataset.state, (e.querySelector('[role=alert]')||{}).textContent]))`)
 		tb.t.Fatalf("waiting for %s: %v (calculators: %s; console: %v)", what, err, state, tb.messages())
 	}

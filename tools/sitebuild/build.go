@@ -197,6 +197,7 @@ func Build(opt Options) (*Stats, error) {
 		names = append(names, p.Name)
 	}
 	files[headersFile] = []byte(headersText(names, offlineCSP))
+	addCompressed(files)
 	if err := writeFiles(opt.Out, files); err != nil {
 		return nil, err
 	}
@@ -215,12 +216,20 @@ func headersText(pages []string, offlineCSP string) string {
 	var b strings.Builder
 	b.WriteString("# HTTP headers for this site (sitebuild serve applies them; a host that reads\n" +
 		"# a path-pattern headers file can use it as it is).\n" +
+		"#\n" +
+		"# Besides these, a host should send .wasm files as application/wasm (the\n" +
+		"# engine then compiles while it downloads), and may send a file's NAME.br\n" +
+		"# or NAME.gz twin, written beside each compressible file, to a client whose\n" +
+		"# Accept-Encoding allows it, with Content-Encoding: br or gzip, the\n" +
+		"# original file's Content-Type and Vary: Accept-Encoding.\n" +
 		"/*\n" +
 		"  X-Content-Type-Options: nosniff\n" +
 		"  Referrer-Policy: no-referrer\n" +
 		"  Cross-Origin-Opener-Policy: same-origin\n")
+	// Pages are checked with the server on every visit (they name the
+	// current fingerprinted assets); assets never change under their name.
 	page := func(path, csp string) {
-		b.WriteString(path + "\n  Content-Security-Policy: " + csp + "; frame-ancestors 'none'\n")
+		b.WriteString(path + "\n  Content-Security-Policy: " + csp + "; frame-ancestors 'none'\n  Cache-Control: no-cache\n")
 	}
 	page("/", CSP)
 	for _, p := range pages {
@@ -228,7 +237,8 @@ func headersText(pages []string, offlineCSP string) string {
 	}
 	page("/offline.html", offlineCSP)
 	b.WriteString("/assets/*\n  Cache-Control: public, max-age=31536000, immutable\n" +
-		"/data/*\n  Cache-Control: public, max-age=31536000, immutable\n")
+		"/data/*\n  Cache-Control: public, max-age=31536000, immutable\n" +
+		"/embed/*\n  Cache-Control: public, max-age=3600\n")
 	return b.String()
 }
 

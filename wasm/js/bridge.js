@@ -33,9 +33,9 @@
 // time), "live" (the engine has run here) or "error" (with the message
 // shown), and data-busy="true" while the engine works for it. The edited
 // scenario is kept in the URL fragment as #ID=BASE64URL(JSON), written
-// once the reader pauses, so a link reproduces the same view. The page's
-// performance timeline gets the mark "seatsmith-live" when the first
-// calculator goes live.
+// once the reader pauses, so a link reproduces the same view. When the
+// engine's first answer has been put in place (the first calculator goes
+// live), the page's performance timeline gets the mark "seatsmith-live".
 //
 // Other scripts may import findBlocks (where the blocks are), Calculator
 // (one block made live inside its root), engineFor (the page's engine) and
@@ -818,6 +818,9 @@ export class Calculator {
     const f = el.getAttribute && el.getAttribute('data-field');
     if (!f || f === 'csv') return;
     if (!this.setField(f, el.value)) return;
+    // An answer to a request sent before this edit is stale: the scenario
+    // it carries back would undo the edit.
+    this.ticket++;
     clearTimeout(this.timer);
     clearTimeout(this.marginTimer);
     if (committed || el.tagName === 'SELECT') this.refresh(false);

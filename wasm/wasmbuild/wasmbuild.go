@@ -84,11 +84,17 @@ func Build(outDir string) (wasmPath, execJSPath string, err error) {
 // as ".") for js/wasm with the release flags and writes the module to out.
 // dir is the go command's working directory; "" means the current one.
 func Compile(dir, pkg, out string) error {
+	return CompileWith(dir, pkg, out, Flags)
+}
+
+// CompileWith is Compile with other go build flags than the release
+// flags: for measurements that compare builds.
+func CompileWith(dir, pkg, out string, flags []string) error {
 	out, err := filepath.Abs(out)
 	if err != nil {
 		return err
 	}
-	args := append([]string{"build"}, Flags...)
+	args := append([]string{"build"}, flags...)
 	args = append(args, "-o", out, pkg)
 	cmd := exec.Command("go", args...)
 	cmd.Dir = dir
