@@ -1,6 +1,7 @@
 package jsondoc
 
 import (
+	"strconv"
 	"strings"
 	"testing"
 )
@@ -112,5 +113,43 @@ func TestRawJSON(t *testing.T) {
 	}
 	if Raw.String() != "raw JSON" {
 		t.Errorf("Raw.String() = %q", Raw.String())
+	}
+}
+
+func TestParseLimit(t *testing.T) {
+	for _, tc := range []struct {
+		text string
+		max  int
+		ok   bool
+	}{
+		{`[1, 2, 3]`, 4, true},
+		{`[1, 2, 3]`, 3, false},
+		{`{"a": [true, null], "b": "x"}`, 5, true},
+		{`{"a": [true, null], "b": "x"}`, 4, false},
+		{`[` + strings.Repeat(`[],`, 1000) + `[]]`, 1002, true},
+		{`[` + strings.Repeat(`[],`, 1000) + `[]]`, 1001, false},
+	} {
+		_, err := ParseLimit([]byte(tc.text), tc.max)
+		if (err == nil) != tc.ok {
+			t.Errorf("ParseLimit(%.40s, %d) = %v", tc.text, tc.max, err)
+		}
+		if err != nil && !strings.Contains(err.Error(), "values, the limit") {
+			t.Errorf("ParseLimit(%.40s, %d): %v", tc.text, tc.max, err)
+		}
+	}
+}
+
+// Duplicate keys are found in objects of any size, in linear time.
+func TestParseDuplicateKeys(t *testing.T) {
+	var b strings.Builder
+	b.WriteString("{")
+	for i := 0; i < 100_000; i++ {
+		b.WriteString(`"k` + strconv.Itoa(i) + `": 1, `)
+	}
+	if _, err := Parse([]byte(b.String() + `"last": 2}`)); err != nil {
+		t.Fatal(err)
+	}
+	if _, err := Parse([]byte(b.String() + `"k99999": 2}`)); err == nil || !strings.Contains(err.Error(), "appears twice") {
+		t.Fatalf("a repeated key: %v", err)
 	}
 }

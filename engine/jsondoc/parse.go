@@ -23,12 +23,25 @@ type parser struct {
 	s          []byte
 	i          int
 	line, lcol int // current line and the offset where it starts
+	max, n     int // the most values allowed (0: any number) and those read
 }
 
 // Parse reads one JSON document. A byte-order mark at the start is skipped.
 // Duplicate object keys are refused.
 func Parse(data []byte) (*Value, error) {
-	p := &parser{s: data, line: 1}
+	return parse(data, 0)
+}
+
+// ParseLimit is Parse for text from an untrusted source: it refuses a
+// document of more than max values (every number, string, literal, array
+// and object counts one), which bounds the memory the tree takes, about a
+// hundred bytes a value, whatever the text holds.
+func ParseLimit(data []byte, max int) (*Value, error) {
+	return parse(data, max)
+}
+
+func parse(data []byte, max int) (*Value, error) {
+	p := &parser{s: data, line: 1, max: max}
 	if len(data) >= 3 && data[0] == 0xEF && data[1] == 0xBB && data[2] == 0xBF {
 		p.i = 3
 		p.lcol = 3
@@ -67,6 +80,9 @@ func (p *parser) value(depth int) (*Value, error) {
 	if depth > MaxDepth {
 		return nil, p.errf("nested too deeply")
 	}
+	if p.n++; p.max > 0 && p.n > p.max {
+		return nil, p.errf("more than " + strconv.Itoa(p.max) + " values, the limit")
+	}
 	if p.i >= len(p.s) {
 		return nil, p.errf("unexpected end of input")
 	}
@@ -104,6 +120,7 @@ func (p *parser) lit(w string) bool {
 
 func (p *parser) object(depth int) (*Value, error) {
 	v := &Value{Kind: Object, Line: p.line}
+	var keys map[string]bool // the keys, once there are many (a linear search each would be quadratic)
 	p.i++
 	p.space()
 	if p.i < len(p.s) && p.s[p.i] == '}' {
@@ -119,8 +136,21 @@ func (p *parser) object(depth int) (*Value, error) {
 		if err != nil {
 			return nil, err
 		}
-		if v.Get(k) != nil {
-			return nil, p.errf("member " + strconv.Quote(k) + " appears twice")
+		if len(v.Fields) < 16 {
+			if v.Get(k) != nil {
+				return nil, p.errf("member " + strconv.Quote(k) + " appears twice")
+			}
+		} else {
+			if keys == nil {
+				keys = make(map[string]bool, 2*len(v.Fields))
+				for _, f := range v.Fields {
+					keys[f.Key] = true
+				}
+			}
+			if keys[k] {
+				return nil, p.errf("member " + strconv.Quote(k) + " appears twice")
+			}
+			keys[k] = true
 		}
 		p.space()
 		if p.i >= len(p.s) || p.s[p.i] != ':' {

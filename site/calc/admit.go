@@ -26,13 +26,13 @@ type AdmitOutcome struct {
 	Main int
 }
 
-func runAdmit(o *Outcome, st *study) {
+func runAdmit(o *Outcome, va *variation) {
 	s := o.Scenario
 	if _, err := engine.Allot(&s, 0); err != nil {
 		o.Problem = problemOf(err)
 		return
 	}
-	a := &AdmitOutcome{Unit: *st.Admit, Added: st.Added}
+	a := &AdmitOutcome{Unit: *va.Admit, Added: va.Added}
 	a.Methods, a.Main = withOwn(o.Block.Compare, s.Method)
 	for _, m := range a.Methods {
 		s.Method = m
@@ -45,7 +45,7 @@ func runAdmit(o *Outcome, st *study) {
 		return
 	}
 	o.Admit = a
-	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, o.Block.Count.claimWords(st.context()))
+	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, o.Block.Count.claimWords(va.context()))
 }
 
 // admitProblem places an error about the admitted unit (unit n of the

@@ -50,7 +50,7 @@ func BenchmarkLiveFifty(b *testing.B) {
 		// calculator, its seat order folded away.
 		req := request(block, "mode", jsondoc.Str("full"), "margins", jsondoc.Boolean(false), "order", jsondoc.Boolean(false))
 		for b.Loop() {
-			if Live(req).Get("state").Text != "live" {
+			if live(req).Get("state").Text != "live" {
 				b.Fatal("not live")
 			}
 		}

@@ -57,9 +57,10 @@ func (m Mode) String() string {
 	return "compact"
 }
 
-// IsStudy reports whether m is one of the modes that study a scenario
-// beyond one apportionment: sweep, growth and admit.
-func (m Mode) IsStudy() bool { return m == Sweep || m == Growth || m == Admit }
+// IsVariation reports whether m is one of the variation modes, which
+// apportion the scenario again with one thing varied: the house size
+// (sweep), the populations (growth) or the units (admit).
+func (m Mode) IsVariation() bool { return m == Sweep || m == Growth || m == Admit }
 
 // A Block is one calculator: its scenario as the page gives it, its claims
 // and the methods its comparison shows.
@@ -68,7 +69,7 @@ type Block struct {
 	ID   string // the calculator's id, unique on its page
 	Mode Mode
 	// Doc is the scenario document, without the claims and compare
-	// members; a study block's document keeps the members its mode adds
+	// members; a variation block's document keeps the members its mode adds
 	// (from, to, methods; later populations; admit).
 	Doc    *jsondoc.Value
 	Source *input.Source
@@ -80,6 +81,24 @@ type Block struct {
 	// the calculator speaks of votes, students or applications instead of
 	// population where the block says so.
 	Count Count
+
+	// vary is the code of a variation block's mode; nil for a calculator.
+	vary *variationMode
+}
+
+// NeedsAnalysis reports whether the block needs the WebAssembly analysis
+// module rather than the calculator module: a variation block, or a block
+// with a claim about paradoxes (see UseVariations).
+func (b *Block) NeedsAnalysis() bool {
+	if b.Mode.IsVariation() {
+		return true
+	}
+	for _, c := range b.Claims {
+		if c.Kind.IsParadox() {
+			return true
+		}
+	}
+	return false
 }
 
 // ParseBlock reads a calculator block from its JSON document. Errors are
@@ -106,7 +125,15 @@ func ParseBlock(file, id string, mode Mode, v *jsondoc.Value) (_ *Block, err err
 		return nil, err
 	}
 	b.Count = c
-	sdoc, st, ierr := readStudy(file, doc, mode)
+	vm, ierr := variationOf(file, line(v), mode)
+	if ierr != nil {
+		return nil, ierr
+	}
+	b.vary = vm
+	if err := precheckUnits(file, doc); err != nil {
+		return nil, err
+	}
+	sdoc, va, ierr := readVariation(file, doc, vm)
 	if ierr != nil {
 		return nil, ierr
 	}
@@ -114,8 +141,13 @@ func ParseBlock(file, id string, mode Mode, v *jsondoc.Value) (_ *Block, err err
 	if err != nil {
 		return nil, err
 	}
+	if err := checkBlockSize(src.Title, &src.Scenario); err != nil {
+		e := err.(*input.Error)
+		e.File, e.Line = file, line(v)
+		return nil, e
+	}
 	b.Source = src
-	st.finish(&src.Scenario)
+	va.finish(&src.Scenario)
 	if mode != Sweep {
 		for _, need := range []string{"seats", "method"} {
 			if !src.Given[need] {
@@ -140,7 +172,7 @@ func ParseBlock(file, id string, mode Mode, v *jsondoc.Value) (_ *Block, err err
 	for _, u := range src.Scenario.Units {
 		names[strings.TrimSpace(u.Name)] = true
 	}
-	ctx := st.context()
+	ctx := va.context()
 	for i, c := range cs {
 		at := func(field, msg string) error {
 			return &input.Error{File: file, Line: c.Line, Field: "claims[" + strconv.Itoa(i) + "]" + field, Msg: "claim " + strconv.Quote(c.ID) + " " + msg}

@@ -28,6 +28,17 @@ func request(block string, kv ...any) *jsondoc.Value {
 	return req
 }
 
+// live answers a request given in its JSON form, as the WebAssembly
+// engine's calculator function does: a request that cannot be decoded gets
+// a fatal answer.
+func live(req *jsondoc.Value) *jsondoc.Value {
+	r, err := DecodeRequest(req)
+	if err != nil {
+		return fatalResponse(err.Error()).Doc()
+	}
+	return Answer(r).Doc()
+}
+
 func outputHTML(t *testing.T, resp *jsondoc.Value) string {
 	t.Helper()
 	n, ok := render.FromDoc(resp.Get("output"))
@@ -37,8 +48,8 @@ func outputHTML(t *testing.T, resp *jsondoc.Value) string {
 	return render.HTML(n)
 }
 
-func TestLive(t *testing.T) {
-	resp := Live(request(vessaria(t), "editor", jsondoc.Boolean(true), "export", jsondoc.Boolean(true)))
+func TestAnswer(t *testing.T) {
+	resp := live(request(vessaria(t), "editor", jsondoc.Boolean(true), "export", jsondoc.Boolean(true)))
 	if resp.Get("state").Text != "live" {
 		t.Fatalf("state %s: %s", resp.Get("state").Text, jsondoc.Marshal(resp.Get("error")))
 	}
@@ -60,9 +71,9 @@ func TestLive(t *testing.T) {
 	}
 }
 
-func TestLiveErrors(t *testing.T) {
+func TestAnswerErrors(t *testing.T) {
 	doc, _ := jsondoc.Parse([]byte(`{"seats": "40", "method": "webster", "units": [{"name": "A", "population": "1"}, {"name": "B", "population": "12x"}]}`))
-	resp := Live(request(vessaria(t), "scenario", doc))
+	resp := live(request(vessaria(t), "scenario", doc))
 	if resp.Get("state").Text != "error" {
 		t.Fatalf("state %s", resp.Get("state").Text)
 	}
@@ -75,22 +86,22 @@ func TestLiveErrors(t *testing.T) {
 	}
 	// An engine error about a unit names the unit's field too.
 	doc, _ = jsondoc.Parse([]byte(`{"seats": "2", "method": "webster", "units": [{"name": "A", "population": "1", "min": "3"}]}`))
-	e = Live(request(vessaria(t), "scenario", doc)).Get("error")
+	e = live(request(vessaria(t), "scenario", doc)).Get("error")
 	if e.Get("field").Text != "min" {
 		t.Errorf("min error %s", jsondoc.Marshal(e))
 	}
 	// A block that cannot be read is fatal, and never panics.
 	for _, bad := range []*jsondoc.Value{nil, jsondoc.Str("x"), request("{"), request(`{"units": []}`), jsondoc.NewObject()} {
-		r := Live(bad)
+		r := live(bad)
 		if r.Get("state").Text != "error" || r.Get("fatal") == nil {
 			t.Errorf("bad request answered %s", jsondoc.Marshal(r))
 		}
 	}
 }
 
-func TestLiveLoad(t *testing.T) {
+func TestAnswerLoad(t *testing.T) {
 	load := jsondoc.NewObject().Set("name", jsondoc.Str("t.csv")).Set("text", jsondoc.Str("name,population\nNorth,600\nSouth,400\n"))
-	resp := Live(request(vessaria(t), "load", load))
+	resp := live(request(vessaria(t), "load", load))
 	if resp.Get("state").Text != "live" || resp.Get("load_error") != nil {
 		t.Fatalf("%s", jsondoc.Marshal(resp))
 	}
@@ -102,7 +113,7 @@ func TestLiveLoad(t *testing.T) {
 		t.Errorf("North: %s", h)
 	}
 	bad := jsondoc.NewObject().Set("name", jsondoc.Str("t.csv")).Set("text", jsondoc.Str("name,population\nNorth,many\n"))
-	resp = Live(request(vessaria(t), "load", bad))
+	resp = live(request(vessaria(t), "load", bad))
 	le := resp.Get("load_error")
 	if le == nil || le.Get("line").Text != "2" {
 		t.Fatalf("load error %s", jsondoc.Marshal(le))
@@ -132,7 +143,7 @@ func TestParseBlockErrors(t *testing.T) {
 // cut are a tie).
 func TestTieShown(t *testing.T) {
 	block := `{"seats": 3, "method": "webster", "units": [{"name": "East", "population": 500}, {"name": "West", "population": 500}]}`
-	resp := Live(request(block))
+	resp := live(request(block))
 	h := outputHTML(t, resp)
 	for _, w := range []string{"A tie decides seats", `data-tied="true"`, "left unassigned", "1 seat is left open by a tie"} {
 		if !strings.Contains(h, w) {
@@ -140,7 +151,7 @@ func TestTieShown(t *testing.T) {
 		}
 	}
 	doc, _ := jsondoc.Parse([]byte(`{"seats": "3", "method": "webster", "tie": "lot:7", "units": [{"name": "East", "population": "500"}, {"name": "West", "population": "500"}]}`))
-	h = outputHTML(t, Live(request(block, "scenario", doc)))
+	h = outputHTML(t, live(request(block, "scenario", doc)))
 	if !strings.Contains(h, "lots drawn with seed 7") || strings.Contains(h, "left open") {
 		t.Errorf("settled tie: %s", h)
 	}
@@ -159,11 +170,11 @@ func TestQuickMargins(t *testing.T) {
 		{`{"seats": 30, "method": "jefferson", "threshold": "5%", "units": [{"name": "A", "population": 380000}, {"name": "B", "population": 49000}]}`, true, true},
 	}
 	for _, c := range cases {
-		resp := Live(request(c.block, "margins", jsondoc.Boolean(false)))
+		resp := live(request(c.block, "margins", jsondoc.Boolean(false)))
 		if p, a := resp.Get("margins_pending").Bool, resp.Get("margins_auto").Bool; p != c.pending || a != c.auto {
 			t.Errorf("%s: pending %v auto %v, want %v %v", c.block, p, a, c.pending, c.auto)
 		}
-		if full := Live(request(c.block)); full.Get("margins_pending").Bool {
+		if full := live(request(c.block)); full.Get("margins_pending").Bool {
 			t.Errorf("%s: margins pending without being left out", c.block)
 		}
 	}
@@ -182,13 +193,13 @@ func TestLiveScenarioText(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		want := jsondoc.Marshal(Live(request(vessaria(t), "scenario", withoutLines(doc), "editor", jsondoc.Boolean(true))))
-		got := jsondoc.Marshal(Live(request(vessaria(t), "scenario_text", jsondoc.Str(text), "editor", jsondoc.Boolean(true))))
+		want := jsondoc.Marshal(live(request(vessaria(t), "scenario", withoutLines(doc), "editor", jsondoc.Boolean(true))))
+		got := jsondoc.Marshal(live(request(vessaria(t), "scenario_text", jsondoc.Str(text), "editor", jsondoc.Boolean(true))))
 		if !bytes.Equal(got, want) {
 			t.Errorf("scenario_text %s answered differently:\n got %.300s\nwant %.300s", text, got, want)
 		}
 	}
-	r := Live(request(vessaria(t), "scenario_text", jsondoc.Str(`{"seats": `)))
+	r := live(request(vessaria(t), "scenario_text", jsondoc.Str(`{"seats": `)))
 	if r.Get("fatal") == nil || !strings.Contains(r.Get("error").Get("message").Text, "scenario_text") {
 		t.Errorf("bad scenario_text answered %s", jsondoc.Marshal(r))
 	}
@@ -221,4 +232,44 @@ func TestBlockCache(t *testing.T) {
 	if len(c.entries) != maxCachedBlocks {
 		t.Errorf("%d blocks cached, want %d", len(c.entries), maxCachedBlocks)
 	}
+}
+
+// TestDecodeRequest checks that the field table names what it cannot read.
+func TestDecodeRequest(t *testing.T) {
+	cases := []struct{ js, want string }{
+		{`{"block_text": "{}", "marigns": false}`, "marigns: unknown member; a calculator request has block_text, id, mode,"},
+		{`{"block_text": "{}", "margins": "no"}`, "margins: must be true or false, not a string"},
+		{`{"block_text": "{}", "mode": "wide"}`, `mode: "wide" is not a mode`},
+		{`{"block_text": "{}", "load": {"text": 5}}`, "load.text: must be a string, not a number"},
+		{`{"block_text": "{}",` + "\n" + `"load": {"name": "a", "size": 1}}`, "line 2: load.size: unknown member; a load has name, text"},
+		{`{"block_text": "{}", "scenario_text": "{"}`, "scenario_text: not valid JSON"},
+		{`{"id": "x"}`, "block_text: missing"},
+		{`[1]`, "a calculator request must be an object, not an array"},
+	}
+	for _, c := range cases {
+		v, err := jsondoc.Parse([]byte(c.js))
+		if err != nil {
+			t.Fatal(err)
+		}
+		_, err = DecodeRequest(v)
+		if err == nil || !strings.Contains(err.Error(), c.want) {
+			t.Errorf("%s: got %v, want %q", c.js, err, c.want)
+		}
+	}
+	v, _ := jsondoc.Parse([]byte(`{"block_text": "{}", "id": "c", "mode": "full", "scenario_text": "{\"seats\": 3}", "editor": true, "margins": false, "order": false, "load": {"name": "t.csv", "text": "x"}}`))
+	r, err := DecodeRequest(v)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r.ID != "c" || r.Mode != Full || !r.Editor || !r.QuickMargins || !r.NoOrder || r.Load == nil || r.Load.Name != "t.csv" ||
+		r.Scenario.Get("seats").Text != "3" {
+		t.Errorf("decoded %+v", r)
+	}
+}
+
+// The variation modes (sweep, growth, admit) are tested here as the site
+// build uses them.
+func TestMain(m *testing.M) {
+	UseVariations()
+	os.Exit(m.Run())
 }

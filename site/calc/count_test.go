@@ -80,7 +80,7 @@ func visibleText(n *render.Node) string {
 
 func TestCountSpeaksVotes(t *testing.T) {
 	for _, mode := range []string{"compact", "full"} {
-		resp := Live(request(countBlock, "mode", jsondoc.Str(mode), "editor", jsondoc.Boolean(true)))
+		resp := live(request(countBlock, "mode", jsondoc.Str(mode), "editor", jsondoc.Boolean(true)))
 		if resp.Get("state").Text != "live" {
 			t.Fatalf("%s: %s", mode, jsondoc.Marshal(resp.Get("error")))
 		}
@@ -111,7 +111,7 @@ func TestCountProblemNamesVotes(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	resp := Live(request(countBlock, "scenario", doc))
+	resp := live(request(countBlock, "scenario", doc))
 	msg := resp.Get("error").Get("message").Text
 	if !strings.HasPrefix(msg, "Unit 1, votes: ") {
 		t.Errorf("error message %q does not name the votes", msg)
@@ -146,7 +146,7 @@ func TestCountInStudies(t *testing.T) {
 		{"admit", admitBlock, []string{"(350,000 votes) with", "Its fair share, its votes ×", "Its votes"}},
 	}
 	for _, c := range cases {
-		resp := Live(studyRequest(c.mode, withCount(c.block), "editor", jsondoc.Boolean(true)))
+		resp := live(studyRequest(c.mode, withCount(c.block), "editor", jsondoc.Boolean(true)))
 		if resp.Get("state").Text != "live" {
 			t.Fatalf("%s: %s", c.mode, jsondoc.Marshal(resp.Get("error")))
 		}
@@ -176,7 +176,7 @@ func TestCountInStudyFindings(t *testing.T) {
 			[]string{"Orlen gets 13 seats with the first students and 13 with the later ones"}},
 	}
 	for _, c := range cases {
-		resp := Live(studyRequest(c.mode, withCount(c.block)))
+		resp := live(studyRequest(c.mode, withCount(c.block)))
 		if resp.Get("state").Text != "live" {
 			t.Fatalf("%s: %s", c.mode, jsondoc.Marshal(resp.Get("error")))
 		}
@@ -219,7 +219,7 @@ func TestCountInProblems(t *testing.T) {
 			t.Fatalf("%s: %s not in the block", c.mode, c.from)
 		}
 		// The block itself is wrong: the page shows why.
-		msg := Live(studyRequest(c.mode, bad)).Get("error").Get("message").Text
+		msg := live(studyRequest(c.mode, bad)).Get("error").Get("message").Text
 		// The reader's edit is wrong: the message is placed at its field.
 		doc, err := jsondoc.Parse([]byte(bad))
 		if err != nil {
@@ -232,7 +232,7 @@ func TestCountInProblems(t *testing.T) {
 			}
 		}
 		doc.Fields = keep
-		edited := Live(studyRequest(c.mode, good, "scenario", doc)).Get("error").Get("message").Text
+		edited := live(studyRequest(c.mode, good, "scenario", doc)).Get("error").Get("message").Text
 		for _, m := range []string{msg, edited} {
 			if !strings.Contains(m, c.want) || strings.Contains(m, "is not a population") || strings.Contains(m, "population of zero") {
 				t.Errorf("%s %s: message %q, want %q", c.mode, c.to, m, c.want)

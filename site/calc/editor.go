@@ -36,14 +36,9 @@ func Editor(b *Block, doc *jsondoc.Value, live bool) *Node {
 	if !live {
 		fs.Add(Wrap("p", "These results were computed when the page was built. The calculator becomes editable once its engine has loaded (it needs JavaScript).", "class", "sc-static-note", "data-role", "static-note"))
 	}
-	switch b.Mode {
-	case Sweep:
-		sweepControls(fs, b, doc, id)
-	case Growth:
-		growthControls(fs, b, doc, id)
-	case Admit:
-		admitControls(fs, b, doc, id)
-	default:
+	if b.vary != nil {
+		b.vary.controls(fs, b, doc, id)
+	} else {
 		calculatorControls(fs, b, doc, id)
 	}
 	fs.Add(El("p", "class", "sc-note", "data-role", "notice", "role", "status"))

@@ -48,18 +48,18 @@ func withOwn(ms []engine.Method, m engine.Method) ([]engine.Method, int) {
 	return append(append([]engine.Method(nil), ms...), m), len(ms)
 }
 
-func runGrowth(o *Outcome, st *study) {
+func runGrowth(o *Outcome, va *variation) {
 	s := o.Scenario
 	if _, err := engine.Allot(&s, 0); err != nil {
 		o.Problem = problemOf(err)
 		return
 	}
-	t := laterScenario(s, st.Later)
+	t := laterScenario(s, va.Later)
 	if _, err := engine.Allot(&t, 0); err != nil {
 		o.Problem = laterProblem(err)
 		return
 	}
-	g := &GrowthOutcome{Later: st.Later}
+	g := &GrowthOutcome{Later: va.Later}
 	g.Methods, g.Main = withOwn(o.Block.Compare, s.Method)
 	for _, m := range g.Methods {
 		s.Method, t.Method = m, m
@@ -72,7 +72,7 @@ func runGrowth(o *Outcome, st *study) {
 		return
 	}
 	o.Growth = g
-	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, o.Block.Count.claimWords(st.context()))
+	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, o.Block.Count.claimWords(va.context()))
 }
 
 // laterProblem places an error about the later populations at their

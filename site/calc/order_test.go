@@ -57,8 +57,8 @@ func TestOrderLeftOut(t *testing.T) {
 	for _, c := range cases {
 		name := c.mode + " " + c.block[:40]
 		kv := []any{"mode", jsondoc.Str(c.mode), "export", jsondoc.Boolean(c.export)}
-		full := Live(request(c.block, kv...))
-		left := Live(request(c.block, append(kv, "order", jsondoc.Boolean(false))...))
+		full := live(request(c.block, kv...))
+		left := live(request(c.block, append(kv, "order", jsondoc.Boolean(false))...))
 		if got := left.Get("order_pending").Bool; got != c.pending {
 			t.Errorf("%s: order_pending %v, want %v", name, got, c.pending)
 		}

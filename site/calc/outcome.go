@@ -43,8 +43,8 @@ type Outcome struct {
 	// the order's folded section with a note in place of its table.
 	OrderPending bool
 
-	// The findings of a study block, by its mode; Result and Comparison
-	// are nil for these blocks.
+	// The findings of a variation block, by its mode; Result and
+	// Comparison are nil for these blocks.
 	Sweep  *SweepOutcome
 	Growth *GrowthOutcome
 	Admit  *AdmitOutcome
@@ -105,33 +105,33 @@ func run(b *Block, doc *jsondoc.Value, opt Options) *Outcome {
 		doc = b.Doc
 	}
 	o := &Outcome{Block: b, Doc: doc}
-	sdoc, st, ierr := readStudy(b.File, doc, b.Mode)
+	if err := precheckUnits(b.File, doc); err != nil {
+		o.Problem = problemOf(err)
+		return o
+	}
+	sdoc, va, ierr := readVariation(b.File, doc, b.vary)
 	if ierr != nil {
 		o.Problem = problemOf(ierr)
 		return o
 	}
 	src, err := input.FromDoc(b.File, sdoc)
+	if err == nil {
+		err = checkBlockSize(src.Title, &src.Scenario)
+	}
 	if err != nil {
 		o.Problem = problemOf(err)
 		return o
 	}
 	o.Title, o.Scenario = src.Title, src.Scenario
-	st.finish(&o.Scenario)
+	va.finish(&o.Scenario)
 	for _, need := range []string{"seats", "method"} {
 		if !src.Given[need] && b.Mode != Sweep {
 			o.Problem = &Problem{Field: need, Msg: fieldLabel(need) + ": missing"}
 			return o
 		}
 	}
-	switch b.Mode {
-	case Sweep:
-		runSweep(o, st)
-		return o
-	case Growth:
-		runGrowth(o, st)
-		return o
-	case Admit:
-		runAdmit(o, st)
+	if b.vary != nil {
+		b.vary.run(o, va)
 		return o
 	}
 	detail := engine.Full

@@ -35,15 +35,8 @@ func Output(o *Outcome) *Node {
 		out.Add(caution())
 		return out
 	}
-	switch {
-	case o.Sweep != nil:
-		sweepOutput(o, out)
-	case o.Growth != nil:
-		growthOutput(o, out)
-	case o.Admit != nil:
-		admitOutput(o, out)
-	}
-	if o.Block.Mode.IsStudy() {
+	if vm := o.Block.vary; vm != nil {
+		vm.output(o, out)
 		out.Add(claimsView(o))
 		out.Add(caution())
 		return out

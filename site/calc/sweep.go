@@ -25,8 +25,8 @@ type SweepOutcome struct {
 // tables below it mark every one.
 const maxListed = 4
 
-func runSweep(o *Outcome, st *study) {
-	set := analysis.SweepAll(o.Scenario, st.Methods, st.From, st.To)
+func runSweep(o *Outcome, va *variation) {
+	set := analysis.SweepAll(o.Scenario, va.Methods, va.From, va.To)
 	if set.First() == nil {
 		o.Problem = sweepProblem(set.Errors[0])
 		return
@@ -36,7 +36,7 @@ func runSweep(o *Outcome, st *study) {
 		so.Violations[k] = set.Violations(k)
 	}
 	o.Sweep = so
-	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, o.Block.Count.claimWords(st.context()))
+	o.Verdicts = claim.CheckIn(o.Scenario, o.Block.Claims, o.Block.Count.claimWords(va.context()))
 }
 
 // sweepProblem places a sweep's error at the range's fields: a sweep has

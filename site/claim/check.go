@@ -5,7 +5,6 @@ import (
 	"strings"
 
 	"seatsmith/engine"
-	"seatsmith/engine/analysis"
 	"seatsmith/engine/render"
 )
 
@@ -67,6 +66,9 @@ func (ctx Context) people() string {
 // Missing says what a claim needs that the context lacks ("" when nothing):
 // a range of house sizes, later populations or a unit to admit.
 func (c *Claim) Missing(ctx Context) string {
+	if c.Kind.IsParadox() && paradoxChecks[c.Kind] == nil {
+		return "a " + c.Kind.String() + " claim is checked by the analysis module (seatsmith-analysis.wasm), not by this engine"
+	}
 	switch c.Kind {
 	case NoAlabama, NoQuotaViolation:
 		if c.From == 0 && ctx.From == 0 {
@@ -282,13 +284,8 @@ func (ch *checker) check(c *Claim) Verdict {
 	if need := c.Missing(ch.ctx); need != "" {
 		return Verdict{Found: need}
 	}
-	switch c.Kind {
-	case NoAlabama, NoQuotaViolation:
-		return ch.checkRange(c, m)
-	case PopulationParadox, NoPopulationParadox:
-		return ch.checkGrowth(c, m, h)
-	case NewStates, NoNewStates:
-		return ch.checkAdmit(c, m, h)
+	if pc := paradoxChecks[c.Kind]; pc != nil {
+		return pc(ch, c, m, h)
 	}
 	switch c.Kind {
 	case Differ, Agree:
@@ -380,62 +377,6 @@ func (ch *checker) hasUnit(name string) bool {
 	return false
 }
 
-// checkRange checks a no-alabama or no-quota-violation claim over its
-// range of house sizes.
-func (ch *checker) checkRange(c *Claim, m engine.Method) Verdict {
-	from, to := ch.span(c)
-	span := " from " + strconv.Itoa(from) + " to " + strconv.Itoa(to)
-	sw, err := ch.sweep(m, from, to)
-	if err != nil {
-		return Verdict{Found: "the numbers cannot be swept by " + m.Name() + span + ": " + errText(err)}
-	}
-	var texts []string
-	if c.Kind == NoAlabama {
-		for _, f := range analysis.FindAlabama(sw) {
-			if c.Unit == "" || f.Name == c.Unit {
-				texts = append(texts, f.Text())
-			}
-		}
-	} else {
-		s := ch.base
-		s.Method = m
-		for _, v := range analysis.FindQuotaViolations(sw, &s) {
-			if c.Unit == "" || v.Name == c.Unit {
-				texts = append(texts, v.Text())
-			}
-		}
-	}
-	refused := 0
-	for k := range sw.Sizes {
-		if sw.Sizes[k].Err != nil {
-			refused++
-		}
-	}
-	if len(texts) == 0 {
-		found := "no unit loses a seat as the house grows"
-		if c.Kind == NoQuotaViolation {
-			found = "every unit gets its lower or upper quota at every size"
-		}
-		if c.Unit != "" {
-			found = c.Unit + " never loses a seat as the house grows"
-			if c.Kind == NoQuotaViolation {
-				found = c.Unit + " gets its lower or upper quota at every size"
-			}
-		}
-		found += " under " + m.Name() + span
-		if refused > 0 {
-			found += " (" + plural(refused, "size") + " cannot be apportioned)"
-		}
-		return Verdict{Holds: true, Found: found}
-	}
-	what := "Alabama paradox"
-	if c.Kind == NoQuotaViolation {
-		what = "quota violation"
-	}
-	found := plural(len(texts), what) + span + "; the first: " + strings.TrimSuffix(texts[0], ".")
-	return Verdict{Found: found}
-}
-
 // later returns the base scenario with the context's later populations.
 func (ch *checker) later() engine.Scenario {
 	t := ch.base
@@ -446,73 +387,6 @@ func (ch *checker) later() engine.Scenario {
 		}
 	}
 	return t
-}
-
-// checkGrowth checks a population-paradox or no-population-paradox claim
-// against the context's later populations.
-func (ch *checker) checkGrowth(c *Claim, m engine.Method, h int) Verdict {
-	s := ch.base
-	s.Method, s.Seats = m, h
-	t := ch.later()
-	t.Method, t.Seats = m, h
-	pr, err := analysis.FindPopulation(&s, &t)
-	if err != nil {
-		return Verdict{Found: "the first and the later " + ch.ctx.nouns() + " cannot both be apportioned by " + m.Name() + " at " + plural(h, "seat") + ": " + errText(err)}
-	}
-	var hits []analysis.Population
-	for _, f := range pr.Findings {
-		if (c.Unit == "" || f.Loser.Name == c.Unit) && (c.Gainer == "" || f.Gainer.Name == c.Gainer) {
-			hits = append(hits, f)
-		}
-	}
-	if c.Kind == PopulationParadox {
-		if len(hits) > 0 {
-			return Verdict{Holds: true, Found: strings.TrimSuffix(hits[0].Text(), ".")}
-		}
-		found := c.Unit + " gets " + plural(seatsOf(pr.Before, c.Unit), "seat") + " with the first " + ch.ctx.nouns() + " and " +
-			strconv.Itoa(seatsOf(pr.After, c.Unit)) + " with the later ones under " + m.Name() + " at " + plural(h, "seat")
-		if c.Gainer != "" {
-			found += ", and " + c.Gainer + " gets " + strconv.Itoa(seatsOf(pr.Before, c.Gainer)) + " and " + strconv.Itoa(seatsOf(pr.After, c.Gainer))
-		}
-		return Verdict{Found: found + ": no population paradox"}
-	}
-	if len(hits) > 0 {
-		return Verdict{Found: plural(len(hits), "population paradox") + "; the first: " + strings.TrimSuffix(hits[0].Text(), ".")}
-	}
-	who := "no unit loses a seat"
-	if c.Unit != "" {
-		who = c.Unit + " loses no seat"
-	}
-	return Verdict{Holds: true, Found: who + " to a unit that grew more slowly under " + m.Name() + " at " + plural(h, "seat") + ": there is no population paradox"}
-}
-
-// checkAdmit checks a new-states or no-new-states claim against the unit
-// the context admits.
-func (ch *checker) checkAdmit(c *Claim, m engine.Method, h int) Verdict {
-	s := ch.base
-	s.Method, s.Seats = m, h
-	r, err := analysis.FindNewStates(&s, *ch.ctx.Admit, ch.ctx.Added)
-	if err != nil {
-		return Verdict{Found: "the unit cannot be admitted under " + m.Name() + " at " + plural(h, "seat") + ": " + errText(err)}
-	}
-	changed := false
-	for _, x := range r.Changes {
-		if c.Unit == "" || x.Name == c.Unit {
-			changed = true
-		}
-	}
-	return Verdict{Holds: changed == (c.Kind == NewStates), Found: strings.TrimSuffix(ch.ctx.NewStatesText(r), ".")}
-}
-
-// NewStatesText is [analysis.NewStates.Text] in the words of the context:
-// the unit admitted with its votes rather than its population where the
-// block counts votes.
-func (ctx Context) NewStatesText(r *analysis.NewStates) string {
-	s := r.Text()
-	if ctx.noun() == "population" {
-		return s
-	}
-	return strings.Replace(s, "(population "+r.People.String()+",", "("+r.People.String()+" "+ctx.people()+",", 1)
 }
 
 func seatsOf(r *engine.Result, name string) int {

@@ -2,6 +2,7 @@ package claim
 
 import (
 	"fmt"
+	"os"
 	"strings"
 	"testing"
 
@@ -108,4 +109,10 @@ func ExampleCheck() {
 		fmt.Println(vd.Claim.ID, vd.Holds, vd.Found)
 	}
 	// Output: paradox true Cedar Row gets 3 seats at 31 and 2 at 32 under Hamilton (Hare quota)
+}
+
+// The paradox kinds are tested here as the site build uses them.
+func TestMain(m *testing.M) {
+	UseParadoxes()
+	os.Exit(m.Run())
 }

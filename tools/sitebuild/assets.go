@@ -1,8 +1,6 @@
 package main
 
 import (
-	"bytes"
-	"compress/gzip"
 	"crypto/sha256"
 	"encoding/hex"
 	"fmt"
@@ -53,14 +51,6 @@ func minifyAs(m *minify.M, mediatype string, data []byte, name string) ([]byte, 
 		return nil, fmt.Errorf("%s: cannot minify: %v", name, err)
 	}
 	return out, nil
-}
-
-func gzipBytes(data []byte) []byte {
-	var b bytes.Buffer
-	w, _ := gzip.NewWriterLevel(&b, gzip.BestCompression)
-	w.Write(data)
-	w.Close()
-	return b.Bytes()
 }
 
 // moduleRoot finds the folder holding go.mod at or above dir.

@@ -82,7 +82,7 @@ func saveArtifact(t testing.TB, name string, data []byte) {
 
 // calcRoots selects every calculator on a page: the calculator blocks and
 // the projection block.
-const calcRoots = `[data-seatsmith], [data-forecast]`
+const calcRoots = `[data-seatsmith], [data-projection]`
 
 // overflowJS lists every visible element of a calculator that reaches past
 // the calculator's box, every element of a chart that reaches past its

@@ -2,8 +2,8 @@ package main
 
 // Browser tests: the built site in real headless Chromium. They need
 // /usr/bin/chromium (or SEATSMITH_CHROMIUM); without it they skip locally
-// and fail when CI is set. SEATSMITH_WASM names a prebuilt engine to use
-// instead of building ./wasm.
+// and fail when CI is set. SEATSMITH_WASM names a folder of prebuilt
+// modules (as wasmbuild.Build writes them) to use instead of building them.
 
 import (
 	"bufio"
@@ -28,9 +28,10 @@ import (
 )
 
 var (
-	builtOnce sync.Once
-	builtDir  string
-	builtErr  error
+	builtOnce  sync.Once
+	builtDir   string
+	builtFiles []string // the files the build wrote (tests add pages beside them)
+	builtErr   error
 )
 
 // builtSite builds the real site once for every browser test.
@@ -42,18 +43,16 @@ func builtSite(t testing.TB) string {
 			builtErr = err
 			return
 		}
-		var eng []byte
-		if p := os.Getenv("SEATSMITH_WASM"); p != "" {
-			eng, err = os.ReadFile(p)
-		} else {
-			eng, err = buildEngine("")
-		}
+		eng, err := buildEngines(os.Getenv("SEATSMITH_WASM"))
 		if err != nil {
 			builtErr = err
 			return
 		}
 		builtDir = filepath.Join(dir, "site")
-		_, builtErr = Build(Options{Src: siteSrc, Out: builtDir, Engine: eng})
+		var st *Stats
+		if st, builtErr = Build(Options{Src: siteSrc, Out: builtDir, Engines: eng}); builtErr == nil {
+			builtFiles = st.Files
+		}
 	})
 	if builtErr != nil {
 		t.Fatalf("building the site: %v", builtErr)
@@ -61,12 +60,18 @@ func builtSite(t testing.TB) string {
 	return builtDir
 }
 
+// chromiumExe is the Chromium the browser tests ask for first:
+// SEATSMITH_CHROMIUM, or /usr/bin/chromium.
+func chromiumExe() string {
+	if p := os.Getenv("SEATSMITH_CHROMIUM"); p != "" {
+		return p
+	}
+	return "/usr/bin/chromium"
+}
+
 func chromiumPath(t testing.TB) string {
 	t.Helper()
-	p := os.Getenv("SEATSMITH_CHROMIUM")
-	if p == "" {
-		p = "/usr/bin/chromium"
-	}
+	p := chromiumExe()
 	if _, err := os.Stat(p); err != nil {
 		if lp, lerr := exec.LookPath("chromium"); lerr == nil {
 			return lp
@@ -122,7 +127,14 @@ type tab struct {
 	mu       sync.Mutex
 	console  []chromedp.ConsoleMessage
 	requests []string
+	// engineEncoding is the Content-Encoding of the last WebAssembly
+	// module the page received.
+	engineEncoding string
+	cancel         func()
 }
+
+// close ends the tab before the test does.
+func (tb *tab) close() { tb.cancel() }
 
 func newTab(t testing.TB, parent context.Context) *tab {
 	t.Helper()
@@ -135,9 +147,28 @@ func newTabFor(t testing.TB, parent context.Context, d time.Duration) *tab {
 	ctx, cancel := chromedp.NewContext(parent)
 	ctx, tcancel := context.WithTimeout(ctx, d)
 	t.Cleanup(func() { tcancel(); cancel() })
-	tb := &tab{t: t, ctx: ctx}
+	tb := &tab{t: t, ctx: ctx, cancel: func() { tcancel(); cancel() }}
 	msgs := chromedp.Console(ctx)
 	reqs := chromedp.Events(ctx, network.RequestWillBeSent)
+	resps := chromedp.Events(ctx, network.ResponseReceived)
+	go func() {
+		for ev, err := range resps {
+			if err != nil {
+				return
+			}
+			if strings.HasSuffix(ev.Response.URL, ".wasm") {
+				enc := ""
+				for k, v := range ev.Response.Headers {
+					if strings.EqualFold(k, "Content-Encoding") {
+						enc, _ = v.(string)
+					}
+				}
+				tb.mu.Lock()
+				tb.engineEncoding = enc
+				tb.mu.Unlock()
+			}
+		}
+	}()
 	go func() {
 		for m, err := range msgs {
 			if err != nil {
@@ -177,16 +208,22 @@ func eval[T any](tb *tab, js string) T {
 	return v
 }
 
-// waitFor polls a JavaScript condition.
+// waitFor polls a JavaScript condition for at most 20 seconds.
 func (tb *tab) waitFor(what, js string) {
 	tb.t.Helper()
-	if _, err := chromedp.Run(tb.ctx, chromedp.Poll[bool](js, chromedp.WithPollingTimeout(20*time.Second), chromedp.WithPollingInterval(50*time.Millisecond))); err != nil {
+	tb.waitForWithin(what, js, 20*time.Second)
+}
+
+// waitForWithin polls a JavaScript condition for at most d.
+func (tb *tab) waitForWithin(what, js string, d time.Duration) {
+	tb.t.Helper()
+	if _, err := chromedp.Run(tb.ctx, chromedp.Poll[bool](js, chromedp.WithPollingTimeout(d), chromedp.WithPollingInterval(50*time.Millisecond))); err != nil {
 		state := eval[string](tb, `JSON.stringify([...document.querySelectorAll('[data-seatsmith]')].map(e => [e.id, e.dataset.state, (e.querySelector('[role=alert]')||{}).textContent]))`)
 		tb.t.Fatalf("waiting for %s: %v (calculators: %s; console: %v)", what, err, state, tb.messages())
 	}
 }
 
-const allLive = `document.querySelectorAll('[data-seatsmith], [data-forecast]').length > 0 && [...document.querySelectorAll('[data-seatsmith], [data-forecast]')].every(e => e.dataset.state === 'live')`
+const allLive = `document.querySelectorAll('[data-seatsmith], [data-projection]').length > 0 && [...document.querySelectorAll('[data-seatsmith], [data-projection]')].every(e => e.dataset.state === 'live')`
 
 func (tb *tab) messages() []string {
 	tb.mu.Lock()
@@ -551,7 +588,10 @@ func TestBrowser(t *testing.T) {
 		}
 		// Capture the export instead of saving it.
 		tb.do(chromedp.Evaluate[chromedp.Void](`window.__blobs = []; const o = URL.createObjectURL; URL.createObjectURL = (b) => { window.__blobs.push(b); return o.call(URL, b); }; HTMLAnchorElement.prototype.click = function () {};`))
-		tb.do(chromedp.Click(chromedp.CSS(`#workbench [data-action="export-csv"]`)), chromedp.Click(chromedp.CSS(`#workbench [data-action="export-json"]`)))
+		tb.do(chromedp.Click(chromedp.CSS(`#workbench [data-action="export-csv"]`)))
+		tb.waitFor("the CSV export", `window.__blobs.length === 1`)
+		tb.do(chromedp.Click(chromedp.CSS(`#workbench [data-action="export-json"]`)))
+		tb.waitFor("the JSON export", `window.__blobs.length === 2`)
 		out := eval[string](tb, `Promise.all(window.__blobs.map(b => b.text())).then(t => JSON.stringify(t))`)
 		var texts []string
 		json.Unmarshal([]byte(out), &texts)
@@ -568,6 +608,7 @@ func TestBrowser(t *testing.T) {
 		// A bad table is reported by line and leaves the units alone.
 		tb.do(chromedp.SetValue(chromedp.CSS(`#workbench [data-field="csv"]`), "name,population\nA,12\nB,lots\n"),
 			chromedp.Click(chromedp.CSS(`#workbench [data-action="use-csv"]`)))
+		tb.waitFor("the notice", `document.querySelector('#workbench [data-role=notice]').textContent.includes('could not be read')`)
 		note := eval[string](tb, `document.querySelector('#workbench [data-role=notice]').textContent`)
 		if !strings.Contains(note, "line 3") {
 			t.Errorf("bad CSV notice: %q", note)

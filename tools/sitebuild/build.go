@@ -20,9 +20,10 @@ import (
 type Options struct {
 	Src  string // the site sources (pages/, static/, scenarios/, layout.html)
 	Out  string // the folder to write
-	Wasm string // a prebuilt engine to use instead of building one
-	// Engine, when not nil, is the engine itself (tests build it once).
-	Engine []byte
+	Wasm string // a folder of prebuilt modules to use instead of building them
+	// Engines, when not nil, are the modules themselves (tests build them
+	// once).
+	Engines *Engines
 }
 
 // Stats count what a build wrote.
@@ -91,7 +92,7 @@ func Build(opt Options) (*Stats, error) {
 		return nil, err
 	}
 	add(fingerprint("assets", "favicon.svg", iconMin))
-	bridgeRaw, err := read(filepath.Join(root, "wasm", "bridge.js"))
+	bridgeRaw, err := read(filepath.Join(root, "wasm", "js", "bridge.js"))
 	if err != nil {
 		return nil, err
 	}
@@ -109,14 +110,28 @@ func Build(opt Options) (*Stats, error) {
 		return nil, err
 	}
 	add(fingerprint("assets", "wasm_exec.js", execMin))
-	eng := opt.Engine
-	if eng == nil {
-		if eng, err = buildEngine(opt.Wasm); err != nil {
+	// The engine's worker is one script: Go's runtime support, then the
+	// worker's own code.
+	workerRaw, err := read(filepath.Join(root, "wasm", "js", "engine-worker.js"))
+	if err != nil {
+		return nil, err
+	}
+	workerMin, err := minifyAs(m, "text/javascript", workerRaw, "engine-worker.js")
+	if err != nil {
+		return nil, err
+	}
+	workerJS := append(append(append([]byte(nil), execMin...), '\n'), workerMin...)
+	add(fingerprint("assets", "engine-worker.js", workerJS))
+	engines := opt.Engines
+	if engines == nil {
+		if engines, err = buildEngines(opt.Wasm); err != nil {
 			return nil, err
 		}
 	}
+	eng := engines.Calculator
 	add(fingerprint("assets", "seatsmith.wasm", eng))
-	if err := addForecastAssets(root, opt.Src, m, add); err != nil {
+	add(fingerprint("assets", "seatsmith-analysis.wasm", engines.Analysis))
+	if err := addProjectionAssets(root, opt.Src, m, add, assets["bridge.js"]); err != nil {
 		return nil, err
 	}
 	data, _ := filepath.Glob(filepath.Join(opt.Src, "scenarios", "*"))
@@ -137,7 +152,9 @@ func Build(opt Options) (*Stats, error) {
 	// Unfingerprinted copies for pages elsewhere that embed a calculator.
 	files["embed/bridge.js"] = bridgeMin
 	files["embed/wasm_exec.js"] = execMin
+	files["embed/engine-worker.js"] = workerJS
 	files["embed/seatsmith.wasm"] = eng
+	files["embed/seatsmith-analysis.wasm"] = engines.Analysis
 	files["embed/seatsmith.css"] = cssMin
 
 	layout, err := read(filepath.Join(opt.Src, "layout.html"))
@@ -170,7 +187,7 @@ func Build(opt Options) (*Stats, error) {
 	if off == nil {
 		return nil, fmt.Errorf("%s: no page %s.html to make the offline file from", filepath.Join(opt.Src, "pages"), offlinePage)
 	}
-	offline, offlineCSP, err := renderOffline(s, off, string(layout), assets, m, cssMin, execMin, bridgeMin, eng)
+	offline, offlineCSP, err := renderOffline(s, off, string(layout), assets, m, cssMin, execMin, bridgeMin, workerMin, eng)
 	if err != nil {
 		return nil, err
 	}
@@ -180,6 +197,7 @@ func Build(opt Options) (*Stats, error) {
 		names = append(names, p.Name)
 	}
 	files[headersFile] = []byte(headersText(names, offlineCSP))
+	addCompressed(files)
 	if err := writeFiles(opt.Out, files); err != nil {
 		return nil, err
 	}
@@ -198,12 +216,20 @@ func headersText(pages []string, offlineCSP string) string {
 	var b strings.Builder
 	b.WriteString("# HTTP headers for this site (sitebuild serve applies them; a host that reads\n" +
 		"# a path-pattern headers file can use it as it is).\n" +
+		"#\n" +
+		"# Besides these, a host should send .wasm files as application/wasm (the\n" +
+		"# engine then compiles while it downloads), and may send a file's NAME.br\n" +
+		"# or NAME.gz twin, written beside each compressible file, to a client whose\n" +
+		"# Accept-Encoding allows it, with Content-Encoding: br or gzip, the\n" +
+		"# original file's Content-Type and Vary: Accept-Encoding.\n" +
 		"/*\n" +
 		"  X-Content-Type-Options: nosniff\n" +
 		"  Referrer-Policy: no-referrer\n" +
 		"  Cross-Origin-Opener-Policy: same-origin\n")
+	// Pages are checked with the server on every visit (they name the
+	// current fingerprinted assets); assets never change under their name.
 	page := func(path, csp string) {
-		b.WriteString(path + "\n  Content-Security-Policy: " + csp + "; frame-ancestors 'none'\n")
+		b.WriteString(path + "\n  Content-Security-Policy: " + csp + "; frame-ancestors 'none'\n  Cache-Control: no-cache\n")
 	}
 	page("/", CSP)
 	for _, p := range pages {
@@ -211,7 +237,8 @@ func headersText(pages []string, offlineCSP string) string {
 	}
 	page("/offline.html", offlineCSP)
 	b.WriteString("/assets/*\n  Cache-Control: public, max-age=31536000, immutable\n" +
-		"/data/*\n  Cache-Control: public, max-age=31536000, immutable\n")
+		"/data/*\n  Cache-Control: public, max-age=31536000, immutable\n" +
+		"/embed/*\n  Cache-Control: public, max-age=3600\n")
 	return b.String()
 }
 
@@ -221,6 +248,9 @@ type pageData struct {
 	Offline bool
 	CSP     string
 	Caution string
+	// Engine is the WebAssembly module the page's blocks need (its asset
+	// name), which the page asks for early; empty for a page without.
+	Engine string
 }
 
 // renderPage executes the layout and page templates. Calculator blocks are
@@ -283,7 +313,7 @@ func renderPage(s *site, p *page, layout string, assets map[string]asset, inline
 			return nil, fmt.Errorf("%s: the page defines no %q template ({{define %q}}…{{end}})", p.File, need, need)
 		}
 	}
-	d := pageData{Name: p.Name, CSP: CSP, Caution: format.Caution}
+	d := pageData{Name: p.Name, CSP: CSP, Caution: format.Caution, Engine: p.engine()}
 	if inline != nil {
 		d.Offline = true
 		d.CSP = inline.csp
@@ -331,12 +361,13 @@ func cspHash(content []byte) string {
 }
 
 // renderOffline writes the offline file: the full calculator page with the
-// stylesheet, the runtime, the bridge and the engine (gzip, base64) inlined,
-// and a policy that allows exactly those inline scripts and styles.
+// stylesheet, the runtime, the bridge, the worker's source and the engine
+// (gzip, base64) inlined, and a policy that allows exactly those inline
+// scripts and styles, and the worker the bridge makes from them.
 func renderOffline(s *site, p *page, layout string, assets map[string]asset, m interface {
 	Bytes(string, []byte) ([]byte, error)
-}, css, execJS, bridge, eng []byte) ([]byte, string, error) {
-	for _, part := range [][]byte{execJS, bridge} {
+}, css, execJS, bridge, worker, eng []byte) ([]byte, string, error) {
+	for _, part := range [][]byte{execJS, bridge, worker} {
 		if bytes.Contains(bytes.ToLower(part), []byte("</script")) {
 			return nil, "", fmt.Errorf("a script to inline contains </script")
 		}
@@ -344,8 +375,10 @@ func renderOffline(s *site, p *page, layout string, assets map[string]asset, m i
 	if bytes.Contains(bytes.ToLower(css), []byte("</style")) {
 		return nil, "", fmt.Errorf("the stylesheet contains </style")
 	}
+	// The engine's worker is made from the inlined runtime and worker
+	// source, as a blob.
 	csp := "default-src 'none'; script-src " + cspHash(execJS) + " " + cspHash(bridge) + " 'wasm-unsafe-eval'; style-src " + cspHash(css) +
-		"; img-src data:; base-uri 'none'; form-action 'none'"
+		"; worker-src blob:; img-src data:; base-uri 'none'; form-action 'none'"
 	out, err := renderPage(s, p, layout, assets, &inlineParts{csp: csp})
 	if err != nil {
 		return nil, "", err
@@ -354,7 +387,8 @@ func renderOffline(s *site, p *page, layout string, assets map[string]asset, m i
 	if err != nil {
 		return nil, "", fmt.Errorf("offline.html: cannot minify: %v", err)
 	}
-	head := "<style>" + string(css) + "</style><script>" + string(execJS) + "</script><script type=\"module\">" + string(bridge) + "</script></head>"
+	head := "<style>" + string(css) + "</style><script data-seatsmith-runtime>" + string(execJS) + "</script><script type=\"module\">" + string(bridge) + "</script>" +
+		"<script type=\"text/plain\" data-seatsmith-worker>" + string(worker) + "</script></head>"
 	body := "<script type=\"application/octet-stream\" data-seatsmith-engine data-encoding=\"gzip\">" +
 		base64.StdEncoding.EncodeToString(gzipBytes(eng)) + "</script></body>"
 	h := string(min)

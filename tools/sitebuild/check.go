@@ -25,7 +25,7 @@ func goldenText(p *page) string {
 		o := p.Outcomes[i]
 		writeGolden(&b, br.Block, o)
 	}
-	b.WriteString(forecastGolden(p))
+	b.WriteString(projectionGolden(p))
 	return b.String()
 }
 
@@ -228,7 +228,7 @@ func check(src, golden string, update bool, w io.Writer) ([]string, error) {
 	}
 	var bad []string
 	for _, p := range s.Pages {
-		if len(p.Blocks) == 0 && len(p.Forecasts) == 0 {
+		if len(p.Blocks) == 0 && len(p.Projections) == 0 {
 			continue
 		}
 		got := goldenText(p)

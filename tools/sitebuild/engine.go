@@ -8,27 +8,45 @@ import (
 	"seatsmith/wasm/wasmbuild"
 )
 
-// buildEngine compiles the WebAssembly engine (package seatsmith/wasm)
-// with the release flags and returns its bytes. A prebuilt file is used
-// instead when prebuilt is not empty.
-func buildEngine(prebuilt string) ([]byte, error) {
-	if prebuilt != "" {
-		data, err := os.ReadFile(prebuilt)
+// Engines are the WebAssembly modules a site carries: the calculator
+// module every page with a calculator loads, and the analysis module
+// (a superset) that only pages with variation or projection blocks load.
+type Engines struct {
+	Calculator, Analysis []byte
+}
+
+// buildEngines compiles both modules with the release flags and returns
+// their bytes. When prebuilt is not empty it names a folder holding them
+// already, as wasmbuild.Build writes them (seatsmith.wasm and
+// seatsmith-analysis.wasm).
+func buildEngines(prebuilt string) (*Engines, error) {
+	dir := prebuilt
+	if dir == "" {
+		tmp, err := os.MkdirTemp("", "sitebuild-engine-")
 		if err != nil {
-			return nil, fmt.Errorf("-wasm: %v", err)
+			return nil, err
 		}
-		return data, nil
+		defer os.RemoveAll(tmp)
+		dir = filepath.Join(tmp, "engine")
+		if _, _, err := wasmbuild.Build(dir); err != nil {
+			return nil, fmt.Errorf("building the WebAssembly modules: %v", err)
+		}
 	}
-	tmp, err := os.MkdirTemp("", "sitebuild-engine-")
-	if err != nil {
-		return nil, err
+	var e Engines
+	for _, m := range []struct {
+		dst  *[]byte
+		file string
+	}{{&e.Calculator, wasmbuild.Calculator.File}, {&e.Analysis, wasmbuild.Analysis.File}} {
+		data, err := os.ReadFile(filepath.Join(dir, m.file))
+		if err != nil {
+			if prebuilt != "" {
+				return nil, fmt.Errorf("-wasm: %v", err)
+			}
+			return nil, err
+		}
+		*m.dst = data
 	}
-	defer os.RemoveAll(tmp)
-	wasm, _, err := wasmbuild.Build(filepath.Join(tmp, "engine"))
-	if err != nil {
-		return nil, fmt.Errorf("building the WebAssembly engine: %v", err)
-	}
-	return os.ReadFile(wasm)
+	return &e, nil
 }
 
 // wasmExecJS returns Go's wasm_exec.js, the runtime support the engine

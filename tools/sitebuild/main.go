@@ -4,9 +4,9 @@
 //
 // Usage:
 //
-//	sitebuild build [-src site/content] [-out DIR] [-wasm FILE]
+//	sitebuild build [-src site/content] [-out DIR] [-wasm DIR]
 //	sitebuild check [-src site/content] [-golden testdata/site] [-update]
-//	sitebuild serve [-src site/content] [-addr 127.0.0.1:8080] [-wasm FILE]
+//	sitebuild serve [-src site/content] [-addr 127.0.0.1:8080] [-wasm DIR]
 //
 // build renders every page of the site sources with html/template,
 // computes every calculator's results with the native engine (so that the
@@ -113,7 +113,7 @@ func cmdBuild(args []string, stdout, stderr io.Writer) error {
 	fs := flag.NewFlagSet("build", flag.ContinueOnError)
 	src := fs.String("src", filepath.Join("site", "content"), "the site sources")
 	out := fs.String("out", "dist", "the folder to write the site into")
-	wasm := fs.String("wasm", "", "use this prebuilt engine (.wasm) instead of building it")
+	wasm := fs.String("wasm", "", "use the prebuilt modules in `DIR` (seatsmith.wasm, seatsmith-analysis.wasm) instead of building them")
 	if err := parseFlags(fs, args, stderr); err != nil {
 		return err
 	}

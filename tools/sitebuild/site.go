@@ -20,8 +20,8 @@ type page struct {
 	Blocks []blockRef
 	// Outcomes are the calculators' results for the page's own numbers.
 	Outcomes []*calc.Outcome
-	// Forecasts are the page's projection blocks (see forecast.go).
-	Forecasts []*forecastRef
+	// Projections are the page's projection blocks (see projection.go).
+	Projections []*projectionRef
 }
 
 // A site is every page of the site sources.
@@ -34,6 +34,7 @@ type site struct {
 // and checks every claim. Every false claim is reported, not just the
 // first.
 func loadSite(src string) (*site, error) {
+	calc.UseVariations() // the site has every kind of block
 	files, err := filepath.Glob(filepath.Join(src, "pages", "*.html"))
 	if err != nil {
 		return nil, err
@@ -71,7 +72,7 @@ func loadPage(file string) (*page, []string, error) {
 		return nil, nil, &input.Error{File: file, Msg: "cannot read: " + err.Error()}
 	}
 	p := &page{File: file, Name: strings.TrimSuffix(filepath.Base(file), ".html"), Source: string(data)}
-	forecastBad, err := expandForecasts(p)
+	projectionBad, err := expandProjections(p)
 	if err != nil {
 		return nil, nil, err
 	}
@@ -80,7 +81,7 @@ func loadPage(file string) (*page, []string, error) {
 		return nil, nil, err
 	}
 	claimIDs := map[string]string{}
-	bad := forecastBad
+	bad := projectionBad
 	for _, br := range p.Blocks {
 		b := br.Block
 		o := calc.Run(b, nil)
@@ -115,10 +116,29 @@ func (p *page) claimIDs() map[string]bool {
 			ids[c.ID] = true
 		}
 	}
-	for _, f := range p.Forecasts {
+	for _, f := range p.Projections {
 		for _, c := range f.Config.Claims {
 			ids[c.ID] = true
 		}
 	}
 	return ids
+}
+
+// engine returns the asset name of the WebAssembly module the page's
+// blocks need: the analysis module for variation blocks, paradox claims
+// and projections, the calculator module for calculators alone, and ""
+// for a page without blocks.
+func (p *page) engine() string {
+	if len(p.Projections) > 0 {
+		return "seatsmith-analysis.wasm"
+	}
+	for _, br := range p.Blocks {
+		if br.Block.NeedsAnalysis() {
+			return "seatsmith-analysis.wasm"
+		}
+	}
+	if len(p.Blocks) > 0 {
+		return "seatsmith.wasm"
+	}
+	return ""
 }

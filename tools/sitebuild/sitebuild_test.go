@@ -35,7 +35,7 @@ func TestGoldens(t *testing.T) {
 
 // TestLiveMatchesPrerender renders every calculator's results both ways:
 // as the build prerenders them and as the browser asks the engine for them
-// (calc.Live, the function the WebAssembly engine exposes). They must be
+// (calc.Answer, behind the WebAssembly engine's calculator function). They must be
 // the same markup.
 func TestLiveMatchesPrerender(t *testing.T) {
 	s, err := loadSite(siteSrc)
@@ -48,7 +48,11 @@ func TestLiveMatchesPrerender(t *testing.T) {
 			pre := render.HTML(calc.Output(p.Outcomes[i]))
 			req := jsondoc.NewObject().Set("block_text", jsondoc.Str(br.JSON)).Set("id", jsondoc.Str(br.Block.ID)).
 				Set("mode", jsondoc.Str(br.Block.Mode.String()))
-			resp := calc.Live(req)
+			r, err := calc.DecodeRequest(req)
+			if err != nil {
+				t.Fatal(err)
+			}
+			resp := calc.Answer(r).Doc()
 			if st := resp.Get("state"); st == nil || st.Text != "live" {
 				t.Fatalf("%s/%s: live state %s", p.Name, br.Block.ID, jsondoc.Marshal(resp))
 			}
@@ -140,7 +144,7 @@ func TestBadPageSources(t *testing.T) {
 		t.Run(c.name, func(t *testing.T) {
 			dir := writeSite(t, pageHead+block(c.json))
 			out := filepath.Join(t.TempDir(), "out")
-			_, err := Build(Options{Src: dir, Out: out, Engine: []byte("\x00asm")})
+			_, err := Build(Options{Src: dir, Out: out, Engines: fakeEngines})
 			if err == nil {
 				t.Fatal("no error")
 			}
@@ -156,14 +160,14 @@ func TestBadPageSources(t *testing.T) {
 	}
 	t.Run("block without script", func(t *testing.T) {
 		dir := writeSite(t, pageHead+"<div data-seatsmith id=\"c\">\n<p>no data</p>\n</div>\n{{end}}\n")
-		_, err := Build(Options{Src: dir, Out: filepath.Join(t.TempDir(), "out"), Engine: []byte("\x00asm")})
+		_, err := Build(Options{Src: dir, Out: filepath.Join(t.TempDir(), "out"), Engines: fakeEngines})
 		if err == nil || !strings.Contains(err.Error(), "calculator.html:4: script:") {
 			t.Fatalf("got %v", err)
 		}
 	})
 	t.Run("unknown claim reference", func(t *testing.T) {
 		dir := writeSite(t, strings.Replace(pageHead, "<p>Intro.</p>", "<p>{{claim \"nope\" \"text\"}}</p>", 1)+block(goodScenario))
-		_, err := Build(Options{Src: dir, Out: filepath.Join(t.TempDir(), "out"), Engine: []byte("\x00asm")})
+		_, err := Build(Options{Src: dir, Out: filepath.Join(t.TempDir(), "out"), Engines: fakeEngines})
 		if err == nil || !strings.Contains(err.Error(), "calculator.html") || !strings.Contains(err.Error(), `"nope"`) {
 			t.Fatalf("got %v", err)
 		}
@@ -178,7 +182,7 @@ func TestFalseClaimFailsBuild(t *testing.T) {
 	old := filepath.Join(t.TempDir(), "out")
 	os.MkdirAll(old, 0o755)
 	os.WriteFile(filepath.Join(old, "keep.txt"), []byte("previous build"), 0o644)
-	_, err := Build(Options{Src: dir, Out: old, Engine: []byte("\x00asm")})
+	_, err := Build(Options{Src: dir, Out: old, Engines: fakeEngines})
 	if err == nil {
 		t.Fatal("a false claim did not fail the build")
 	}
@@ -198,7 +202,7 @@ func TestFalseClaimFailsBuild(t *testing.T) {
 func TestBuildOutput(t *testing.T) {
 	dir := writeSite(t, pageHead+`<p>{{claim "north-six" "North gets six"}}</p>`+"\n"+block(goodScenario))
 	out := filepath.Join(t.TempDir(), "out")
-	st, err := Build(Options{Src: dir, Out: out, Engine: []byte("\x00asm\x01\x00\x00\x00")})
+	st, err := Build(Options{Src: dir, Out: out, Engines: fakeEngines})
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -299,3 +303,6 @@ func TestMinifierKeepsNumbers(t *testing.T) {
 		t.Errorf("numbers changed in a data block: %s", h)
 	}
 }
+
+// fakeEngines stand in for the modules where a test does not run them.
+var fakeEngines = &Engines{Calculator: []byte("\x00asm\x01\x00\x00\x00"), Analysis: []byte("\x00asm\x01\x00\x00\x00a")}

@@ -1,31 +1,37 @@
 // Command wasmsize reports the download size of seatsmith's WebAssembly
-// engine against the smallest useful js/wasm program built by the same
-// toolchain with the same flags (GOOS=js GOARCH=wasm, -trimpath,
-// -ldflags="-s -w"): one that sets a single global function and blocks.
-// Both are compressed with gzip at its best compression, as a server or an
-// inlined page would send them, and the ratio of the compressed sizes is
-// the figure to watch (the target is at most 1.5).
+// modules, the calculator module (seatsmith.wasm, which every page with a
+// calculator loads) and the analysis module (seatsmith-analysis.wasm),
+// against the smallest useful js/wasm program built by the same toolchain
+// with the same flags (wasmbuild.Flags): one that sets a single global
+// function with syscall/js and blocks. Each is compressed with gzip at its
+// best compression, as a server or an inlined page would send it, and the
+// ratio of the compressed sizes is the figure to watch: the calculator
+// module's target is at most 1.8.
 //
 // Two more baselines split what the engine is built on from what seatsmith
 // adds. The interop program is the minimal program reaching the page
 // through hack-pad/safejs (package seatsmith/tools/wasmsize/interop); the
 // floor also uses math/big for exact arithmetic (package
 // seatsmith/tools/wasmsize/floor). The interop program over the minimal
-// one is what safejs costs by itself, and the target's room beside it is
-// all that is left for math/big and seatsmith's code; the floor over the
-// minimal program is what both libraries cost before any of seatsmith's
-// own code; the engine over the floor is what seatsmith's own code costs.
+// one is what safejs costs by itself (with fmt, reflect and os, which it
+// imports); the floor over the minimal program is what both libraries cost
+// before any of seatsmith's own code (math/big imports fmt as well); a
+// module over the floor is what seatsmith's own code costs.
 //
 // Usage:
 //
-//	go run ./tools/wasmsize [-json] [-packages N] [-funcs N] [-check]
+//	go run ./tools/wasmsize [-module calculator|analysis] [-packages N] [-funcs N] [-json] [-check]
 //
 // -packages N also lists the N Go packages with the most code in the
-// engine, from the function names of a build that keeps them (the code is
-// the same; only the name section differs), beside the same packages'
-// code in the minimal program; -funcs N lists the N largest functions.
-// (go tool nm does not read WebAssembly binaries, so wasmsize reads the
-// code and name sections itself.) -check exits with status 1 when the ratio
+// module named by -module (the calculator module unless told), sorted, from
+// the function names of a build that keeps them (the same flags without
+// -s: the code is the same, only the name section differs), beside the
+// same packages' code in the minimal program, and says which of the
+// module's packages import the reflection-heavy ones (fmt, reflect,
+// encoding/json, encoding/csv, text/template, html/template) and os;
+// -funcs N lists the N largest functions. (go tool nm does not read
+// WebAssembly binaries, so wasmsize reads the code and name sections
+// itself.) -check exits with status 1 when the calculator module's ratio
 // is above the target. It must run inside the seatsmith module.
 package main
 
@@ -35,10 +41,7 @@ import (
 	"flag"
 	"io"
 	"os"
-	"os/exec"
 	"path/filepath"
-	"regexp"
-	"sort"
 	"strconv"
 	"strings"
 
@@ -46,9 +49,9 @@ import (
 	"seatsmith/wasm/wasmbuild"
 )
 
-// Target is the largest acceptable ratio of the engine's gzipped size to
-// the minimal program's.
-const Target = 1.5
+// Target is the largest acceptable ratio of the calculator module's
+// gzipped size to the minimal program's.
+const Target = 1.8
 
 // minimalProgram is the baseline: one global function, then block.
 const minimalProgram = `package main
@@ -73,6 +76,9 @@ type build struct {
 	// and Funcs lists the functions, largest first (filled with -packages).
 	Packages map[string]int
 	Funcs    []function
+	// Importers maps each heavy package the module links to the module's
+	// packages that import it (filled with -packages).
+	Importers map[string][]string
 }
 
 func main() {
@@ -83,9 +89,10 @@ func run(args []string, stdout, stderr io.Writer) int {
 	fs := flag.NewFlagSet("wasmsize", flag.ContinueOnError)
 	fs.SetOutput(stderr)
 	asJSON := fs.Bool("json", false, "print one JSON object instead of a table")
-	top := fs.Int("packages", 0, "also list the `N` packages with the most code in the engine")
-	funcs := fs.Int("funcs", 0, "also list the `N` largest functions in the engine")
-	check := fs.Bool("check", false, "exit with status 1 when the gzipped ratio is above the target")
+	module := fs.String("module", wasmbuild.Calculator.Name, "the module whose packages and functions -packages and -funcs list: calculator or analysis")
+	top := fs.Int("packages", 0, "also list the `N` packages with the most code in the module")
+	funcs := fs.Int("funcs", 0, "also list the `N` largest functions in the module")
+	check := fs.Bool("check", false, "exit with status 1 when the calculator module's gzipped ratio is above the target")
 	if err := fs.Parse(args); err != nil {
 		return 2
 	}
@@ -93,18 +100,27 @@ func run(args []string, stdout, stderr io.Writer) int {
 		io.WriteString(stderr, "wasmsize: no arguments expected\n")
 		return 2
 	}
-	bs, err := measure(*top > 0 || *funcs > 0)
+	var mod wasmbuild.Module
+	for _, m := range wasmbuild.Modules() {
+		if m.Name == *module {
+			mod = m
+		}
+	}
+	if mod.Name == "" {
+		io.WriteString(stderr, "wasmsize: -module: "+strconv.Quote(*module)+" is not a module (calculator or analysis)\n")
+		return 2
+	}
+	bs, err := measure(mod, *top > 0 || *funcs > 0)
 	if err != nil {
 		io.WriteString(stderr, "wasmsize: "+err.Error()+"\n")
 		return 1
 	}
-	ratio := float64(bs.engine.Gzip) / float64(bs.minimal.Gzip)
 	if *asJSON {
-		stdout.Write(jsondoc.MarshalIndent(report(bs, ratio, *top, *funcs), "  "))
+		stdout.Write(jsondoc.MarshalIndent(report(bs, *top, *funcs), "  "))
 	} else {
-		writeTable(stdout, bs, ratio, *top, *funcs)
+		writeTable(stdout, bs, *top, *funcs)
 	}
-	if *check && ratio > Target {
+	if *check && bs.ratio(bs.calculator) > Target {
 		return 1
 	}
 	return 0
@@ -116,23 +132,29 @@ const (
 	floorPackage   = "seatsmith/tools/wasmsize/floor"
 )
 
-// builds are the modules wasmsize measures: the engine and its baselines.
+// builds are the modules wasmsize measures and their baselines.
 type builds struct {
-	engine, minimal *build
-	interop         *build // the minimal program with safejs
-	floor           *build // ... and with math/big
+	calculator, analysis *build
+	minimal              *build
+	interop              *build // the minimal program with safejs
+	floor                *build // ... and with math/big
+	// listed is the module -packages and -funcs describe.
+	listed *build
 }
 
-// measure builds and measures the engine and the baselines; with names it
-// also attributes the engine's and the minimal program's code to packages.
-func measure(names bool) (*builds, error) {
+// ratio is x's gzipped size over the minimal program's.
+func (bs *builds) ratio(x *build) float64 { return float64(x.Gzip) / float64(bs.minimal.Gzip) }
+
+// measure builds and measures the modules and the baselines; with names it
+// also attributes the code of the module listed and of the minimal program
+// to packages.
+func measure(listed wasmbuild.Module, names bool) (*builds, error) {
 	dir, err := os.MkdirTemp("", "wasmsize-")
 	if err != nil {
 		return nil, err
 	}
 	defer os.RemoveAll(dir)
-	wasm, _, err := wasmbuild.Build(filepath.Join(dir, "engine"))
-	if err != nil {
+	if _, _, err := wasmbuild.Build(filepath.Join(dir, "engine")); err != nil {
 		return nil, err
 	}
 	src := filepath.Join(dir, "minimal")
@@ -162,14 +184,21 @@ func measure(names bool) (*builds, error) {
 			return nil, err
 		}
 	}
-	if bs.engine, err = measureFile("engine", wasm); err != nil {
+	if bs.calculator, err = measureFile(wasmbuild.Calculator.Name, filepath.Join(dir, "engine", wasmbuild.Calculator.File)); err != nil {
+		return nil, err
+	}
+	if bs.analysis, err = measureFile(wasmbuild.Analysis.Name, filepath.Join(dir, "engine", wasmbuild.Analysis.File)); err != nil {
 		return nil, err
 	}
 	if bs.minimal, err = measureFile("minimal", minWasm); err != nil {
 		return nil, err
 	}
+	bs.listed = bs.calculator
+	if listed.Name == wasmbuild.Analysis.Name {
+		bs.listed = bs.analysis
+	}
 	if names {
-		if err := attribute(bs.engine, "", wasmbuild.Package, filepath.Join(dir, "engine-named.wasm")); err != nil {
+		if err := attribute(bs.listed, "", listed.Package, filepath.Join(dir, "named.wasm")); err != nil {
 			return nil, err
 		}
 		if err := attribute(bs.minimal, src, ".", filepath.Join(dir, "minimal-named.wasm")); err != nil {
@@ -211,187 +240,96 @@ func gzipSize(data []byte) (int, error) {
 	return buf.Len(), nil
 }
 
-// attribute builds pkg again keeping function names (-ldflags=-w, no -s)
-// and adds up the code of each package into b.Packages.
-func attribute(b *build, dir, pkg, out string) error {
-	args := []string{"build", "-trimpath", "-ldflags=-w", "-o", out, pkg}
-	cmd := exec.Command("go", args...)
-	cmd.Dir = dir
-	cmd.Env = append(os.Environ(), "GOOS=js", "GOARCH=wasm", "CGO_ENABLED=0")
-	if msg, err := cmd.CombinedOutput(); err != nil {
-		return &buildError{pkg, err, msg}
-	}
-	data, err := os.ReadFile(out)
-	if err != nil {
-		return err
-	}
-	m, err := readModule(data)
-	if err != nil {
-		return err
-	}
-	paths, err := packagePaths(dir, pkg)
-	if err != nil {
-		return err
-	}
-	b.Packages = map[string]int{}
-	for _, f := range m.funcs {
-		b.Packages[packageOf(f.name, paths)] += f.size
-	}
-	b.Funcs = append([]function(nil), m.funcs...)
-	sort.SliceStable(b.Funcs, func(i, j int) bool { return b.Funcs[i].size > b.Funcs[j].size })
-	return nil
-}
-
-type buildError struct {
-	pkg string
-	err error
-	msg []byte
-}
-
-func (e *buildError) Error() string {
-	return "building " + e.pkg + " with names: " + e.err.Error() + "\n" + strings.TrimSpace(string(e.msg))
-}
-
-// The linker writes function names with every character other than
-// letters, digits, '_' and '.' replaced by '_' (cmd/link's wasm writer).
-var mangle = regexp.MustCompile(`[^\w.]`)
-
-// packagePaths returns the packages pkg is built from, keyed by their
-// mangled path.
-func packagePaths(dir, pkg string) (map[string]string, error) {
-	cmd := exec.Command("go", "list", "-deps", pkg)
-	cmd.Dir = dir
-	cmd.Env = append(os.Environ(), "GOOS=js", "GOARCH=wasm")
-	out, err := cmd.Output()
-	if err != nil {
-		return nil, &buildError{pkg, err, nil}
-	}
-	paths := map[string]string{}
-	list := strings.Fields(string(out))
-	for _, p := range list {
-		paths[mangle.ReplaceAllString(p, "_")] = p
-	}
-	if len(list) > 0 {
-		paths["main"] = list[len(list)-1] // the program's own package comes last
-	}
-	return paths, nil
-}
-
-// packageOf returns the package of a mangled function name: the longest
-// known package path that, followed by '.', begins the name. Functions of
-// no package (type equality and hash functions, wrappers) are grouped by
-// their prefix.
-func packageOf(name string, paths map[string]string) string {
-	best := ""
-	for i := 0; i < len(name); i++ {
-		if name[i] != '.' {
-			continue
-		}
-		if p, ok := paths[name[:i]]; ok && len(p) > len(best) {
-			best = p
-		}
-	}
-	if best != "" {
-		return best
-	}
-	if i := strings.IndexAny(name, "._"); i > 0 {
-		return "(" + name[:i] + ")"
-	}
-	return "(other)"
-}
-
-type pkgSize struct {
-	path             string
-	engine, baseline int
-}
-
-func topPackages(engine, minimal *build, n int) []pkgSize {
-	var ps []pkgSize
-	for p, size := range engine.Packages {
-		ps = append(ps, pkgSize{p, size, minimal.Packages[p]})
-	}
-	sort.Slice(ps, func(i, j int) bool {
-		if ps[i].engine != ps[j].engine {
-			return ps[i].engine > ps[j].engine
-		}
-		return ps[i].path < ps[j].path
-	})
-	if len(ps) > n {
-		ps = ps[:n]
-	}
-	return ps
-}
-
-func writeTable(w io.Writer, bs *builds, ratio float64, top, funcs int) {
-	engine, minimal := bs.engine, bs.minimal
+func writeTable(w io.Writer, bs *builds, top, funcs int) {
 	var b strings.Builder
 	row := func(cells ...string) {
-		b.WriteString(pad(cells[0], 16, false))
+		b.WriteString(pad(cells[0], 12, false))
 		for _, c := range cells[1:] {
 			b.WriteString(pad(c, 12, true))
 		}
 		b.WriteString("\n")
 	}
-	row("", "bytes", "gzip -9", "code", "data")
-	for _, x := range []*build{engine, minimal, bs.interop, bs.floor} {
-		row(x.Name, itoa(x.Bytes), itoa(x.Gzip), itoa(x.Code), itoa(x.Data))
+	row("", "bytes", "gzip -9", "÷ minimal", "code", "data")
+	for _, x := range []*build{bs.calculator, bs.analysis, bs.minimal, bs.interop, bs.floor} {
+		row(x.Name, itoa(x.Bytes), itoa(x.Gzip), ftoa(bs.ratio(x)), itoa(x.Code), itoa(x.Data))
 	}
-	row("ratio", ftoa(float64(engine.Bytes)/float64(minimal.Bytes)), ftoa(ratio),
-		ftoa(float64(engine.Code)/float64(minimal.Code)), ftoa(float64(engine.Data)/float64(minimal.Data)))
+	ratio := bs.ratio(bs.calculator)
 	verdict := "within"
 	if ratio > Target {
 		verdict = "ABOVE"
 	}
-	over := func(x *build) string { return ftoa(float64(x.Gzip) / float64(minimal.Gzip)) }
-	b.WriteString("\ngzipped engine / gzipped minimal = " + ftoa(ratio) + ": " + verdict + " the target of " + ftoa(Target) + "\n")
-	b.WriteString("gzipped interop / gzipped minimal = " + over(bs.interop) + " (safejs alone); the target leaves " +
-		itoa(room(bs)) + " bytes gzipped beside it for math/big and seatsmith's code\n")
-	b.WriteString("gzipped floor / gzipped minimal = " + over(bs.floor) + " (safejs and math/big alone)\n")
-	b.WriteString("(engine - floor) / minimal, gzipped = " + ftoa(float64(engine.Gzip-bs.floor.Gzip)/float64(minimal.Gzip)) + " (seatsmith's own code)\n")
+	b.WriteString("\ngzipped calculator / gzipped minimal = " + ftoa(ratio) + ": " + verdict + " the target of " + ftoa(Target) + "\n")
+	b.WriteString("gzipped analysis / gzipped minimal = " + ftoa(bs.ratio(bs.analysis)) + "\n")
+	b.WriteString("gzipped interop / gzipped minimal = " + ftoa(bs.ratio(bs.interop)) + " (safejs alone, with the fmt, reflect and os it imports)\n")
+	b.WriteString("gzipped floor / gzipped minimal = " + ftoa(bs.ratio(bs.floor)) + " (safejs and math/big alone); the target leaves " +
+		itoa(room(bs)) + " bytes gzipped beside the floor for seatsmith's own code\n")
+	b.WriteString("(calculator - floor) / minimal, gzipped = " + ftoa(float64(bs.calculator.Gzip-bs.floor.Gzip)/float64(bs.minimal.Gzip)) + " (seatsmith's own code)\n")
 	if top > 0 {
-		b.WriteString("\ncode by package (function bodies, bytes)\n")
-		b.WriteString(pad("package", 44, false) + pad("engine", 10, true) + pad("minimal", 10, true) + pad("added", 10, true) + "\n")
-		for _, p := range topPackages(engine, minimal, top) {
-			b.WriteString(pad(p.path, 44, false) + pad(itoa(p.engine), 10, true) + pad(itoa(p.baseline), 10, true) + pad(itoa(p.engine-p.baseline), 10, true) + "\n")
+		b.WriteString("\ncode by package in the " + bs.listed.Name + " module (function bodies, bytes)\n")
+		b.WriteString(pad("package", 44, false) + pad(bs.listed.Name, 12, true) + pad("minimal", 10, true) + pad("added", 10, true) + "\n")
+		for _, p := range topPackages(bs.listed, bs.minimal, top) {
+			b.WriteString(pad(p.path, 44, false) + pad(itoa(p.module), 12, true) + pad(itoa(p.baseline), 10, true) + pad(itoa(p.module-p.baseline), 10, true) + "\n")
+		}
+		b.WriteString("\nheavy packages in the " + bs.listed.Name + " module and the packages that import them\n")
+		for _, h := range heavyPackages {
+			if imp, ok := bs.listed.Importers[h]; ok {
+				b.WriteString(pad(h, 16, false) + itoa(bs.listed.Packages[h]) + " bytes; imported by " + strings.Join(imp, ", ") + "\n")
+			}
 		}
 	}
 	if funcs > 0 {
-		b.WriteString("\nlargest functions in the engine (names as the linker writes them, bytes)\n")
-		for _, f := range engine.Funcs[:min(funcs, len(engine.Funcs))] {
+		b.WriteString("\nlargest functions in the " + bs.listed.Name + " module (names as the linker writes them, bytes)\n")
+		for _, f := range bs.listed.Funcs[:min(funcs, len(bs.listed.Funcs))] {
 			b.WriteString(pad(itoa(f.size), 10, true) + "  " + f.name + "\n")
 		}
 	}
 	io.WriteString(w, b.String())
 }
 
-// room is what the target leaves, in gzipped bytes, beside safejs: the
-// target's size less the interop baseline's.
-func room(bs *builds) int { return int(Target*float64(bs.minimal.Gzip)) - bs.interop.Gzip }
+// room is what the target leaves, in gzipped bytes, beside the floor: the
+// target's size less the floor's.
+func room(bs *builds) int { return int(Target*float64(bs.minimal.Gzip)) - bs.floor.Gzip }
 
-func report(bs *builds, ratio float64, top, funcs int) *jsondoc.Value {
-	engine, minimal, floor := bs.engine, bs.minimal, bs.floor
+func report(bs *builds, top, funcs int) *jsondoc.Value {
 	one := func(x *build) *jsondoc.Value {
 		return jsondoc.NewObject().Set("bytes", jsondoc.Int(x.Bytes)).Set("gzip", jsondoc.Int(x.Gzip)).
+			Set("ratio", jsondoc.Num(ftoa(bs.ratio(x)))).
 			Set("code", jsondoc.Int(x.Code)).Set("data", jsondoc.Int(x.Data))
 	}
-	v := jsondoc.NewObject().Set("engine", one(engine)).Set("minimal", one(minimal)).Set("interop", one(bs.interop)).Set("floor", one(floor))
-	v.Set("interop_ratio", jsondoc.Num(ftoa(float64(bs.interop.Gzip)/float64(minimal.Gzip))))
-	v.Set("room_beside_interop", jsondoc.Int(room(bs)))
-	v.Set("floor_ratio", jsondoc.Num(ftoa(float64(floor.Gzip)/float64(minimal.Gzip))))
-	v.Set("own_ratio", jsondoc.Num(ftoa(float64(engine.Gzip-floor.Gzip)/float64(minimal.Gzip))))
-	v.Set("ratio", jsondoc.Num(ftoa(ratio))).Set("raw_ratio", jsondoc.Num(ftoa(float64(engine.Bytes)/float64(minimal.Bytes))))
+	v := jsondoc.NewObject()
+	for _, x := range []*build{bs.calculator, bs.analysis, bs.minimal, bs.interop, bs.floor} {
+		v.Set(x.Name, one(x))
+	}
+	ratio := bs.ratio(bs.calculator)
+	v.Set("room_beside_floor", jsondoc.Int(room(bs)))
+	v.Set("own_ratio", jsondoc.Num(ftoa(float64(bs.calculator.Gzip-bs.floor.Gzip)/float64(bs.minimal.Gzip))))
+	v.Set("ratio", jsondoc.Num(ftoa(ratio)))
 	v.Set("target", jsondoc.Num(ftoa(Target))).Set("within_target", jsondoc.Boolean(ratio <= Target))
+	if top > 0 || funcs > 0 {
+		v.Set("listed", jsondoc.Str(bs.listed.Name))
+	}
 	if top > 0 {
 		arr := jsondoc.NewArray()
-		for _, p := range topPackages(engine, minimal, top) {
-			arr.Append(jsondoc.NewObject().Set("package", jsondoc.Str(p.path)).Set("engine", jsondoc.Int(p.engine)).
+		for _, p := range topPackages(bs.listed, bs.minimal, top) {
+			arr.Append(jsondoc.NewObject().Set("package", jsondoc.Str(p.path)).Set("module", jsondoc.Int(p.module)).
 				Set("minimal", jsondoc.Int(p.baseline)))
 		}
 		v.Set("packages", arr)
+		imp := jsondoc.NewObject()
+		for _, h := range heavyPackages {
+			if by, ok := bs.listed.Importers[h]; ok {
+				list := jsondoc.NewArray()
+				for _, p := range by {
+					list.Append(jsondoc.Str(p))
+				}
+				imp.Set(h, list)
+			}
+		}
+		v.Set("importers", imp)
 	}
 	if funcs > 0 {
 		arr := jsondoc.NewArray()
-		for _, f := range engine.Funcs[:min(funcs, len(engine.Funcs))] {
+		for _, f := range bs.listed.Funcs[:min(funcs, len(bs.listed.Funcs))] {
 			arr.Append(jsondoc.NewObject().Set("name", jsondoc.Str(f.name)).Set("bytes", jsondoc.Int(f.size)))
 		}
 		v.Set("functions", arr)

@@ -7,6 +7,7 @@ import (
 	"testing"
 
 	"seatsmith/engine/jsondoc"
+	"seatsmith/wasm/wasmbuild"
 )
 
 // uleb writes n as unsigned LEB128.
@@ -75,14 +76,14 @@ func TestReadModule(t *testing.T) {
 
 func TestPackageOf(t *testing.T) {
 	paths := map[string]string{}
-	for _, p := range []string{"runtime", "math/big", "seatsmith/engine", "seatsmith/engine/report", "github.com/hack-pad/safejs", "github.com/hack-pad/safejs/internal/catch"} {
+	for _, p := range []string{"runtime", "math/big", "seatsmith/engine", "seatsmith/engine/format", "github.com/hack-pad/safejs", "github.com/hack-pad/safejs/internal/catch"} {
 		paths[mangle.ReplaceAllString(p, "_")] = p
 	}
 	for _, tc := range []struct{ name, want string }{
 		{"runtime.mallocgc", "runtime"},
 		{"math_big.nat.divRecursiveStep", "math/big"},
 		{"seatsmith_engine.__problem_.allot", "seatsmith/engine"},
-		{"seatsmith_engine_report.unitDoc", "seatsmith/engine/report"},
+		{"seatsmith_engine_format.unitDoc", "seatsmith/engine/format"},
 		{"github.com_hack_pad_safejs.Value.Get", "github.com/hack-pad/safejs"},
 		{"github.com_hack_pad_safejs_internal_catch.Try_go.shape.int_", "github.com/hack-pad/safejs/internal/catch"},
 		{"type_.eq.main.x", "(type)"},
@@ -94,7 +95,8 @@ func TestPackageOf(t *testing.T) {
 	}
 }
 
-// The command as people run it: it builds both modules and reports.
+// The command as people run it: it builds both modules and the baselines
+// and reports.
 func TestRun(t *testing.T) {
 	var out, errs bytes.Buffer
 	if code := run([]string{"-json", "-packages", "5", "-funcs", "3"}, &out, &errs); code != 0 {
@@ -115,24 +117,35 @@ func TestRun(t *testing.T) {
 		f, _ := strconv.ParseFloat(x.Text, 64)
 		return f
 	}
-	e, m := num("engine", "gzip"), num("minimal", "gzip")
-	if e <= m || m <= 0 || num("engine", "bytes") <= e {
-		t.Errorf("implausible sizes: engine gzip %v, minimal gzip %v", e, m)
+	e, m := num("calculator", "gzip"), num("minimal", "gzip")
+	if e <= m || m <= 0 || num("calculator", "bytes") <= e {
+		t.Errorf("implausible sizes: calculator gzip %v, minimal gzip %v", e, m)
+	}
+	if a := num("analysis", "gzip"); a <= e {
+		t.Errorf("the analysis module (%v gzipped), a superset, is not larger than the calculator module (%v)", a, e)
 	}
 	if r := num("ratio"); r < e/m-0.01 || r > e/m+0.01 {
 		t.Errorf("ratio %v, want %v", r, e/m)
 	}
+	if r := num("calculator", "ratio"); r != num("ratio") {
+		t.Errorf("calculator.ratio %v, ratio %v", r, num("ratio"))
+	}
 	if f := num("floor", "gzip"); f <= m || f >= e {
-		t.Errorf("floor gzip %v: want between the minimal program's %v and the engine's %v", f, m, e)
+		t.Errorf("floor gzip %v: want between the minimal program's %v and the calculator module's %v", f, m, e)
 	}
 	if i, f := num("interop", "gzip"), num("floor", "gzip"); i <= m || i >= f {
 		t.Errorf("interop gzip %v: want between the minimal program's %v and the floor's %v", i, m, f)
 	}
-	if r, i := num("room_beside_interop"), num("interop", "gzip"); r < 1.5*m-i-1 || r > 1.5*m-i+1 {
-		t.Errorf("room_beside_interop %v, want %v", r, 1.5*m-i)
+	if r, f := num("room_beside_floor"), num("floor", "gzip"); r < Target*m-f-1 || r > Target*m-f+1 {
+		t.Errorf("room_beside_floor %v, want %v", r, Target*m-f)
 	}
 	if r, f := num("own_ratio"), num("floor", "gzip"); r < (e-f)/m-0.01 || r > (e-f)/m+0.01 {
 		t.Errorf("own_ratio %v, want %v", r, (e-f)/m)
+	}
+	// safejs imports fmt: the table names it.
+	fmtBy := v.Get("importers").Get("fmt")
+	if fmtBy == nil || !strings.Contains(string(jsondoc.Marshal(fmtBy)), "github.com/hack-pad/safejs") {
+		t.Errorf("importers of fmt: %s", jsondoc.Marshal(v.Get("importers")))
 	}
 	if n := len(v.Get("packages").Items); n != 5 {
 		t.Errorf("%d packages listed, want 5", n)
@@ -142,5 +155,33 @@ func TestRun(t *testing.T) {
 	}
 	if code := run([]string{"extra"}, &out, &errs); code != 2 {
 		t.Errorf("wasmsize extra exited %d, want 2", code)
+	}
+	if code := run([]string{"-module", "viewer"}, &out, &errs); code != 2 {
+		t.Errorf("wasmsize -module viewer exited %d, want 2", code)
+	}
+}
+
+func TestImporters(t *testing.T) {
+	deps := []dep{
+		{"errors", nil},
+		{"fmt", []string{"errors"}},
+		{"reflect", []string{"errors"}},
+		{"lib", []string{"fmt", "reflect"}},
+		{"main", []string{"lib", "fmt", "os"}}, // os is not built in
+	}
+	got := importers(deps, heavyPackages)
+	if len(got) != 2 || strings.Join(got["fmt"], ",") != "lib,main" || strings.Join(got["reflect"], ",") != "lib" {
+		t.Errorf("importers = %v", got)
+	}
+}
+
+func TestNamedFlags(t *testing.T) {
+	for _, f := range namedFlags() {
+		if strings.HasPrefix(f, "-ldflags=") && strings.Contains(" "+f+" ", " -s ") {
+			t.Errorf("the named build strips names: %q", f)
+		}
+	}
+	if len(namedFlags()) != len(wasmbuild.Flags) {
+		t.Errorf("named flags %q against release flags %q", namedFlags(), wasmbuild.Flags)
 	}
 }

@@ -307,15 +307,9 @@ func badCases(t *testing.T) []testCase {
 }
 
 func TestEngineUnderNode(t *testing.T) {
-	node, err := exec.LookPath("node")
-	if err != nil {
-		t.Fatal("these tests run the engine under Node; install node (the CI script does): ", err)
-	}
+	mods, node := modules(t)
+	wasm := filepath.Join(mods, wasmbuild.Calculator.File)
 	dir := t.TempDir()
-	wasm, execJS, err := wasmbuild.Build(dir)
-	if err != nil {
-		t.Fatal(err)
-	}
 
 	// The cases: random scenarios through allot and compare, some of their
 	// tables through readCSV, with the bad calls spread between them so
@@ -378,7 +372,7 @@ func TestEngineUnderNode(t *testing.T) {
 	}
 	outPath := filepath.Join(dir, "out.ndjson")
 	start := time.Now()
-	cmd := exec.Command(node, "--stack-size=8192", filepath.Join("testdata", "harness.js"), execJS, wasm, casesPath, outPath)
+	cmd := exec.Command(node, "--stack-size=8192", filepath.Join("testdata", "harness.js"), execJS(mods), wasm, casesPath, outPath)
 	msg, err := cmd.CombinedOutput()
 	if err != nil {
 		t.Fatalf("node: %v\n%s", err, msg)

@@ -14,7 +14,7 @@ import (
 
 	"seatsmith/engine/format"
 	"seatsmith/engine/jsondoc"
-	"seatsmith/site/forecast"
+	"seatsmith/site/projection"
 	"seatsmith/wasm/wasmbuild"
 )
 
@@ -39,15 +39,9 @@ func projectConfig(t testing.TB, errModel, rse string, draws int, seed uint64) *
 // chunks of chunk draws and returns one output line per config.
 func runProjectUnderNode(t testing.TB, configs []*jsondoc.Value, chunk int) []*jsondoc.Value {
 	t.Helper()
-	node, err := exec.LookPath("node")
-	if err != nil {
-		t.Fatal("these tests run the engine under Node; install node: ", err)
-	}
+	mods, node := modules(t)
+	wasm := filepath.Join(mods, wasmbuild.Analysis.File)
 	dir := t.TempDir()
-	wasm, execJS, err := wasmbuild.Build(dir)
-	if err != nil {
-		t.Fatal(err)
-	}
 	cases := jsondoc.NewArray()
 	for _, c := range configs {
 		cases.Append(jsondoc.NewObject().Set("config", c).Set("chunk", jsondoc.Int(chunk)))
@@ -56,7 +50,7 @@ func runProjectUnderNode(t testing.TB, configs []*jsondoc.Value, chunk int) []*j
 	if err := os.WriteFile(casesPath, jsondoc.Marshal(cases), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	cmd := exec.Command(node, "--stack-size=8192", filepath.Join("testdata", "project.js"), execJS, wasm, casesPath, outPath)
+	cmd := exec.Command(node, "--stack-size=8192", filepath.Join("testdata", "project.js"), execJS(mods), wasm, casesPath, outPath)
 	if msg, err := cmd.CombinedOutput(); err != nil {
 		t.Fatalf("node: %v\n%s", err, msg)
 	}
@@ -142,7 +136,7 @@ func TestProjectionUnderNode(t *testing.T) {
 	}
 	got := runProjectUnderNode(t, configs, 137)
 	for i, cfgDoc := range configs {
-		cfg, err := forecast.Parse("", 0, cfgDoc)
+		cfg, err := projection.Parse("", 0, cfgDoc)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -171,7 +165,7 @@ func TestProjectionUnderNode(t *testing.T) {
 func BenchmarkProjectionDraws(b *testing.B) {
 	const draws = 20000
 	cfgDoc := projectConfig(b, "normal", "3%", draws, 7)
-	cfg, err := forecast.Parse("", 0, cfgDoc)
+	cfg, err := projection.Parse("", 0, cfgDoc)
 	if err != nil {
 		b.Fatal(err)
 	}

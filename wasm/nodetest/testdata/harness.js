@@ -6,9 +6,11 @@
 //
 // CASES_JSON is an array of {fn, args} (arguments as JSON) or {fn, js} (a
 // JavaScript expression that evaluates to the argument array, for values
-// JSON cannot hold). OUT_NDJSON gets one line first describing the API
-// object, then one line per case: {type, ms, result} with the value
-// returned and the milliseconds the call took,
+// JSON cannot hold), with summary: true for a case whose answer is too
+// large to write out whole. OUT_NDJSON gets one line first describing the
+// API object, then one line per case: {type, ms, result} with the value
+// returned (or, for a summary, its kind, error, state, skipped and number
+// of units) and the milliseconds the call took,
 // or {threw} when the call threw, plus exited: true if the Go program has
 // stopped; and a last line {done, ms, exited}.
 "use strict";
@@ -16,6 +18,12 @@
 const fs = require("fs");
 const [execJS, wasmPath, casesPath, outPath] = process.argv.slice(2);
 require(execJS);
+
+function summary(r) {
+  if (!r || typeof r !== "object") return r;
+  const units = Array.isArray(r.units) ? r.units.length : undefined;
+  return { kind: r.kind, error: r.error, state: r.state, skipped: r.skipped, units };
+}
 
 async function main() {
   const go = new Go();
@@ -40,7 +48,7 @@ async function main() {
       const args = c.js !== undefined ? (0, eval)(c.js) : c.args;
       const t0 = performance.now();
       const r = api[c.fn](...args);
-      line = { type: r === null ? "null" : typeof r, ms: performance.now() - t0, result: r };
+      line = { type: r === null ? "null" : typeof r, ms: performance.now() - t0, result: c.summary ? summary(r) : r };
     } catch (e) {
       line = { threw: String((e && e.stack) || e) };
     }

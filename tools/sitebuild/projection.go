@@ -1,0 +1,214 @@
+package main
+
+import (
+	"bytes"
+	"context"
+	"errors"
+	"fmt"
+	"os"
+	"path"
+	"path/filepath"
+	"regexp"
+	"strconv"
+	"strings"
+
+	"seatsmith/engine/input"
+	"seatsmith/engine/jsondoc"
+	model "seatsmith/engine/projection"
+	"seatsmith/site/projection"
+
+	"github.com/tdewolff/minify/v2"
+)
+
+// A projectionRef is a projection block of a page: a <div data-projection>
+// holding one <script type="application/json"> element with its document
+// (see site/projection.Parse), whose "counts_file" names a file under the
+// site's scenarios/ folder. The build reads that file into the document,
+// runs the study natively with the block's fixed seed, checks its claims
+// and puts the prerendered block in place of the source.
+type projectionRef struct {
+	ID      string
+	Line    int
+	Config  *projection.Config
+	Summary *model.Summary
+}
+
+var projectionOpen = regexp.MustCompile(`<div\b[^>]*\bdata-projection\b[^>]*>`)
+
+// expandProjections replaces every projection block in p.Source by its
+// prerendered markup (keeping the page's line count) and records the
+// blocks in p.Projections. It returns a message for every claim that does
+// not hold; bad input is an *input.Error naming page, line and field.
+func expandProjections(p *page) ([]string, error) {
+	src := p.Source
+	scenarios := filepath.Join(filepath.Dir(filepath.Dir(p.File)), "scenarios")
+	var out strings.Builder
+	var bad []string
+	last := 0
+	ids := map[string]bool{}
+	for _, loc := range projectionOpen.FindAllStringIndex(src, -1) {
+		line := lineAt(src, loc[0])
+		fail := func(field, msg string) error { return &input.Error{File: p.File, Line: line, Field: field, Msg: msg} }
+		id := ""
+		for _, m := range attrRe.FindAllStringSubmatch(src[loc[0]+4:loc[1]-1], -1) {
+			switch m[1] {
+			case "id":
+				id = m[2] + m[3]
+			case "data-state":
+				return nil, fail("data-state", "the build sets data-state; leave it out of the page source")
+			}
+		}
+		if !idRe.MatchString(id) || ids[id] {
+			return nil, fail("id", "a projection block needs an id of its own on the page (a letter, then letters, digits, - or _)")
+		}
+		ids[id] = true
+		rest := src[loc[1]:]
+		st := scriptTag.FindStringIndex(rest)
+		if st == nil {
+			return nil, fail("script", `a projection block holds one <script type="application/json"> element with its document`)
+		}
+		bodyStart := loc[1] + st[1]
+		end := strings.Index(src[bodyStart:], "</script>")
+		if end < 0 {
+			return nil, fail("script", "the block's <script> element is never closed")
+		}
+		after := bodyStart + end + len("</script>")
+		cd := closeDiv.FindStringIndex(src[after:])
+		if cd == nil {
+			return nil, &input.Error{File: p.File, Line: lineAt(src, after), Field: "div", Msg: "a projection block holds only its <script> element; close the <div> right after it"}
+		}
+		blockEnd := after + cd[1]
+		jsonLine := lineAt(src, bodyStart)
+		v, err := jsondoc.Parse([]byte(strings.Repeat("\n", jsonLine-1) + src[bodyStart:bodyStart+end]))
+		if err != nil {
+			var se *jsondoc.SyntaxError
+			if errors.As(err, &se) {
+				return nil, &input.Error{File: p.File, Line: se.Line, Msg: "the projection block's JSON is malformed: " + se.Msg}
+			}
+			return nil, fail("", err.Error())
+		}
+		if v.Kind == jsondoc.Object {
+			if f := v.Get("counts_file"); f != nil && f.Kind == jsondoc.String {
+				if strings.ContainsAny(f.Text, `/\`) || strings.HasPrefix(f.Text, ".") {
+					return nil, fail("counts_file", strconv.Quote(f.Text)+" is not a file name in scenarios/")
+				}
+				data, err := os.ReadFile(filepath.Join(scenarios, f.Text))
+				if err != nil {
+					return nil, fail("counts_file", "cannot read "+f.Text+" from scenarios/: "+err.Error())
+				}
+				if v.Get("counts") != nil {
+					return nil, fail("counts", "give the counts either inline or as counts_file, not both")
+				}
+				v.Set("counts", jsondoc.Str(string(data)))
+			}
+		}
+		cfg, err := projection.Parse(p.File, line, v)
+		if err != nil {
+			return nil, err
+		}
+		s, err := cfg.Run(context.Background())
+		if err != nil {
+			var ie *input.Error
+			if errors.As(err, &ie) && ie.File != p.File {
+				// An error in the counts file: name the page too.
+				return nil, &input.Error{File: p.File, Line: line, Field: "counts_file", Msg: err.Error()}
+			}
+			return nil, err
+		}
+		for i := range cfg.Claims {
+			c := &cfg.Claims[i]
+			if vd := c.Check(s); !vd.Holds {
+				says := c.Text
+				if says == "" {
+					says = c.Statement()
+				}
+				bad = append(bad, p.File+":"+strconv.Itoa(line)+": projection "+strconv.Quote(id)+", claim "+strconv.Quote(c.ID)+
+					" does not hold with seed "+strconv.FormatUint(cfg.Seed, 10)+": it says "+strconv.Quote(says)+", but "+vd.Found)
+			}
+		}
+		js := string(jsondoc.Marshal(v))
+		// The markup goes into the page template's text: no "{{" may stay,
+		// and the JSON may not close its element.
+		js = strings.ReplaceAll(strings.ReplaceAll(js, "</", `<\/`), "{{", `{\u007b`)
+		html := projection.Prerender(cfg, id, js, s)
+		html = strings.ReplaceAll(html, "{{", "{&#123;")
+		out.WriteString(src[last:loc[0]])
+		out.WriteString(html)
+		out.WriteString(strings.Repeat("\n", strings.Count(src[loc[0]:blockEnd], "\n")))
+		last = blockEnd
+		p.Projections = append(p.Projections, &projectionRef{ID: id, Line: line, Config: cfg, Summary: s})
+	}
+	if last == 0 {
+		return nil, nil
+	}
+	out.WriteString(src[last:])
+	p.Source = out.String()
+	return bad, nil
+}
+
+// projectionGolden writes what a page's projection blocks show: every unit's
+// seats now and at the projection, the draws that lose and gain a seat and
+// the seat counts drawn, then every claim's verdict.
+func projectionGolden(p *page) string {
+	var b strings.Builder
+	for _, f := range p.Projections {
+		s := f.Summary
+		b.WriteString("\nprojection " + f.ID + ": " + s.Method.String() + ", " + strconv.Itoa(s.Seats) + " seats, to " + s.Target.String() +
+			", " + s.Growth.String() + ", " + s.Error.String() + " rse " + strconv.FormatFloat(s.RSE, 'g', -1, 64) +
+			", " + strconv.Itoa(s.Draws) + " draws, seed " + strconv.FormatUint(s.Seed, 10) + ", apportioned " + strconv.FormatInt(s.Apportioned, 10) + "\n")
+		for _, u := range s.Units {
+			b.WriteString("  " + u.Name + "\tprojected " + u.Central.String() + "\tnow " + strconv.Itoa(u.BaselineSeats) + "\tcentral " +
+				strconv.Itoa(u.CentralSeats) + "\tlose " + strconv.FormatInt(u.Lose.Draws, 10) + "\tgain " + strconv.FormatInt(u.Gain.Draws, 10) + "\tseats")
+			for _, d := range u.Dist {
+				b.WriteString(" " + strconv.Itoa(d.Seats) + ":" + strconv.FormatInt(d.Draws, 10))
+			}
+			b.WriteString("\n")
+		}
+		for i := range f.Config.Claims {
+			c := &f.Config.Claims[i]
+			v := c.Check(s)
+			verdict := "holds"
+			if !v.Holds {
+				verdict = "does not hold"
+			}
+			b.WriteString("  claim " + c.ID + ": " + verdict + ": " + v.Found + "\n")
+		}
+	}
+	return b.String()
+}
+
+// projectionAssets are the projection block's own files: its stylesheet
+// and the page script, which runs the draws on the bridge's engine.
+var projectionAssets = []struct{ name, dir, mediatype string }{
+	{"projection.css", "site/static", "text/css"},
+	{"projection.js", "wasm/js", "text/javascript"},
+}
+
+// addProjectionAssets minifies and fingerprints the projection block's
+// files and hands each to add. The page script's import of the bridge is
+// pointed at the bridge's fingerprinted name, beside it in assets/.
+func addProjectionAssets(root, src string, m *minify.M, add func(asset), bridge asset) error {
+	for _, a := range projectionAssets {
+		dir := filepath.Join(root, a.dir)
+		if a.dir == "site/static" {
+			dir = filepath.Join(src, "static")
+		}
+		raw, err := os.ReadFile(filepath.Join(dir, a.name))
+		if err != nil {
+			return err
+		}
+		if a.name == "projection.js" {
+			const imp = "from './bridge.js'"
+			if !bytes.Contains(raw, []byte(imp)) {
+				return fmt.Errorf("%s: no import %s to point at the built bridge", a.name, imp)
+			}
+			raw = bytes.Replace(raw, []byte(imp), []byte("from './"+path.Base(bridge.Path)+"'"), 1)
+		}
+		min, err := minifyAs(m, a.mediatype, raw, a.name)
+		if err != nil {
+			return err
+		}
+		add(fingerprint("assets", a.name, min))
+	}
+	return nil
+}

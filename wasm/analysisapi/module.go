@@ -1,0 +1,30 @@
+package analysisapi
+
+import (
+	"seatsmith/site/calc"
+	"seatsmith/site/projection"
+	"seatsmith/wasm/api"
+)
+
+// Module returns the functions and limits of the analysis module: every
+// function of the calculator module, its calculator serving variation
+// blocks too (sweep, growth and admit; see calc.UseVariations), and sweep,
+// projectStart, projectRun, projectResult and projectDrop.
+func Module() ([]api.Function, []api.Limit) {
+	calc.UseVariations()
+	fns := append(api.Calculator(),
+		api.Function{Name: "sweep", Call: sweep},
+		api.Function{Name: "projectStart", Call: projectStart},
+		api.Function{Name: "projectRun", Call: projectRun},
+		api.Function{Name: "projectResult", Call: projectResult},
+		api.Function{Name: "projectDrop", Call: projectDrop},
+	)
+	limits := append(api.Limits(),
+		api.Limit{Key: "sweep_cells", Value: MaxSweepCells},
+		api.Limit{Key: "sweep_sizes", Value: calc.MaxSweepSizes},
+		api.Limit{Key: "draws", Value: projection.MaxDraws},
+		api.Limit{Key: "draws_per_call", Value: maxChunk},
+		api.Limit{Key: "projection_units", Value: projection.MaxUnits},
+	)
+	return fns, limits
+}
