@@ -213,7 +213,7 @@ func (w *marginWorker) certify(i int) int {
 		}
 		if a.quota != b.quota {
 			// The Droop quota moves with the total between the ends.
-			if !w.cornersHold(i, a, b) {
+			if !w.cornersHold(i, a) {
 				return certifyNone
 			}
 			same = false
@@ -272,33 +272,64 @@ func (w *marginWorker) boundsHold(a *lrPassTrace, rems []u128) bool {
 }
 
 // cornersHold proves a pass of the Droop quota the same all along when the
-// quota differs at the ends (a and b): it rises with the total, a person at
-// a time, as unit i's population moves. With the whole parts fixed, every
-// remainder p_u - f_u·Q is linear in the population of unit i and in the
-// quota, so the smallest of one set of remainders less the largest of
-// another is concave in both, and positive over the rectangle of
-// populations and quotas between the ends if it is at its four corners.
-// There the bounds must hold as boundsHold has them, and unit i's whole
-// part must be the same where it is least and where greatest.
-func (w *marginWorker) cornersHold(i int, a, b *lrPassTrace) bool {
-	p0, p1 := min(w.trPop[0], w.trPop[1]), max(w.trPop[0], w.trPop[1])
-	q0, q1 := a.quota, b.quota
-	if q0.cmp(q1) > 0 {
-		q0, q1 = q1, q0
-	}
+// quota differs at the ends (a and b). The quota is a step function of unit
+// i's population p: with R the pass's other units' population and W =
+// (seats+1) people, it is k+1 people where p = k·W + j - R, 0 <= j < W.
+// With the whole parts fixed every remainder is linear in (k, j): p_u -
+// f_u·(k+1) people for another unit, k·W + j - R - f_i·(k+1) people for
+// unit i. The populations between the ends are the points of at most three
+// rectangles of (k, j): the rest of the first quota's stretch, the whole
+// stretches between, and the start of the last one. Over each, the
+// smallest of one set of remainders less the largest of another is concave,
+// and positive if it is at the rectangle's corners; unit i's whole part
+// f_i (p - f_i·Q >= 0 and p - (f_i+1)·Q < 0, linear too) is the same all
+// over if it is there. Every corner is a population between the ends with
+// its own quota, so the check is exact: it fails only where some
+// population between the ends breaks a bound as boundsHold has it, or
+// changes unit i's whole part. (The other units' whole parts fall as the
+// quota rises, and are the same at both ends.) A rectangle of populations
+// and quotas taken apart would hold pairs that never occur, such as the
+// greatest population with the least quota, where unit i's whole part can
+// be one more than at any population between: a whole part a few people
+// short of the next all along would then cut the stretches to those few
+// people.
+func (w *marginWorker) cornersHold(i int, a *lrPassTrace) bool {
 	pos := slices.Index(a.units, i)
 	if pos < 0 {
 		return false
 	}
-	f := a.whole[pos]
-	if wholeOf(p0, q1) != f || wholeOf(p1, q0) != f {
-		return false
+	p0, p1 := min(w.trPop[0], w.trPop[1]), max(w.trPop[0], w.trPop[1])
+	var rest u128
+	for _, u := range a.units {
+		if u != i {
+			rest, _ = rest.add64(w.q.pops[u])
+		}
 	}
-	for _, p := range [2]uint64{p0, p1} {
-		for _, q := range [2]u128{q0, q1} {
-			if !w.boundsHold(a, w.cornerRems(a, i, p, q)) {
-				return false
-			}
+	sc := pow10(w.pr.places)
+	width := (uint64(a.seats) + 1) * sc // at most (10^9+1)·10^9 people
+	t0, _ := rest.add64(p0)
+	t1, _ := rest.add64(p1)
+	_, j0 := t0.div64(width)
+	_, j1 := t1.div64(width)
+	// The first quota's stretch ends at e0, the last one starts at s1.
+	e0, s1 := p0+(width-1-j0), p1-j1
+	pts := [8]uint64{p0, p1}
+	n := 2
+	if e0 < p1 {
+		pts[2], pts[3] = e0, s1
+		n = 4
+		if s1-e0 > 1 {
+			// Whole stretches between: their first and last populations.
+			pts[4], pts[5], pts[6], pts[7] = e0+1, e0+width, s1-width, s1-1
+			n = 8
+		}
+	}
+	f := a.whole[pos]
+	for _, p := range pts[:n] {
+		t, _ := rest.add64(p)
+		q := droopQuota(t, a.seats, sc)
+		if wholeOf(p, q) != f || !w.boundsHold(a, w.cornerRems(a, i, p, q)) {
+			return false
 		}
 	}
 	return true
