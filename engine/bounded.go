@@ -241,34 +241,45 @@ func (w *marginWorker) certify(i int) int {
 // every unit for which it does (one that needs the seat to reach its
 // minimum, or is at its maximum) and has the seat ranks above every unit
 // without one, and every such unit without it ranks below every unit with
-// one (a deciding which units have one).
+// one (a deciding which units have one). Among equal remainders at the cut
+// the units that need the seat come first, those at their maximum last,
+// and within each of the two in input order (cutGroups): a unit ranks
+// above another with the same remainder when its role comes first, or when
+// the role is the same and so is the unit first in input order. Each
+// condition holds for every pair of a unit with a seat and one without
+// when it holds for the weakest of the first in each role and the
+// strongest of the second in each role.
 func (w *marginWorker) boundsHold(a *lrPassTrace, rems []u128) bool {
 	pr := w.pr
-	var minWin, maxLose, minDecWin, maxDecLose u128
-	hasWin, hasLose, hasDecWin, hasDecLose := false, false, false, false
+	// By role (seatNeeded, seatFree, seatBarred: the order at equal
+	// remainders): the position of the weakest unit with a seat and of the
+	// strongest without; -1 for none.
+	win, lose := [3]int{-1, -1, -1}, [3]int{-1, -1, -1}
 	for j, u := range a.units {
 		if a.place[j] == 3 {
 			continue
 		}
-		r := rems[j]
-		decides := pr.remainderRole(u, a.whole[j]) != seatFree
+		g := pr.remainderRole(u, a.whole[j])
 		if a.win[j] {
-			if !hasWin || r.cmp(minWin) < 0 {
-				minWin, hasWin = r, true
+			if k := win[g]; k < 0 || rems[j].cmp(rems[k]) <= 0 {
+				win[g] = j // the later of equals ranks lower
 			}
-			if decides && (!hasDecWin || r.cmp(minDecWin) < 0) {
-				minDecWin, hasDecWin = r, true
+		} else if k := lose[g]; k < 0 || rems[j].cmp(rems[k]) > 0 {
+			lose[g] = j // the earlier of equals ranks higher
+		}
+	}
+	for gw, x := range win {
+		for gl, y := range lose {
+			if x < 0 || y < 0 || (gw == int(seatFree) && gl == int(seatFree)) {
+				continue // free units' seats decide no bound
 			}
-		} else {
-			if !hasLose || r.cmp(maxLose) > 0 {
-				maxLose, hasLose = r, true
-			}
-			if decides && (!hasDecLose || r.cmp(maxDecLose) > 0) {
-				maxDecLose, hasDecLose = r, true
+			c := rems[x].cmp(rems[y])
+			if c < 0 || (c == 0 && (gw > gl || (gw == gl && x > y))) {
+				return false
 			}
 		}
 	}
-	return !(hasDecWin && hasLose && minDecWin.cmp(maxLose) <= 0) && !(hasDecLose && hasWin && maxDecLose.cmp(minWin) >= 0)
+	return true
 }
 
 // cornersHold proves a pass of the Droop quota the same all along when the

@@ -63,6 +63,29 @@ var marginCases = []marginCase{
 		units: []caseUnit{unitPop("0"), unitPop("1"), {pop: "6", min: -1, max: 173}, unitPop("153105302"),
 			unitPop("6993930165"), unitPop("4865485723"), unitPop("3"), unitPop("62"), unitPop("14")},
 	},
+	{
+		// Units of equal population, one at its maximum of none, tie at
+		// the cut with units free of their bounds. The one at its maximum
+		// ranks last among them all along; holding every tie against it
+		// as a change of pass cut every stretch to one quota's width.
+		name: "droop tie at the cut between units at their maximum and free units",
+		m:    Droop, seats: 4, tie: TieRule{Kind: TieByOrder},
+		units: []caseUnit{{pop: "6299165.0029", min: -1, max: 0}, unitPop("6299165.0029"), unitPop("311.1292"),
+			unitPop("6299165.0029"), {pop: "6299165.0029", min: -1, max: 4}, {pop: "6299165.0029", min: -1, max: 2},
+			unitPop("4.0858"), unitPop("6299165.0029"), unitPop("0"), unitPop("147637.0068"),
+			{pop: "0", min: -1, max: 4}, unitPop("32.0005")},
+	},
+	{
+		// A unit that needs its seat to reach its minimum ties at the cut
+		// with a free one of the same population: it takes the seat all
+		// along, while the large unit's loss runs through ten million
+		// people.
+		name: "droop tie at the cut between a unit that needs the seat and a free one",
+		m:    Droop, seats: 37, tie: TieRule{Kind: TieByLot},
+		units: []caseUnit{{pop: "1", min: -1, max: 31}, unitPop("1"), {pop: "31505", min: 1, max: -1},
+			unitPop("1"), unitPop("1"), unitPop("11263745"), unitPop("31505"), {pop: "1", min: 1, max: -1},
+			unitPop("9"), unitPop("1"), unitPop("1")},
+	},
 }
 
 func TestMarginCases(t *testing.T) {

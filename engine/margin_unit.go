@@ -67,8 +67,8 @@ func (w *marginWorker) setPop(i int, p uint64) {
 // seats, one more seat outright.
 func (w *marginWorker) gain(i, a int) (uint64, bool) {
 	pr := w.pr
-	if a >= pr.max[i] {
-		return 0, false
+	if a >= pr.max[i] || a >= pr.h {
+		return 0, false // no unit holds more than every seat
 	}
 	defer w.setPop(i, pr.pops[i])
 	return w.change(i, a, +1, min(MaxCoefficient-pr.pops[i], pr.gainLimitWith(i, w.total)))
