@@ -1,6 +1,9 @@
 package engine
 
-import "slices"
+import (
+	"math"
+	"slices"
+)
 
 // This file finds a margin under a largest-remainder method when some
 // units have a minimum or a maximum (or when the Droop quota could leave
@@ -109,15 +112,90 @@ func (w *marginWorker) nextWhole(i, dir int, lo uint64) uint64 {
 				tot, _ = tot.add64(w.q.pops[u])
 			}
 		}
-		if tot.hi != 0 || w.pr.m != Hamilton {
+		switch {
+		case w.pr.m == Droop:
+			next = min(next, droopWholeChange(x, w.q.pops, pos, p, tot.float(), pow10(w.pr.places), dir))
+		case tot.hi != 0:
 			return lo + 1
+		default:
+			next = min(next, hareWholeChange(x, w.q.pops, pos, p, tot.lo, dir))
 		}
-		next = min(next, hareWholeChange(x, w.q.pops, pos, p, tot.lo, dir))
 	}
 	if next == ^uint64(0) || next > ^uint64(0)-lo {
 		return lo + 1
 	}
 	return lo + max(next, 1)
+}
+
+// droopWholeChange guesses after how many more people of change (dir) a
+// whole part floor(p_u/Q) of the Droop pass x changes, unit i (at
+// position pos) moving from population p, the pass's total from t. The
+// quota is Q = (m+1)·sc with m = floor(T/W), W = (seats+1)·sc: it steps
+// once every W people of the total. Another unit's whole part moves one
+// way with the quota; unit i's runs a sawtooth, rising by one person a
+// person within a step and falling by its whole part at a step, so it
+// rises to f+1 within the first step whose last population reaches
+// (f+1)·Q, and falls below f only at the step next to the population,
+// taking people away, within the last step whose first population is below
+// f·Q. A guess in floating point, for nextWhole: one result is exact or a
+// few people off, which the search after it corrects.
+func droopWholeChange(x *lrPassTrace, pops []uint64, pos int, p uint64, t float64, sc uint64, dir int) uint64 {
+	w, q := float64(x.seats+1)*float64(sc), float64(sc)
+	pf := float64(p)
+	rest := t - pf
+	m0 := math.Floor(t/w) + 1 // the quota at p is m0·sc
+	first := func(m float64) float64 { return (m-1)*w - rest }
+	last := func(m float64) float64 { return m*w - 1 - rest }
+	best := math.Inf(1)
+	at := func(y float64) { // unit i's population y, after the change
+		if d := (y - pf) * float64(dir); d >= 1 && d < best {
+			best = d
+		}
+	}
+	f := float64(x.whole[pos])
+	for j, u := range x.units {
+		fu := float64(x.whole[j])
+		pu := float64(pops[u])
+		switch {
+		case j == pos && dir > 0:
+			// Rises to f+1 in the first step m >= m0 with last(m) >= (f+1)·m·sc.
+			if den := w - (f+1)*q; den > 0 {
+				m := max(m0, math.Ceil((rest+1)/den))
+				at(max(pf, first(m), (f+1)*q*m))
+			}
+			// Falls below f at the next step if its first population does.
+			if y := first(m0 + 1); y < f*q*(m0+1) {
+				at(y)
+			}
+		case j == pos:
+			// Falls below f in the last step m <= m0 whose first population
+			// is below f·m·sc.
+			if den := w - f*q; f > 0 && den > 0 {
+				m := min(m0, math.Ceil((w+rest)/den)-1)
+				if m >= 1 {
+					at(min(pf, f*q*m-1, last(m)))
+				}
+			}
+			// Rises to f+1 at the step before if its last population does.
+			if y := last(m0 - 1); m0 > 1 && y >= (f+1)*q*(m0-1) {
+				at(y)
+			}
+		case dir > 0:
+			// Another's falls below fu once the quota passes pu/fu.
+			if fu > 0 {
+				at(first(math.Floor(pu/(fu*q)) + 1))
+			}
+		default:
+			// Another's rises to fu+1 once the quota is at most pu/(fu+1).
+			if m := math.Floor(pu / ((fu + 1) * q)); m >= 1 && m < m0 {
+				at(last(m))
+			}
+		}
+	}
+	if best >= 1<<63 {
+		return ^uint64(0)
+	}
+	return uint64(best)
 }
 
 // hareWholeChange returns after how many more people of change (dir) a
