@@ -39,13 +39,33 @@ import (
 //     unit that needs, or is at its maximum, has none to change), and are
 //     counted.
 //
-// Under the Droop quota the quota may differ at the ends; every remainder
-// is then linear in the population and the quota together, and the bounds
-// are checked at the four corners of the two (cornersHold).
+// Under the Droop quota the quota may differ at the ends. It is a step
+// function of the population, and every remainder is linear in the step
+// and the population within it together; the bounds are checked at the
+// corners of the few rectangles of the two that hold the populations
+// between the ends, each a population that occurs, with its own quota
+// (cornersHold). The check is exact: it fails only where some population
+// in between decides differently.
 //
 // A stretch as long as it can be proven is found by galloping and
 // bisection from where a whole part is next due to change; the next
 // stretch starts where the passes change.
+//
+// How many stretches: each but the last ends where the next change
+// decides differently (the proof is exact), at a change of a whole part,
+// of a pass's units or seats, or of the order of a remainder whose seat
+// decides a bound against another. None of these depends on how far the
+// search runs: under Hamilton, with unit i's population moving one way,
+// every whole part moves one way, at most H times, and between two such
+// moves the remainders are linear in the population, so each pair crosses
+// at most once. Under the Droop quota the other units' whole parts move one
+// way with the quota; unit i's whole part and remainder run a sawtooth,
+// rising one person a person within a step of the quota and falling by the
+// whole part f at a step (W = (seats+1) people apart), so they gain W - f
+// people a step and cross any one value in at most f/(W-f) + 1 <= H + 1
+// steps. The count is at most polynomial in H and the number of units,
+// whatever the range; the loop below takes a stretch of at least one
+// change each time round.
 
 // boundedStretch finds the least change in [x, e] at which unit i's seats
 // meet the wish of dir, over which the units taking part stay the same.
