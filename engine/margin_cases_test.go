@@ -86,6 +86,17 @@ var marginCases = []marginCase{
 			unitPop("1"), unitPop("1"), unitPop("11263745"), unitPop("31505"), {pop: "1", min: 1, max: -1},
 			unitPop("9"), unitPop("1"), unitPop("1")},
 	},
+	{
+		// A unit at its maximum loses from 1.5·10^9 people down through
+		// every whole part of the first pass, each crossed many times as
+		// the quota steps: the stretches are looked for from where a
+		// whole part is next due to change.
+		name: "droop unit at its maximum losing through many quota steps",
+		m:    Droop, seats: 868, max: 436, tie: TieRule{Kind: TieByLot},
+		units: []caseUnit{unitPop("100000000"), unitPop("91"), {pop: "100000000", min: -1, max: 69},
+			unitPop("33"), {pop: "33", min: -1, max: 10}, unitPop("13881"), unitPop("436"),
+			{pop: "1539430237", min: 0, max: -1}, unitPop("5708"), unitPop("32"), unitPop("29"), unitPop("1662")},
+	},
 }
 
 func TestMarginCases(t *testing.T) {
