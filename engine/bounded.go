@@ -1,6 +1,9 @@
 package engine
 
-import "slices"
+import (
+	"math"
+	"slices"
+)
 
 // This file finds a margin under a largest-remainder method when some
 // units have a minimum or a maximum (or when the Droop quota could leave
@@ -36,13 +39,33 @@ import "slices"
 //     unit that needs, or is at its maximum, has none to change), and are
 //     counted.
 //
-// Under the Droop quota the quota may differ at the ends; every remainder
-// is then linear in the population and the quota together, and the bounds
-// are checked at the four corners of the two (cornersHold).
+// Under the Droop quota the quota may differ at the ends. It is a step
+// function of the population, and every remainder is linear in the step
+// and the population within it together; the bounds are checked at the
+// corners of the few rectangles of the two that hold the populations
+// between the ends, each a population that occurs, with its own quota
+// (cornersHold). The check is exact: it fails only where some population
+// in between decides differently.
 //
 // A stretch as long as it can be proven is found by galloping and
 // bisection from where a whole part is next due to change; the next
 // stretch starts where the passes change.
+//
+// How many stretches: each but the last ends where the next change
+// decides differently (the proof is exact), at a change of a whole part,
+// of a pass's units or seats, or of the order of a remainder whose seat
+// decides a bound against another. None of these depends on how far the
+// search runs: under Hamilton, with unit i's population moving one way,
+// every whole part moves one way, at most H times, and between two such
+// moves the remainders are linear in the population, so each pair crosses
+// at most once. Under the Droop quota the other units' whole parts move one
+// way with the quota; unit i's whole part and remainder run a sawtooth,
+// rising one person a person within a step of the quota and falling by the
+// whole part f at a step (W = (seats+1) people apart), so they gain W - f
+// people a step and cross any one value in at most f/(W-f) + 1 <= H + 1
+// steps. The count is at most polynomial in H and the number of units,
+// whatever the range; the loop below takes a stretch of at least one
+// change each time round.
 
 // boundedStretch finds the least change in [x, e] at which unit i's seats
 // meet the wish of dir, over which the units taking part stay the same.
@@ -109,15 +132,90 @@ func (w *marginWorker) nextWhole(i, dir int, lo uint64) uint64 {
 				tot, _ = tot.add64(w.q.pops[u])
 			}
 		}
-		if tot.hi != 0 || w.pr.m != Hamilton {
+		switch {
+		case w.pr.m == Droop:
+			next = min(next, droopWholeChange(x, w.q.pops, pos, p, tot.float(), pow10(w.pr.places), dir))
+		case tot.hi != 0:
 			return lo + 1
+		default:
+			next = min(next, hareWholeChange(x, w.q.pops, pos, p, tot.lo, dir))
 		}
-		next = min(next, hareWholeChange(x, w.q.pops, pos, p, tot.lo, dir))
 	}
 	if next == ^uint64(0) || next > ^uint64(0)-lo {
 		return lo + 1
 	}
 	return lo + max(next, 1)
+}
+
+// droopWholeChange guesses after how many more people of change (dir) a
+// whole part floor(p_u/Q) of the Droop pass x changes, unit i (at
+// position pos) moving from population p, the pass's total from t. The
+// quota is Q = (m+1)·sc with m = floor(T/W), W = (seats+1)·sc: it steps
+// once every W people of the total. Another unit's whole part moves one
+// way with the quota; unit i's runs a sawtooth, rising by one person a
+// person within a step and falling by its whole part at a step, so it
+// rises to f+1 within the first step whose last population reaches
+// (f+1)·Q, and falls below f only at the step next to the population,
+// taking people away, within the last step whose first population is below
+// f·Q. A guess in floating point, for nextWhole: one result is exact or a
+// few people off, which the search after it corrects.
+func droopWholeChange(x *lrPassTrace, pops []uint64, pos int, p uint64, t float64, sc uint64, dir int) uint64 {
+	w, q := float64(x.seats+1)*float64(sc), float64(sc)
+	pf := float64(p)
+	rest := t - pf
+	m0 := math.Floor(t/w) + 1 // the quota at p is m0·sc
+	first := func(m float64) float64 { return (m-1)*w - rest }
+	last := func(m float64) float64 { return m*w - 1 - rest }
+	best := math.Inf(1)
+	at := func(y float64) { // unit i's population y, after the change
+		if d := (y - pf) * float64(dir); d >= 1 && d < best {
+			best = d
+		}
+	}
+	f := float64(x.whole[pos])
+	for j, u := range x.units {
+		fu := float64(x.whole[j])
+		pu := float64(pops[u])
+		switch {
+		case j == pos && dir > 0:
+			// Rises to f+1 in the first step m >= m0 with last(m) >= (f+1)·m·sc.
+			if den := w - (f+1)*q; den > 0 {
+				m := max(m0, math.Ceil((rest+1)/den))
+				at(max(pf, first(m), (f+1)*q*m))
+			}
+			// Falls below f at the next step if its first population does.
+			if y := first(m0 + 1); y < f*q*(m0+1) {
+				at(y)
+			}
+		case j == pos:
+			// Falls below f in the last step m <= m0 whose first population
+			// is below f·m·sc.
+			if den := w - f*q; f > 0 && den > 0 {
+				m := min(m0, math.Ceil((w+rest)/den)-1)
+				if m >= 1 {
+					at(min(pf, f*q*m-1, last(m)))
+				}
+			}
+			// Rises to f+1 at the step before if its last population does.
+			if y := last(m0 - 1); m0 > 1 && y >= (f+1)*q*(m0-1) {
+				at(y)
+			}
+		case dir > 0:
+			// Another's falls below fu once the quota passes pu/fu.
+			if fu > 0 {
+				at(first(math.Floor(pu/(fu*q)) + 1))
+			}
+		default:
+			// Another's rises to fu+1 once the quota is at most pu/(fu+1).
+			if m := math.Floor(pu / ((fu + 1) * q)); m >= 1 && m < m0 {
+				at(last(m))
+			}
+		}
+	}
+	if best >= 1<<63 {
+		return ^uint64(0)
+	}
+	return uint64(best)
 }
 
 // hareWholeChange returns after how many more people of change (dir) a
@@ -213,7 +311,7 @@ func (w *marginWorker) certify(i int) int {
 		}
 		if a.quota != b.quota {
 			// The Droop quota moves with the total between the ends.
-			if !w.cornersHold(i, a, b) {
+			if !w.cornersHold(i, a) {
 				return certifyNone
 			}
 			same = false
@@ -241,64 +339,106 @@ func (w *marginWorker) certify(i int) int {
 // every unit for which it does (one that needs the seat to reach its
 // minimum, or is at its maximum) and has the seat ranks above every unit
 // without one, and every such unit without it ranks below every unit with
-// one (a deciding which units have one).
+// one (a deciding which units have one). Among equal remainders at the cut
+// the units that need the seat come first, those at their maximum last,
+// and within each of the two in input order (cutGroups): a unit ranks
+// above another with the same remainder when its role comes first, or when
+// the role is the same and so is the unit first in input order. Each
+// condition holds for every pair of a unit with a seat and one without
+// when it holds for the weakest of the first in each role and the
+// strongest of the second in each role.
 func (w *marginWorker) boundsHold(a *lrPassTrace, rems []u128) bool {
 	pr := w.pr
-	var minWin, maxLose, minDecWin, maxDecLose u128
-	hasWin, hasLose, hasDecWin, hasDecLose := false, false, false, false
+	// By role (seatNeeded, seatFree, seatBarred: the order at equal
+	// remainders): the position of the weakest unit with a seat and of the
+	// strongest without; -1 for none.
+	win, lose := [3]int{-1, -1, -1}, [3]int{-1, -1, -1}
 	for j, u := range a.units {
 		if a.place[j] == 3 {
 			continue
 		}
-		r := rems[j]
-		decides := pr.remainderRole(u, a.whole[j]) != seatFree
+		g := pr.remainderRole(u, a.whole[j])
 		if a.win[j] {
-			if !hasWin || r.cmp(minWin) < 0 {
-				minWin, hasWin = r, true
+			if k := win[g]; k < 0 || rems[j].cmp(rems[k]) <= 0 {
+				win[g] = j // the later of equals ranks lower
 			}
-			if decides && (!hasDecWin || r.cmp(minDecWin) < 0) {
-				minDecWin, hasDecWin = r, true
+		} else if k := lose[g]; k < 0 || rems[j].cmp(rems[k]) > 0 {
+			lose[g] = j // the earlier of equals ranks higher
+		}
+	}
+	for gw, x := range win {
+		for gl, y := range lose {
+			if x < 0 || y < 0 || (gw == int(seatFree) && gl == int(seatFree)) {
+				continue // free units' seats decide no bound
 			}
-		} else {
-			if !hasLose || r.cmp(maxLose) > 0 {
-				maxLose, hasLose = r, true
-			}
-			if decides && (!hasDecLose || r.cmp(maxDecLose) > 0) {
-				maxDecLose, hasDecLose = r, true
+			c := rems[x].cmp(rems[y])
+			if c < 0 || (c == 0 && (gw > gl || (gw == gl && x > y))) {
+				return false
 			}
 		}
 	}
-	return !(hasDecWin && hasLose && minDecWin.cmp(maxLose) <= 0) && !(hasDecLose && hasWin && maxDecLose.cmp(minWin) >= 0)
+	return true
 }
 
 // cornersHold proves a pass of the Droop quota the same all along when the
-// quota differs at the ends (a and b): it rises with the total, a person at
-// a time, as unit i's population moves. With the whole parts fixed, every
-// remainder p_u - f_u·Q is linear in the population of unit i and in the
-// quota, so the smallest of one set of remainders less the largest of
-// another is concave in both, and positive over the rectangle of
-// populations and quotas between the ends if it is at its four corners.
-// There the bounds must hold as boundsHold has them, and unit i's whole
-// part must be the same where it is least and where greatest.
-func (w *marginWorker) cornersHold(i int, a, b *lrPassTrace) bool {
-	p0, p1 := min(w.trPop[0], w.trPop[1]), max(w.trPop[0], w.trPop[1])
-	q0, q1 := a.quota, b.quota
-	if q0.cmp(q1) > 0 {
-		q0, q1 = q1, q0
-	}
+// quota differs at the ends (a and b). The quota is a step function of unit
+// i's population p: with R the pass's other units' population and W =
+// (seats+1) people, it is k+1 people where p = k·W + j - R, 0 <= j < W.
+// With the whole parts fixed every remainder is linear in (k, j): p_u -
+// f_u·(k+1) people for another unit, k·W + j - R - f_i·(k+1) people for
+// unit i. The populations between the ends are the points of at most three
+// rectangles of (k, j): the rest of the first quota's stretch, the whole
+// stretches between, and the start of the last one. Over each, the
+// smallest of one set of remainders less the largest of another is concave,
+// and positive if it is at the rectangle's corners; unit i's whole part
+// f_i (p - f_i·Q >= 0 and p - (f_i+1)·Q < 0, linear too) is the same all
+// over if it is there. Every corner is a population between the ends with
+// its own quota, so the check is exact: it fails only where some
+// population between the ends breaks a bound as boundsHold has it, or
+// changes unit i's whole part. (The other units' whole parts fall as the
+// quota rises, and are the same at both ends.) A rectangle of populations
+// and quotas taken apart would hold pairs that never occur, such as the
+// greatest population with the least quota, where unit i's whole part can
+// be one more than at any population between: a whole part a few people
+// short of the next all along would then cut the stretches to those few
+// people.
+func (w *marginWorker) cornersHold(i int, a *lrPassTrace) bool {
 	pos := slices.Index(a.units, i)
 	if pos < 0 {
 		return false
 	}
-	f := a.whole[pos]
-	if wholeOf(p0, q1) != f || wholeOf(p1, q0) != f {
-		return false
+	p0, p1 := min(w.trPop[0], w.trPop[1]), max(w.trPop[0], w.trPop[1])
+	var rest u128
+	for _, u := range a.units {
+		if u != i {
+			rest, _ = rest.add64(w.q.pops[u])
+		}
 	}
-	for _, p := range [2]uint64{p0, p1} {
-		for _, q := range [2]u128{q0, q1} {
-			if !w.boundsHold(a, w.cornerRems(a, i, p, q)) {
-				return false
-			}
+	sc := pow10(w.pr.places)
+	width := (uint64(a.seats) + 1) * sc // at most (10^9+1)·10^9 people
+	t0, _ := rest.add64(p0)
+	t1, _ := rest.add64(p1)
+	_, j0 := t0.div64(width)
+	_, j1 := t1.div64(width)
+	// The first quota's stretch ends at e0, the last one starts at s1.
+	e0, s1 := p0+(width-1-j0), p1-j1
+	pts := [8]uint64{p0, p1}
+	n := 2
+	if e0 < p1 {
+		pts[2], pts[3] = e0, s1
+		n = 4
+		if s1-e0 > 1 {
+			// Whole stretches between: their first and last populations.
+			pts[4], pts[5], pts[6], pts[7] = e0+1, e0+width, s1-width, s1-1
+			n = 8
+		}
+	}
+	f := a.whole[pos]
+	for _, p := range pts[:n] {
+		t, _ := rest.add64(p)
+		q := droopQuota(t, a.seats, sc)
+		if wholeOf(p, q) != f || !w.boundsHold(a, w.cornerRems(a, i, p, q)) {
+			return false
 		}
 	}
 	return true

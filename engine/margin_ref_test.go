@@ -448,43 +448,52 @@ func genSearchScenario(t *rapid.T, m Method) *Scenario {
 func TestMarginsMatchSearch(t *testing.T) {
 	for _, m := range Methods() {
 		t.Run(m.String(), func(t *testing.T) {
-			rapid.Check(t, func(t *rapid.T) {
-				s := genSearchScenario(t, m)
-				got, err := Allot(s, WithMargins)
-				if err != nil {
-					return
-				}
-				pr, err := prepare(s)
-				if err != nil {
-					t.Fatal(err)
-				}
-				o, err := pr.run(false)
-				if err != nil {
-					t.Fatal(err)
-				}
-				want := &Result{Units: make([]UnitResult, len(s.Units))}
-				pr.refMargins(o, want)
-				for i := range got.Units {
-					g, w := got.Units[i], want.Units[i]
-					if decPtr(g.Gain) != decPtr(w.Gain) {
-						checkByCount(t, s, i, "gain", g.Gain, w.Gain, func(x uint64) bool {
-							pops, places, _ := scaledPops(s)
-							return (g.Max < 0 || g.Seats < g.Max) && outrightSeats(s, i, pops[i]+x, places) > g.Seats
-						})
-					}
-					if decPtr(g.Lose) != decPtr(w.Lose) {
-						checkByCount(t, s, i, "lose", g.Lose, w.Lose, func(x uint64) bool {
-							pops, places, _ := scaledPops(s)
-							if x > pops[i] {
-								return false
-							}
-							k := outrightSeats(s, i, pops[i]-x, places)
-							return k >= 0 && k < g.Seats
-						})
-					}
-				}
-			})
+			rapid.Check(t, func(t *rapid.T) { checkMarginsMatchSearch(t, genSearchScenario(t, m)) })
 		})
+	}
+}
+
+// failer is what the margin checks need of *testing.T and *rapid.T.
+type failer interface {
+	Helper()
+	Fatalf(format string, args ...any)
+}
+
+// checkMarginsMatchSearch holds the margins of s to the search, unit by
+// unit (see TestMarginsMatchSearch).
+func checkMarginsMatchSearch(t failer, s *Scenario) {
+	t.Helper()
+	got, err := Allot(s, WithMargins)
+	if err != nil {
+		return
+	}
+	pr, err := prepare(s)
+	if err != nil {
+		t.Fatalf("%v", err)
+	}
+	o, err := pr.run(false)
+	if err != nil {
+		t.Fatalf("%v", err)
+	}
+	want := &Result{Units: make([]UnitResult, len(s.Units))}
+	pr.refMargins(o, want)
+	pops, places, _ := scaledPops(s)
+	for i := range got.Units {
+		g, w := got.Units[i], want.Units[i]
+		if decPtr(g.Gain) != decPtr(w.Gain) {
+			checkByCount(t, s, i, "gain", g.Gain, w.Gain, func(x uint64) bool {
+				return (g.Max < 0 || g.Seats < g.Max) && outrightSeats(s, i, pops[i]+x, places) > g.Seats
+			})
+		}
+		if decPtr(g.Lose) != decPtr(w.Lose) {
+			checkByCount(t, s, i, "lose", g.Lose, w.Lose, func(x uint64) bool {
+				if x > pops[i] {
+					return false
+				}
+				k := outrightSeats(s, i, pops[i]-x, places)
+				return k >= 0 && k < g.Seats
+			})
+		}
 	}
 }
 
@@ -493,7 +502,7 @@ func TestMarginsMatchSearch(t *testing.T) {
 // says whether a change does what the margin is for). Past countLimit
 // changes it checks the margin's own change and the one before, the
 // search's, and a thousand changes spread below the margin.
-func checkByCount(t *rapid.T, s *Scenario, i int, what string, got, search *Decimal, meets func(x uint64) bool) {
+func checkByCount(t failer, s *Scenario, i int, what string, got, search *Decimal, meets func(x uint64) bool) {
 	t.Helper()
 	_, places, _ := scaledPops(s)
 	scaled := func(d *Decimal) uint64 {

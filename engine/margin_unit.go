@@ -67,8 +67,8 @@ func (w *marginWorker) setPop(i int, p uint64) {
 // seats, one more seat outright.
 func (w *marginWorker) gain(i, a int) (uint64, bool) {
 	pr := w.pr
-	if a >= pr.max[i] {
-		return 0, false
+	if a >= pr.max[i] || a >= pr.h {
+		return 0, false // no unit holds more than every seat
 	}
 	defer w.setPop(i, pr.pops[i])
 	return w.change(i, a, +1, min(MaxCoefficient-pr.pops[i], pr.gainLimitWith(i, w.total)))
@@ -97,7 +97,10 @@ func (w *marginWorker) popAt(i, dir int, x uint64) uint64 {
 // people added, -1 taken away) at which unit i holds more (dir > 0) or
 // fewer (dir < 0) than a seats outright. The changes are taken in stretches
 // over which the units taking part stay the same; the population zero, at
-// the end of a loss, is a stretch of its own.
+// the end of a loss, is a stretch of its own. Each stretch but the last
+// ends at a change of the units taking part (nextBreak), and each unit
+// crosses the threshold at most once as unit i's population moves one
+// way: at most n+2 stretches.
 func (w *marginWorker) change(i, a, dir int, limit uint64) (uint64, bool) {
 	p := w.pr.pops[i]
 	for x := uint64(1); x <= limit; {
@@ -450,6 +453,10 @@ func (w *marginWorker) droopSearch(c *claimPass, i, dir int, x, e, hint uint64, 
 			j = int(jj)
 		}
 	}
+	// The stretch found meets ok at its end, and so does every later one:
+	// the loop goes past a stretch only where the pass cannot be
+	// apportioned there, which needs a total of at most (H+1)^2 people
+	// (feasible), at most H+1 stretches of H+1 people.
 	for ; j <= last+1; j++ {
 		lo, hi := x, e
 		if j > 0 {
