@@ -330,7 +330,7 @@ const hexDigits = "0123456789ABCDEF"
 
 // escapeValue writes text for a link: letters, digits, '.', '-' and '_'
 // as they are, a space as '_', every other byte as %XX; the empty text as
-// ''.
+// ”.
 func escapeValue(s string) string {
 	if s == "" {
 		return "''"
