@@ -14,10 +14,13 @@ import (
 )
 
 // embedPage writes a page of the built site holding one calculator block
-// (invented numbers) and returns its name.
+// (invented numbers) and returns its name. Its content has the side
+// padding of a host page's, into which a calculator on a phone reaches by
+// 0.3rem.
 func embedPage(t *testing.T, dir, name, id, block string) string {
 	t.Helper()
 	html := `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>` + name + `</title>
+<style>main { padding: 0 1rem; }</style>
 <script type="module" src="embed/bridge.js"></script></head><body><main>
 <h1>` + name + `</h1>
 <div class="seatsmith" id="` + id + `" data-seatsmith="compact">
@@ -221,7 +224,7 @@ func TestBrowserData(t *testing.T) {
 		t.Logf("the link's fragment: %s (%d characters)", frag, len(frag))
 
 		tb.shootPart("baseline-desktop.png", "#council", 1280)
-		tb.shootPart("baseline-phone.png", "#council [data-part=output]", 390)
+		tb.shootPart("baseline-phone.png", "#council [data-role=baseline]", 390)
 		tb.setWidth(320)
 		tb.settle()
 		if found := tb.overflowing(); len(found) > 0 {
