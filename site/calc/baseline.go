@@ -164,13 +164,13 @@ func fromTo(a, b string) string {
 // with words for screen readers.
 func changeCell(u *analysis.UnitDiff) *Node {
 	n := u.SeatChange
-	td := El("td", "class", "num sc-change")
+	td := El("td", "class", "num sc-shift")
 	switch {
 	case n > 0:
-		td.Set("class", "num sc-change sc-up")
+		td.Set("class", "num sc-shift sc-up")
 		td.Add(Wrap("span", "▲", "aria-hidden", "true"), Text(" +"+strconv.Itoa(n)), Wrap("span", " "+verb(n, "seat", "seats")+" gained", "class", "sc-vh"))
 	case n < 0:
-		td.Set("class", "num sc-change sc-down")
+		td.Set("class", "num sc-shift sc-down")
 		td.Add(Wrap("span", "▼", "aria-hidden", "true"), Text(" −"+strconv.Itoa(-n)), Wrap("span", " "+verb(-n, "seat", "seats")+" lost", "class", "sc-vh"))
 	default:
 		td.Add(Text("0"), Wrap("span", " seats unchanged", "class", "sc-vh"))

@@ -214,7 +214,7 @@ func TestBrowserData(t *testing.T) {
 		if !strings.Contains(summary, "1 seat moves") || !strings.Contains(summary, "Cobalt Alliance +1") || !strings.Contains(summary, "Amber List −1") {
 			t.Errorf("summary %q", summary)
 		}
-		if got := eval[string](tb, `document.querySelector('#council tr[data-diff-unit="Cobalt Alliance"] .sc-change').textContent`); got != "▲ +1 seat gained" {
+		if got := eval[string](tb, `document.querySelector('#council tr[data-diff-unit="Cobalt Alliance"] .sc-shift').textContent`); got != "▲ +1 seat gained" {
 			t.Errorf("the change reads %q", got)
 		}
 		view := eval[string](tb, `document.querySelector('#council [data-role=baseline]').textContent`)
