@@ -328,9 +328,14 @@ func decodeMethod(t string) (string, error) {
 
 const hexDigits = "0123456789ABCDEF"
 
-// escapeValue writes text for a link: letters, digits, '.', '-' and '_'
-// as they are, a space as '_', every other byte as %XX; the empty text as
-// ”.
+// plainByte reports whether a link writes c as it is.
+func plainByte(c byte) bool {
+	return c >= 'a' && c <= 'z' || c >= 'A' && c <= 'Z' || c >= '0' && c <= '9' || c == '.' || c == '-'
+}
+
+// escapeValue writes text for a link: letters, digits, '.' and '-' as
+// they are, a space as '_', every other byte as %XX; the empty text as two
+// apostrophes.
 func escapeValue(s string) string {
 	if s == "" {
 		return "''"
@@ -339,7 +344,7 @@ func escapeValue(s string) string {
 	for i := 0; i < len(s); i++ {
 		c := s[i]
 		switch {
-		case c >= 'a' && c <= 'z' || c >= 'A' && c <= 'Z' || c >= '0' && c <= '9' || c == '.' || c == '-':
+		case plainByte(c):
 			b.WriteByte(c)
 		case c == ' ':
 			b.WriteByte('_')
@@ -361,7 +366,7 @@ func unescapeValue(s string) (string, error) {
 	for i := 0; i < len(s); i++ {
 		c := s[i]
 		switch {
-		case c >= 'a' && c <= 'z' || c >= 'A' && c <= 'Z' || c >= '0' && c <= '9' || c == '.' || c == '-':
+		case plainByte(c):
 			b.WriteByte(c)
 		case c == '_':
 			b.WriteByte(' ')
