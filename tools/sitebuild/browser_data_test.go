@@ -87,6 +87,17 @@ func TestBrowserData(t *testing.T) {
 		if got := eval[string](tb, `document.querySelector('#workbench [data-role=chooser] label[for$="col-count"]').textContent`); got != "Population" {
 			t.Errorf("the count's column is called %q", got)
 		}
+		// The chooser fits a phone and passes axe-core.
+		tb.shootPart("chooser-phone.png", "#workbench [data-role=chooser]", 390)
+		tb.setWidth(320)
+		tb.settle()
+		if found := tb.overflowing(); len(found) > 0 {
+			t.Errorf("at 320 px %d elements stick out:%s", len(found), offenderReport(found))
+		}
+		if vs := tb.axe(axeSource(t)); len(vs) > 0 {
+			t.Errorf("axe-core with the chooser open: %d rules broken:%s", len(vs), axeReport(vs))
+		}
+		tb.setWidth(1280)
 		tb.do(chromedp.Click(chromedp.CSS(`#workbench [data-action="use-columns"]`)))
 		tb.waitFor("three units", `document.querySelectorAll('#workbench tr[data-unit]').length === 3`)
 		if got := eval[string](tb, unitsJS("#workbench")); got != "Alder Reach=1204000; Birchmoor=803500; Copse End=412250" {
