@@ -152,8 +152,9 @@ func columnChooser(b *Block, name string, sh *input.Sheet, guess input.Columns) 
 		grid.Add(fd)
 	}
 	box.Add(grid)
-	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "The first rows of "+name)
+	// The columns share the width, so that the first rows fit a phone.
 	t := El("table", "class", "sc-sheet")
+	t.Add(Wrap("caption", "The first rows of "+name))
 	head := El("tr", "data-role", "sheet-head")
 	for j := 0; j < width; j++ {
 		head.Add(Wrap("th", label(j), "scope", "col"))
@@ -171,8 +172,7 @@ func columnChooser(b *Block, name string, sh *input.Sheet, guess input.Columns) 
 		body.Add(tr)
 	}
 	t.Add(body)
-	wrap.Add(t)
-	box.Add(wrap)
+	box.Add(t)
 	acts := El("div", "class", "sc-actions")
 	acts.Add(Wrap("button", "Load these columns", "type", "button", "data-action", "use-columns"))
 	acts.Add(Wrap("button", "Cancel", "type", "button", "data-action", "cancel-columns"))
