@@ -642,8 +642,11 @@ export class Calculator {
     // Margins that need a search come at once for a small scenario (as the
     // page prerendered them) and on request for a large one.
     let r = await this.ask(Object.assign({ editor: true, margins: false }, link));
+    const linkError = r && r.link_error;
     if (r && !r.fatal) this.keep(r);
     if (r && r.margins_pending && r.margins_auto) r = (await this.ask({ editor: true })) || r;
+    // The second answer is for the scenario the link gave, or the page's.
+    if (linkError && r) r.link_error = linkError;
     if (!r) {
       this.wire();
       return;
