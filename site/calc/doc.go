@@ -37,6 +37,14 @@
 //	        again with that unit and added seats (default: its fair
 //	        share), and whose seats change (the new-states paradox)
 //
+// # Tables, baselines and links
+//
+// A [Request] may load a table as people paste or drop it, with a column
+// chooser first ([Load]); compare the scenario with a pinned baseline
+// (the comparison the seatsmith command's diff makes, laid out above the
+// results); and open a link. Every answer carries the short payload of its
+// link ([EncodeLink], [DecodeLink]).
+//
 // For growth and admit blocks, compare lists the methods whose findings
 // are summarised. Their claims may use the kinds that need what the block
 // adds (see claim.Context).

@@ -26,6 +26,12 @@ func docText(doc *jsondoc.Value, key string) string {
 // page rendered ahead of time: its controls are disabled until the engine
 // has loaded in the browser.
 func Editor(b *Block, doc *jsondoc.Value, live bool) *Node {
+	return editorFor(b, doc, live, false)
+}
+
+// editorFor is Editor with a baseline pinned or not, which the pin
+// buttons follow.
+func editorFor(b *Block, doc *jsondoc.Value, live, pinned bool) *Node {
 	if doc == nil {
 		doc = b.Doc
 	}
@@ -39,14 +45,14 @@ func Editor(b *Block, doc *jsondoc.Value, live bool) *Node {
 	if b.vary != nil {
 		b.vary.controls(fs, b, doc, id)
 	} else {
-		calculatorControls(fs, b, doc, id)
+		calculatorControls(fs, b, doc, id, pinned)
 	}
 	fs.Add(El("p", "class", "sc-note", "data-role", "notice", "role", "status"))
 	form.Add(fs)
 	return form
 }
 
-func calculatorControls(fs *Node, b *Block, doc *jsondoc.Value, id func(string) string) {
+func calculatorControls(fs *Node, b *Block, doc *jsondoc.Value, id func(string) string, pinned bool) {
 	grid := El("div", "class", "sc-grid")
 	grid.Add(numberField(id("seats"), "House size (seats)", "seats", docText(doc, "seats"), "1"))
 	grid.Add(methodField(id("method"), docText(doc, "method")))
@@ -56,30 +62,52 @@ func calculatorControls(fs *Node, b *Block, doc *jsondoc.Value, id func(string) 
 	fs.Add(unitsTable(b, doc))
 	fs.Add(unitActions())
 
-	csv := El("details", "class", "sc-csv")
-	csv.Add(Wrap("summary", "Paste or load a table"))
-	hint := "A CSV table with a header row: name and population, optionally min and max. It replaces the units above."
-	if c := b.Count; c != (Count{}) {
-		hint = "A CSV table with a header row: name and population (here, the " + c.Nouns() + "), optionally min and max. It replaces the units above."
-	}
-	csv.Add(Wrap("p", hint, "class", "sc-hint", "id", id("csv-hint")))
-	cf := El("div", "class", "sc-field")
-	cf.Add(Wrap("label", "CSV table", "for", id("csv")))
-	cf.Add(El("textarea", "id", id("csv"), "data-field", "csv", "rows", "5", "spellcheck", "false", "aria-describedby", id("csv-hint"),
-		"placeholder", "name,population\nNorth,1200\nSouth,800"))
-	csv.Add(cf)
-	ca := El("div", "class", "sc-actions")
-	ca.Add(Wrap("button", "Use this table", "type", "button", "data-action", "use-csv"))
-	ca.Add(El("label", "class", "sc-file").AddText("Load a file (CSV or JSON scenario) ").
-		Add(El("input", "type", "file", "accept", ".csv,.json,text/csv,application/json", "data-action", "load-file")))
-	csv.Add(ca)
-	fs.Add(csv)
+	fs.Add(tableLoader(b, id))
 
 	ex := El("div", "class", "sc-actions sc-export")
 	ex.Add(Wrap("button", "Download results (CSV)", "type", "button", "data-action", "export-csv"))
 	ex.Add(Wrap("button", "Download scenario and results (JSON)", "type", "button", "data-action", "export-json"))
 	ex.Add(linkButton())
 	fs.Add(ex)
+	fs.Add(pinActions(pinned))
+}
+
+// tableLoader is where a reader pastes, drops or picks a table: cells
+// copied from a spreadsheet, or a CSV file with commas or semicolons, in
+// any columns; the column chooser shows in its slot before the table
+// loads.
+func tableLoader(b *Block, id func(string) string) *Node {
+	c := b.Count
+	csv := El("details", "class", "sc-csv", "data-role", "drop-zone")
+	csv.Add(Wrap("summary", "Paste, drop or load a table"))
+	hint := "Cells copied from a spreadsheet, or a CSV table (commas or semicolons): a column of names and a column of " + c.Nouns() +
+		", optionally minimum and maximum seats. You choose which column is which before it replaces the units above. You can also drop a file here."
+	csv.Add(Wrap("p", hint, "class", "sc-hint", "id", id("csv-hint")))
+	cf := El("div", "class", "sc-field")
+	cf.Add(Wrap("label", "Table", "for", id("csv")))
+	cf.Add(El("textarea", "id", id("csv"), "data-field", "csv", "rows", "5", "spellcheck", "false", "aria-describedby", id("csv-hint"),
+		"placeholder", "name\t"+c.Noun()+"\nNorth\t1,200\nSouth\t800"))
+	csv.Add(cf)
+	ca := El("div", "class", "sc-actions")
+	ca.Add(Wrap("button", "Use this table", "type", "button", "data-action", "use-csv"))
+	ca.Add(El("label", "class", "sc-file").AddText("Load a file (table or JSON scenario) ").
+		Add(El("input", "type", "file", "accept", ".csv,.tsv,.txt,.json,text/csv,text/tab-separated-values,text/plain,application/json", "data-action", "load-file")))
+	csv.Add(ca)
+	csv.Add(El("div", "data-role", "chooser-slot"))
+	return csv
+}
+
+// pinActions pin the results as a baseline that later edits are compared
+// with, and unpin it.
+func pinActions(pinned bool) *Node {
+	p := El("div", "class", "sc-actions sc-pin", "data-role", "pin")
+	if pinned {
+		p.Add(Wrap("button", "Pin these numbers as the baseline instead", "type", "button", "data-action", "pin"))
+		p.Add(Wrap("button", "Unpin the baseline", "type", "button", "data-action", "unpin"))
+	} else {
+		p.Add(Wrap("button", "Pin as baseline", "type", "button", "data-action", "pin", "title", "Keep these results and compare later edits with them"))
+	}
+	return p
 }
 
 // advancedFields are the options most scenarios leave alone: a cap, a

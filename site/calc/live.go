@@ -10,6 +10,7 @@ import (
 	csvformat "seatsmith/engine/format/csv"
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
+	. "seatsmith/engine/render"
 )
 
 // parseBlock reads a calculator block from its JSON text, or says why it
@@ -72,27 +73,45 @@ func trimInput(err error) string {
 	return err.Error()
 }
 
-// load reads a CSV table or a JSON scenario and merges it into doc: a table
-// replaces the units; a scenario replaces every member it gives.
-func load(doc *jsondoc.Value, ld *Load) (*jsondoc.Value, *input.Error) {
+// load reads a table or a JSON scenario and merges it into doc: a table
+// replaces the units; a scenario replaces every member it gives. A table
+// is read as people paste or drop it (see [sheetUnits]); when its columns
+// are to be chosen first, load returns the chooser and doc unchanged.
+func load(b *Block, doc *jsondoc.Value, ld *Load) (*jsondoc.Value, *Node, *input.Error) {
 	text, name := ld.Text, ld.Name
 	if name == "" {
 		name = "table"
 	}
 	if len(text) > MaxLoadBytes {
-		return nil, &input.Error{File: name, Msg: "the file of " + strconv.Itoa(len(text)) + " bytes is larger than the limit of " +
+		return nil, nil, &input.Error{File: name, Msg: "the file of " + strconv.Itoa(len(text)) + " bytes is larger than the limit of " +
 			strconv.Itoa(MaxLoadBytes>>20) + " MiB a calculator loads"}
 	}
-	isJSON := strings.HasPrefix(strings.TrimLeft(strings.TrimPrefix(text, "\uFEFF"), " \t\r\n"), "{")
-	src, err := readLoad(name, text, isJSON)
-	if err != nil {
+	asError := func(err error) *input.Error {
 		var ie *input.Error
 		if errors.As(err, &ie) {
-			return nil, ie
+			return ie
 		}
-		return nil, &input.Error{File: name, Msg: err.Error()}
+		return &input.Error{File: name, Msg: err.Error()}
 	}
-	enc := input.Encode(src.Title, &src.Scenario)
+	isJSON := strings.HasPrefix(strings.TrimLeft(strings.TrimPrefix(text, "\uFEFF"), " \t\r\n"), "{")
+	var units *jsondoc.Value
+	var src *input.Source
+	if isJSON {
+		var err error
+		if src, err = readLoad(name, text); err != nil {
+			return nil, nil, asError(err)
+		}
+		units = input.Encode(src.Title, &src.Scenario).Get("units")
+	} else {
+		var chooser *Node
+		var err error
+		if units, chooser, err = sheetUnits(b, name, ld); err != nil {
+			return nil, nil, asError(b.Count.speakErr(err))
+		}
+		if chooser != nil {
+			return doc, chooser, nil
+		}
+	}
 	out := jsondoc.NewObject()
 	if doc != nil && doc.Kind == jsondoc.Object {
 		for _, f := range doc.Fields {
@@ -108,15 +127,15 @@ func load(doc *jsondoc.Value, ld *Load) (*jsondoc.Value, *input.Error) {
 			out.Set(f.Key, f.Value)
 		}
 	}
-	for _, f := range enc.Fields {
-		switch {
-		case f.Key == "units":
-			out.Set("units", f.Value)
-		case isJSON && (src.Given[f.Key] || (f.Key == "title" && src.Title != "")):
-			out.Set(f.Key, f.Value)
+	if isJSON {
+		for _, f := range input.Encode(src.Title, &src.Scenario).Fields {
+			if f.Key != "units" && (src.Given[f.Key] || (f.Key == "title" && src.Title != "")) {
+				out.Set(f.Key, f.Value)
+			}
 		}
 	}
-	return out, nil
+	out.Set("units", units)
+	return out, nil, nil
 }
 
 // stringNumbers returns a copy of v with every number written as a string,
@@ -191,17 +210,10 @@ func exportSweep(o *Outcome) (csv, js string) {
 	return b.String(), string(jsondoc.MarshalIndent(v, "  "))
 }
 
-// readLoad reads a loaded table or scenario file, refusing one beyond the
-// block's limits before it builds the units: a table of more than
-// MaxUnits rows (counted as lines), a scenario of more than MaxValues
-// values or MaxUnits units.
-func readLoad(name, text string, isJSON bool) (*input.Source, error) {
-	if !isJSON {
-		if n := strings.Count(text, "\n"); n > MaxUnits+1 {
-			return nil, tooManyUnits(name, 0, n-1)
-		}
-		return input.ReadCSV(name, strings.NewReader(text))
-	}
+// readLoad reads a loaded scenario file, refusing one beyond the block's
+// limits before it builds the units: more than MaxValues values or
+// MaxUnits units.
+func readLoad(name, text string) (*input.Source, error) {
 	v, err := parseJSON(strings.TrimPrefix(text, "\uFEFF"))
 	if err != nil {
 		var se *jsondoc.SyntaxError

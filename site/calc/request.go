@@ -29,10 +29,18 @@ type Request struct {
 	// into the engine much faster than an object read member by member;
 	// the bridge sends this).
 	Scenario *jsondoc.Value
-	// Load is a CSV table (which replaces the units) or a JSON scenario
+	// Load is a table (which replaces the units) or a JSON scenario
 	// document (which replaces the scenario) to read first (load: {name,
-	// text}).
+	// text, columns, choose}).
 	Load *Load
+	// Baseline is the pinned baseline the scenario is compared with, a
+	// scenario document (baseline_text: as JSON text); nil when none is
+	// pinned. Only compact and full calculators compare.
+	Baseline *jsondoc.Value
+	// Link is a link's payload (link), as [EncodeLink] writes it: when
+	// given, the scenario and the baseline it holds replace Scenario and
+	// Baseline.
+	Link string
 	// Editor asks for the editor's layout as well as the results (editor).
 	Editor bool
 	// Export asks for the CSV and JSON exports (export).
@@ -47,9 +55,20 @@ type Request struct {
 }
 
 // A Load is a table or a scenario file the reader loads into a calculator.
+//
+// A table is read as people paste or drop it: tab-, semicolon- or
+// comma-separated, with any header, thousands separators and a decimal
+// comma where unambiguous (see input.ReadSheet). Its columns are those
+// given (columns: {name, count, min, max}, -1 for none), or guessed; when
+// choose asks for it and no columns are given, the response holds the
+// column chooser instead of loading.
 type Load struct {
 	Name string // the file's name, for messages ("table" when empty)
 	Text string
+	// Columns are the columns the reader chose, or nil.
+	Columns *input.Columns
+	// Choose is ChooseAlways, ChooseUnsure or "" (load the guess).
+	Choose string
 }
 
 // A Response is the calculator's answer to a [Request]. [Response.Doc]
@@ -74,6 +93,18 @@ type Response struct {
 	// LoadError says why Load could not be read (load_error: {message,
 	// line, field}).
 	LoadError *input.Error
+	// Chooser is the column chooser of a loaded table whose columns the
+	// reader is to choose (chooser); the table is then not loaded yet.
+	Chooser *render.Node
+	// Baseline is the pinned baseline in effect (baseline), every number a
+	// string; nil when none is.
+	Baseline *jsondoc.Value
+	// Link is the payload of a link to the scenario and the baseline
+	// (link), for compact and full calculators and study blocks.
+	Link string
+	// LinkError says why Request.Link could not be read (link_error); the
+	// answer is then for the scenario without it.
+	LinkError string
 	// Exports are the CSV table and the JSON document of the results
 	// (csv, json), when asked for and the scenario is valid.
 	Exports *Exports
@@ -130,8 +161,46 @@ func requestTable(r *Request) []jsondoc.Member {
 			return jsondoc.Decode(v, "a load", []jsondoc.Member{
 				{Key: "name", Read: jsondoc.ReadString(&l.Name)},
 				{Key: "text", Read: jsondoc.ReadString(&l.Text)},
+				{Key: "choose", Read: func(v *jsondoc.Value) error {
+					if err := jsondoc.ReadString(&l.Choose)(v); err != nil {
+						return err
+					}
+					if l.Choose != "" && l.Choose != ChooseAlways && l.Choose != ChooseUnsure {
+						return &jsondoc.MemberError{Line: v.Line, Msg: strconv.Quote(l.Choose) + " is not a choice; use always or unsure"}
+					}
+					return nil
+				}},
+				{Key: "columns", Read: func(v *jsondoc.Value) error {
+					c := &input.Columns{Name: -1, Count: -1, Min: -1, Max: -1}
+					l.Columns = c
+					return jsondoc.Decode(v, "the columns", []jsondoc.Member{
+						{Key: "name", Read: jsondoc.ReadInt(&c.Name, -1, 999)},
+						{Key: "count", Read: jsondoc.ReadInt(&c.Count, -1, 999)},
+						{Key: "min", Read: jsondoc.ReadInt(&c.Min, -1, 999)},
+						{Key: "max", Read: jsondoc.ReadInt(&c.Max, -1, 999)},
+					})
+				}},
 			})
 		}},
+		{Key: "baseline_text", Read: func(v *jsondoc.Value) error {
+			var text string
+			if err := jsondoc.ReadString(&text)(v); err != nil {
+				return err
+			}
+			if text == "" || text == "null" {
+				return nil
+			}
+			doc, err := parseJSON(text)
+			if err != nil {
+				return &jsondoc.MemberError{Line: v.Line, Msg: "not valid JSON: " + err.Error()}
+			}
+			if doc.Kind != jsondoc.Object {
+				return &jsondoc.MemberError{Line: v.Line, Msg: "not a scenario document"}
+			}
+			r.Baseline = withoutLines(doc)
+			return nil
+		}},
+		{Key: "link", Read: jsondoc.ReadString(&r.Link)},
 		{Key: "editor", Read: jsondoc.ReadBool(&r.Editor)},
 		{Key: "export", Read: jsondoc.ReadBool(&r.Export)},
 		{Key: "timings", Read: jsondoc.ReadBool(&r.Timings)},
@@ -184,19 +253,35 @@ func Answer(req *Request) (resp *Response) {
 		return fatalResponse(msg)
 	}
 	resp = &Response{}
-	doc := req.Scenario
+	doc, base := req.Scenario, req.Baseline
+	if req.Link != "" {
+		lb, ls, err := DecodeLink(b.Doc, req.Link)
+		if err != nil {
+			resp.LinkError = err.Error()
+		} else {
+			doc, base = ls, lb
+		}
+	}
 	if doc.IsNull() {
 		doc = b.Doc
 	}
 	if req.Load != nil {
-		nd, lerr := load(doc, req.Load)
+		nd, chooser, lerr := load(b, doc, req.Load)
 		if lerr != nil {
 			resp.LoadError = lerr
 		} else {
-			doc = nd
+			doc, resp.Chooser = nd, chooser
 		}
 	}
 	doc = stringNumbers(doc)
+	if b.vary != nil {
+		base = nil
+	}
+	if !base.IsNull() {
+		base = stringNumbers(base)
+		resp.Baseline = base
+	}
+	resp.Link = EncodeLink(b.Doc, base, doc)
 	opt := req.Options
 	if req.Export {
 		opt.NoOrder = false
@@ -206,11 +291,15 @@ func Answer(req *Request) (resp *Response) {
 	computed := time.Now()
 	resp.Outcome, resp.Scenario = o, doc
 	resp.Output = Output(o)
+	if base != nil && o.Problem == nil && o.Result != nil {
+		// The comparison follows the summary and any tie.
+		resp.Output.Kids = append(resp.Output.Kids[:1], append([]*render.Node{baselineView(o, base)}, resp.Output.Kids[1:]...)...)
+	}
 	if req.Timings {
 		resp.Timings = &Timings{Compute: computed.Sub(started), Layout: time.Since(computed)}
 	}
 	if req.Editor {
-		resp.Editor = Editor(b, doc, true)
+		resp.Editor = editorFor(b, doc, true, base != nil)
 	}
 	if req.Export && o.Problem == nil && !o.MarginsPending {
 		csv, js := Export(o)
@@ -238,6 +327,18 @@ func (r *Response) Doc() *jsondoc.Value {
 	v := jsondoc.NewObject()
 	if le := r.LoadError; le != nil {
 		v.Set("load_error", jsondoc.NewObject().Set("message", jsondoc.Str(le.Msg)).Set("line", jsondoc.Int(le.Line)).Set("field", jsondoc.Str(le.Field)))
+	}
+	if r.Chooser != nil {
+		v.Set("chooser", render.JSON(r.Chooser))
+	}
+	if r.Baseline != nil {
+		v.Set("baseline", r.Baseline)
+	}
+	if r.Link != "" {
+		v.Set("link", jsondoc.Str(r.Link))
+	}
+	if r.LinkError != "" {
+		v.Set("link_error", jsondoc.Str(r.LinkError))
 	}
 	v.Set("margins_pending", jsondoc.Boolean(o.MarginsPending))
 	v.Set("order_pending", jsondoc.Boolean(o.OrderPending))

@@ -93,9 +93,8 @@ const engineTimingJS = `(async (n, batch) => {
   const api = globalThis.seatsmith;
   const bridge = await import(document.querySelector('script[type=module][src]').src);
   const frag = new Map(location.hash.slice(1).split('&').map((p) => [p.slice(0, p.indexOf('=')), p.slice(p.indexOf('=') + 1)]));
-  let b = frag.get('workbench').replace(/-/g, '+').replace(/_/g, '/');
-  while (b.length % 4) b += '=';
-  const scenario = JSON.parse(new TextDecoder().decode(Uint8Array.from(atob(b), (c) => c.charCodeAt(0))));
+  const scenario = (await bridge.engineFor(false).call('calculator', [{block_text: root.querySelector('script[type="application/json"]').textContent,
+    id: root.id, mode: root.getAttribute('data-seatsmith'), link: frag.get('workbench'), margins: false}])).scenario;
   const req = {block_text: root.querySelector('script[type="application/json"]').textContent, id: root.id,
     mode: root.getAttribute('data-seatsmith'), scenario_text: '', editor: false, margins: false, timings: true};
   const out = {engine: [], compute: [], layout: [], noop: [], build: [], place: [], compare: [], units: scenario.units.length, state: ''};
@@ -168,6 +167,8 @@ func fiftyUnitPage(b testing.TB) *tab {
 	tb.do(chromedp.Click(chromedp.CSS(`#workbench .sc-csv summary`)),
 		chromedp.SetValue(chromedp.CSS(`#workbench [data-field="csv"]`), benchUnits()),
 		chromedp.Click(chromedp.CSS(`#workbench [data-action="use-csv"]`)))
+	tb.waitFor("the column chooser", `!!document.querySelector('#workbench [data-action="use-columns"]')`)
+	tb.do(chromedp.Click(chromedp.CSS(`#workbench [data-action="use-columns"]`)))
 	tb.waitFor("fifty units", `document.querySelectorAll('#workbench tr[data-unit]').length === 50`)
 	shape := eval[[]int](tb, `[document.querySelectorAll('#workbench [data-field$=".population"]').length,
 		document.querySelectorAll('#workbench table.sc-comparison tr[data-compare-unit]').length,

@@ -196,9 +196,9 @@ func TestBrowserLoading(t *testing.T) {
 			same := eval[string](tb, `(async () => {
   const bridge = await import(document.querySelector('script[type=module][src]').src);
   const root = document.querySelector('#workbench');
-  let b = location.hash.split('workbench=')[1].split('&')[0].replace(/-/g, '+').replace(/_/g, '/');
-  while (b.length % 4) b += '=';
-  const scenario = JSON.parse(new TextDecoder().decode(Uint8Array.from(atob(b), (c) => c.charCodeAt(0))));
+  const payload = location.hash.split('workbench=')[1].split('&')[0];
+  const scenario = (await bridge.engineFor(false).call('calculator', [{block_text: root.querySelector('script[type="application/json"]').textContent,
+    id: root.id, mode: root.getAttribute('data-seatsmith'), link: payload, margins: false}])).scenario;
   const r = await bridge.engineFor(false).call('calculator', [{block_text: root.querySelector('script[type="application/json"]').textContent,
     id: root.id, mode: root.getAttribute('data-seatsmith'), scenario, editor: false, margins: false}]);
   const fresh = bridge.build(r.output);

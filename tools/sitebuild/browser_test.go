@@ -529,10 +529,10 @@ func TestBrowser(t *testing.T) {
 		rows := tb.rows()
 		// The link follows once the typing pauses, and at once when the
 		// page is being left.
-		if got := eval[string](tb, `dispatchEvent(new PageTransitionEvent('pagehide')), `+linkMember("council", "seats")); got != "41" {
+		if got := eval[string](tb, `dispatchEvent(new PageTransitionEvent('pagehide')), `+linkMember("council", "s")); got != "41" {
 			t.Errorf("leaving the page left the link with seats %s, want 41", got)
 		}
-		tb.waitFor("the link to hold 41 seats", linkMember("council", "seats")+` === "41"`)
+		tb.waitFor("the link to hold 41 seats", linkMember("council", "s")+` === "41"`)
 		link := eval[string](tb, `location.href`)
 		if !strings.Contains(link, "#council=") {
 			t.Fatalf("no scenario in the link %s", link)
@@ -580,6 +580,7 @@ func TestBrowser(t *testing.T) {
 		tb.do(chromedp.Click(chromedp.CSS(`#workbench .sc-csv summary`)),
 			chromedp.SetValue(chromedp.CSS(`#workbench [data-field="csv"]`), csv),
 			chromedp.Click(chromedp.CSS(`#workbench [data-action="use-csv"]`)))
+		tb.chooseColumns("#workbench")
 		tb.waitFor("three units", `document.querySelectorAll('#workbench tr[data-unit]').length === 3`)
 		got := tb.rows()
 		want := []row{{"workbench", "Harlow", "20"}, {"workbench", "=SUM(A1:A2)", "12"}, {"workbench", "Teal <i>x</i>", "1"}}
@@ -608,6 +609,7 @@ func TestBrowser(t *testing.T) {
 		// A bad table is reported by line and leaves the units alone.
 		tb.do(chromedp.SetValue(chromedp.CSS(`#workbench [data-field="csv"]`), "name,population\nA,12\nB,lots\n"),
 			chromedp.Click(chromedp.CSS(`#workbench [data-action="use-csv"]`)))
+		tb.chooseColumns("#workbench")
 		tb.waitFor("the notice", `document.querySelector('#workbench [data-role=notice]').textContent.includes('could not be read')`)
 		note := eval[string](tb, `document.querySelector('#workbench [data-role=notice]').textContent`)
 		if !strings.Contains(note, "line 3") {
@@ -634,6 +636,7 @@ func TestBrowser(t *testing.T) {
 		tb.do(chromedp.Click(chromedp.CSS(`#workbench .sc-csv summary`)),
 			chromedp.SetValue(chromedp.CSS(`#workbench [data-field="csv"]`), csv.String()),
 			chromedp.Click(chromedp.CSS(`#workbench [data-action="use-csv"]`)))
+		tb.chooseColumns("#workbench")
 		tb.waitFor("twenty units", `document.querySelectorAll('#workbench tr[data-unit]').length === 20`)
 		tb.waitFor("the margins button", `!!document.querySelector('#workbench [data-action="margins"]')`)
 		tb.do(chromedp.Click(chromedp.CSS(`#workbench [data-action="margins"]`)))
@@ -681,15 +684,23 @@ func TestBrowser(t *testing.T) {
 
 func b64url(s string) string { return base64.RawURLEncoding.EncodeToString([]byte(s)) }
 
-// linkMember returns a JavaScript expression for a member of the scenario
-// that the page's link holds for calculator id (undefined while it holds
-// none).
-func linkMember(id, member string) string {
+// linkMember returns a JavaScript expression for a setting of the
+// scenario that the page's link holds for calculator id, written against
+// the block's own (undefined while the link holds none): member is one of
+// the link's one-letter codes, "s" for seats.
+func linkMember(id, code string) string {
 	return `(() => {
-  const m = new RegExp('[#&]' + ` + strconv.Quote(id) + ` + '=([^&]*)').exec(location.hash);
+  const m = new RegExp('[#&]' + ` + strconv.Quote(id) + ` + '=~([^&!]*)').exec(location.hash);
   if (!m) return undefined;
-  let b = m[1].replace(/-/g, '+').replace(/_/g, '/');
-  while (b.length % 4) b += '=';
-  return String(JSON.parse(new TextDecoder().decode(Uint8Array.from(atob(b), (c) => c.charCodeAt(0))))[` + strconv.Quote(member) + `]);
+  const t = m[1].split('*').find((t) => t.startsWith(` + strconv.Quote(code) + `) && !t.includes(':'));
+  return t === undefined ? undefined : t.slice(1);
 })()`
+}
+
+// chooseColumns confirms the column chooser of calculator sel with the
+// columns it guessed.
+func (tb *tab) chooseColumns(sel string) {
+	tb.t.Helper()
+	tb.waitFor("the column chooser", `!!document.querySelector('`+sel+` [data-action="use-columns"]')`)
+	tb.do(chromedp.Click(chromedp.CSS(sel + ` [data-action="use-columns"]`)))
 }

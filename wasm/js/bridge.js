@@ -32,10 +32,12 @@
 // Each calculator root carries data-state: "static" (rendered ahead of
 // time), "live" (the engine has run here) or "error" (with the message
 // shown), and data-busy="true" while the engine works for it. The edited
-// scenario is kept in the URL fragment as #ID=BASE64URL(JSON), written
-// once the reader pauses, so a link reproduces the same view. When the
-// engine's first answer has been put in place (the first calculator goes
-// live), the page's performance timeline gets the mark "seatsmith-live".
+// scenario, and a pinned baseline, are kept in the URL fragment as
+// #ID=PAYLOAD, the short form the engine writes and reads (see
+// calc.EncodeLink), written once the reader pauses, so a link reproduces
+// the same view. When the engine's first answer has been put in place (the
+// first calculator goes live), the page's performance timeline gets the
+// mark "seatsmith-live".
 //
 // Other scripts may import findBlocks (where the blocks are), Calculator
 // (one block made live inside its root), engineFor (the page's engine) and
@@ -495,39 +497,6 @@ function fragmentParts() {
   return parts;
 }
 
-function encodeScenario(obj) {
-  const bytes = new TextEncoder().encode(JSON.stringify(obj));
-  let bin = '';
-  for (let i = 0; i < bytes.length; i += 0x8000) bin += String.fromCharCode.apply(null, bytes.subarray(i, i + 0x8000));
-  return btoa(bin).replace(/\+/g, '-').replace(/\//g, '_').replace(/=+$/, '');
-}
-
-function decodeScenario(s) {
-  if (!/^[A-Za-z0-9_-]*$/.test(s)) throw new Error('the link holds characters that are not part of a scenario');
-  let b = s.replace(/-/g, '+').replace(/_/g, '/');
-  while (b.length % 4) b += '=';
-  let bytes;
-  try {
-    bytes = base64Bytes(b);
-  } catch (e) {
-    throw new Error('the link is damaged (not valid base64)');
-  }
-  let text;
-  try {
-    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
-  } catch (e) {
-    throw new Error('the link is damaged (not valid text)');
-  }
-  let v;
-  try {
-    v = JSON.parse(text);
-  } catch (e) {
-    throw new Error('the link is damaged (not valid JSON)');
-  }
-  if (!v || typeof v !== 'object' || Array.isArray(v)) throw new Error('the link does not hold a scenario');
-  return v;
-}
-
 function download(name, type, text) {
   const url = URL.createObjectURL(new Blob([text], { type }));
   const a = document.createElement('a');
@@ -558,6 +527,12 @@ export class Calculator {
     const data = root.querySelector('script[type="application/json"]');
     this.blockText = data ? data.textContent : '';
     this.scenario = null;
+    // The pinned baseline (a scenario) later edits are compared with, the
+    // link's payload the engine last wrote, and a table waiting for its
+    // columns to be chosen.
+    this.baseline = null;
+    this.linkPayload = '';
+    this.pendingTable = null;
     this.timer = 0;
     this.marginTimer = 0;
     this.ticket = 0; // the last request asked: an answer to an older one is dropped
@@ -579,6 +554,7 @@ export class Calculator {
     // large house it is the longest part of the results.
     const order = this.folds.get('sc-order') === true || !!this.root.querySelector('details.sc-order[open]');
     const req = Object.assign({ block_text: this.blockText, id: this.id, mode: this.mode, scenario_text: text, order }, extra);
+    if (this.baseline && !req.link) req.baseline_text = JSON.stringify(this.baseline);
     const ticket = ++this.ticket;
     this.working(true, extra && extra.margins === true ? 'margins' : 'results');
     let r;
@@ -661,21 +637,16 @@ export class Calculator {
   }
 
   async start() {
-    let linked = null;
-    let linkError = '';
     const frag = fragmentParts();
-    if (frag.has(this.id)) {
-      try {
-        linked = decodeScenario(frag.get(this.id));
-      } catch (e) {
-        linkError = e.message;
-      }
-    }
-    this.scenario = linked;
+    const link = frag.has(this.id) ? { link: frag.get(this.id) } : {};
     // Margins that need a search come at once for a small scenario (as the
     // page prerendered them) and on request for a large one.
-    let r = await this.ask({ editor: true, margins: false });
+    let r = await this.ask(Object.assign({ editor: true, margins: false }, link));
+    const linkError = r && r.link_error;
+    if (r && !r.fatal) this.keep(r);
     if (r && r.margins_pending && r.margins_auto) r = (await this.ask({ editor: true })) || r;
+    // The second answer is for the scenario the link gave, or the page's.
+    if (linkError && r) r.link_error = linkError;
     if (!r) {
       this.wire();
       return;
@@ -685,9 +656,6 @@ export class Calculator {
       return;
     }
     this.apply(r, true);
-    if (linkError) {
-      this.notice('The numbers in this link could not be read: ' + linkError + '. Showing the page\u2019s own numbers.', true);
-    }
     this.wire();
   }
 
@@ -743,7 +711,7 @@ export class Calculator {
   }
 
   apply(r, withEditor) {
-    if (r.scenario) this.scenario = r.scenario;
+    this.keep(r);
     if (withEditor && r.editor) this.replacePart('editor', r.editor);
     if (r.output) this.replacePart('output', r.output);
     const err = this.root.querySelector('[data-role="engine-error"]');
@@ -770,6 +738,7 @@ export class Calculator {
         ref.setAttribute('title', (c.holds ? 'Holds. ' : 'Does not hold with these numbers. ') + c.found + '.');
       }
     }
+    if (r.link_error) this.notice('The numbers in this link could not be read: ' + r.link_error + '. Showing the page\u2019s own numbers.', true);
     if (r.load_error) {
       const where = r.load_error.line ? ' (line ' + r.load_error.line + (r.load_error.field ? ', ' + r.load_error.field : '') + ')' : '';
       this.notice('The table could not be read' + where + ': ' + r.load_error.message, true);
@@ -801,6 +770,7 @@ export class Calculator {
       this.folds.set(d.classList[0], d.open);
       if (d.open && d.matches('details.sc-order') && d.querySelector('[data-role="order-pending"]')) this.refresh(false);
     }, true);
+    this.wireDrop();
     root.addEventListener('input', (e) => this.onField(e, false));
     root.addEventListener('change', (e) => this.onField(e, true));
     root.addEventListener('click', (e) => {
@@ -892,7 +862,7 @@ export class Calculator {
     // The link is written before the results go into the page: the browser
     // records the page's layout with each history entry, and while the new
     // results are not yet laid out that would lay out the whole page first.
-    if (r.scenario) this.scenario = r.scenario;
+    this.keep(r);
     this.saveFragmentSoon();
     this.apply(r, withEditor);
     if (withEditor && key) {
@@ -916,14 +886,14 @@ export class Calculator {
     clearTimeout(this.linkTimer);
     this.linkTimer = 0;
     const parts = fragmentParts();
-    parts.set(this.id, encodeScenario(this.scenario));
+    parts.set(this.id, this.linkPayload);
     const h = [...parts].map(([k, v]) => encodeURIComponent(k) + '=' + v).join('&');
     history.replaceState(history.state, '', '#' + h);
   }
 
   link() {
     const parts = fragmentParts();
-    parts.set(this.id, encodeScenario(this.scenario));
+    parts.set(this.id, this.linkPayload);
     const u = new URL(location.href);
     u.hash = [...parts].map(([k, v]) => encodeURIComponent(k) + '=' + v).join('&');
     return u.href;
@@ -976,13 +946,23 @@ export class Calculator {
         const ta = this.root.querySelector('[data-field="csv"]');
         const text = ta ? ta.value : '';
         if (!text.trim()) {
-          this.notice('Paste a CSV table first: a header row (name,population) and one row a unit.', true);
+          this.notice('Paste a table first: cells copied from a spreadsheet, or CSV lines, one unit a line.', true);
           break;
         }
-        const r = await this.refresh(true, { load: { name: 'pasted table', text } }, true);
-        if (r && !r.load_error) this.notice('Loaded ' + (this.scenario.units || []).length + ' units from the table.', false);
+        await this.offerTable('pasted table', text, 'always');
         break;
       }
+      case 'use-columns':
+        await this.useColumns();
+        break;
+      case 'cancel-columns':
+        this.closeChooser();
+        this.notice('The table was not loaded.', false);
+        break;
+      case 'pin':
+      case 'unpin':
+        await this.pin(action === 'pin');
+        break;
       case 'export-csv':
       case 'export-json': {
         const r = await this.ask({ export: true }, true);
@@ -1013,24 +993,112 @@ export class Calculator {
       this.notice('That file is larger than 20 MB.', true);
       return;
     }
-    file.text().then(async (text) => {
-      const r = await this.refresh(true, { load: { name: file.name, text } }, true);
-      if (r && !r.load_error) this.notice('Loaded ' + file.name + '.', false);
-    }, () => this.notice('The file could not be read.', true));
-    input.value = '';
+    file.text().then((text) => this.offerTable(file.name, text, 'unsure'), () => this.notice('The file could not be read.', true));
+    if (input) input.value = '';
   }
 
   reloadFromFragment() {
     const frag = fragmentParts();
-    if (!frag.has(this.id)) return;
-    try {
-      const v = decodeScenario(frag.get(this.id));
-      if (JSON.stringify(v) === JSON.stringify(this.scenario)) return;
-      this.scenario = v;
-      this.refresh(true);
-    } catch (e) {
-      this.notice('The numbers in this link could not be read: ' + e.message + '.', true);
+    if (!frag.has(this.id) || frag.get(this.id) === this.linkPayload) return;
+    this.refresh(true, { link: frag.get(this.id) });
+  }
+
+  // --- Tables in, baseline against proposal ---
+
+  // keep takes from an answer what the calculator keeps between edits: the
+  // scenario, the baseline in effect and the link's payload.
+  keep(r) {
+    if (r.scenario) this.scenario = r.scenario;
+    if (r.state) this.baseline = r.baseline || null;
+    if (typeof r.link === 'string') this.linkPayload = r.link;
+  }
+
+  // pin keeps the current scenario as the baseline later edits are
+  // compared with (on), or clears it.
+  async pin(on) {
+    this.baseline = on ? JSON.parse(JSON.stringify(this.scenario || {})) : null;
+    const r = await this.refresh(true, {}, true);
+    if (!r) return;
+    const again = this.root.querySelector('[data-action="' + (on ? 'unpin' : 'pin') + '"]');
+    if (again) again.focus();
+    this.notice(on ? 'Pinned these numbers as the baseline: edits now show what changes against it.' : 'Unpinned the baseline.', false);
+  }
+
+  // offerTable sends a pasted or dropped table to the engine, which loads
+  // it or, when the columns are to be chosen first (choose: always after
+  // a paste, unsure for a file), answers with the column chooser.
+  async offerTable(name, text, choose) {
+    this.closeChooser();
+    // A paste keeps its text in the editor while the columns are chosen;
+    // a file that may load at once rebuilds the editor with its units.
+    const withEditor = choose !== 'always';
+    const r = await this.refresh(withEditor, { load: { name, text, choose } }, true);
+    if (!r || r.load_error) return;
+    if (r.chooser) {
+      this.pendingTable = { name, text };
+      this.showChooser(r.chooser);
+      return;
     }
+    if (!withEditor) await this.refresh(true, {});
+    this.notice('Loaded ' + (this.scenario.units || []).length + ' units from ' + name + '.', false);
+  }
+
+  showChooser(tree) {
+    const loader = this.root.querySelector('[data-part="editor"] details.sc-csv');
+    if (loader) loader.open = true;
+    const slot = this.root.querySelector('[data-part="editor"] [data-role="chooser-slot"]');
+    if (!slot) return;
+    slot.replaceChildren(build(tree));
+    const first = slot.querySelector('select');
+    if (first) first.focus();
+  }
+
+  closeChooser() {
+    this.pendingTable = null;
+    const slot = this.root.querySelector('[data-role="chooser-slot"]');
+    if (slot) slot.replaceChildren();
+  }
+
+  // useColumns loads the waiting table with the columns chosen.
+  async useColumns() {
+    const t = this.pendingTable;
+    if (!t) return;
+    const columns = {};
+    for (const sel of this.root.querySelectorAll('[data-role="chooser"] select[data-column]')) {
+      columns[sel.getAttribute('data-column')] = Number(sel.value);
+    }
+    const r = await this.refresh(true, { load: { name: t.name, text: t.text, columns } }, true);
+    if (!r || r.load_error) {
+      // The editor was built anew: the chooser stays for another choice.
+      if (r && r.load_error) {
+        this.pendingTable = t;
+        const again = await this.refresh(false, { load: { name: t.name, text: t.text, choose: 'always' } }, true);
+        if (again && again.chooser) this.showChooser(again.chooser);
+      }
+      return;
+    }
+    this.pendingTable = null;
+    this.notice('Loaded ' + (this.scenario.units || []).length + ' units from ' + t.name + '.', false);
+  }
+
+  // wireDrop lets a file be dropped onto the editor.
+  wireDrop() {
+    const onEditor = (e) => e.target && e.target.closest && e.target.closest('[data-part="editor"]') && this.root.contains(e.target);
+    this.root.addEventListener('dragover', (e) => {
+      if (!onEditor(e) || !e.dataTransfer || ![...e.dataTransfer.types].includes('Files')) return;
+      e.preventDefault();
+      e.dataTransfer.dropEffect = 'copy';
+      this.root.setAttribute('data-drop', 'true');
+    });
+    this.root.addEventListener('dragleave', (e) => {
+      if (!e.relatedTarget || !this.root.contains(e.relatedTarget)) this.root.removeAttribute('data-drop');
+    });
+    this.root.addEventListener('drop', (e) => {
+      this.root.removeAttribute('data-drop');
+      if (!onEditor(e) || !e.dataTransfer || !e.dataTransfer.files.length) return;
+      e.preventDefault();
+      this.loadFile(e.dataTransfer.files[0], null);
+    });
   }
 }
 
