@@ -41,6 +41,7 @@ td { padding: 1rem; }
 button { background: #f3d; border: 0; padding: 0.5rem 2rem; }
 .box { padding: 1rem; border: 2px solid #999; width: 12rem; }
 mark { background: #ffe08a; }
+@media (max-width: 30rem) { body { margin: 1rem; } }
 .themed { --seatsmith-accent: #7a1f2b; --seatsmith-font: Georgia, "Times New Roman", serif; }
 `
 
