@@ -33,7 +33,7 @@ const hostCSS = `* { box-sizing: content-box; }
 body { margin: 2.5rem; font: 19px/1.9 Georgia, "Times New Roman", serif; color: #2b2118; background: #fbf3e4; letter-spacing: 0.02em; text-align: justify; }
 h1 { font-size: 2.4rem; margin: 0 0 1rem; color: #7a1f2b; }
 h2 { font-size: 1.1rem; text-transform: uppercase; color: #7a1f2b; }
-p { max-width: 32rem; color: red; }
+p { max-width: 32rem; color: #a00000; }
 a { color: #0b6b4b; text-decoration: none; border-bottom: 1px dashed; }
 ul { list-style: square; padding-left: 3rem; }
 table { border: 3px double #777; border-collapse: separate; }
@@ -173,11 +173,11 @@ func TestBrowserEmbed(t *testing.T) {
 		if eval[bool](tb, `!!document.querySelector('#`+id+` > .fallback').checkVisibility()`) {
 			t.Errorf("%s: the page's own fallback line still shows", id)
 		}
-		// The host's p { color: red }, letter-spacing and justified text stop
-		// at the shadow root.
+		// The host's p { color: #a00000 }, letter-spacing and justified text
+		// stop at the shadow root.
 		inside := eval[string](tb, `(() => { const r = `+inShadow(id, ".seatsmith")+`; const p = r.querySelector('p'); const cs = getComputedStyle(p);
   const rs = getComputedStyle(r); return [cs.color, rs.letterSpacing, rs.textAlign, rs.boxSizing].join(' | '); })()`)
-		if strings.Contains(inside, "rgb(255, 0, 0)") || !strings.Contains(inside, "| normal | start | border-box") {
+		if strings.Contains(inside, "rgb(160, 0, 0)") || !strings.Contains(inside, "| normal | start | border-box") {
 			t.Errorf("%s: the page's styles reach inside: %s", id, inside)
 		}
 	}
