@@ -40,7 +40,7 @@ func editorFor(b *Block, doc *jsondoc.Value, live, pinned bool) *Node {
 	fs := El("fieldset", "class", "sc-controls", "data-role", "controls").SetIf(!live, "disabled", "")
 	fs.Add(Wrap("legend", "Your numbers", "class", "sc-legend"))
 	if !live {
-		fs.Add(Wrap("p", "These results were computed when the page was built. The calculator becomes editable once its engine has loaded (it needs JavaScript).", "class", "sc-static-note", "data-role", "static-note"))
+		fs.Add(Wrap("p", "Not live: these results were computed when the page was built. The calculator becomes editable once its engine loads, which needs JavaScript and the page opened through a web server (from a file on disk, use the offline calculator file).", "class", "sc-static-note", "data-role", "static-note"))
 	}
 	if b.vary != nil {
 		b.vary.controls(fs, b, doc, id)

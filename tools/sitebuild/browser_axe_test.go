@@ -106,11 +106,14 @@ func TestBrowserAxe(t *testing.T) {
 	chromiumPath(t)
 	src := axeSource(t)
 	bctx, origin := servedSite(t)
+	writeHostPages(t, builtSite(t))
 	runs := []struct {
 		state  string
 		widths []int64
 	}{{"live", []int64{1280, 320}}, {"prerendered", []int64{1280, 320}}}
-	for _, name := range sitePages(t) {
+	// The host page with calculators embedded is checked too, their shadow
+	// roots with it.
+	for _, name := range append(sitePages(t), embedHost) {
 		t.Run(name, func(t *testing.T) {
 			for _, r := range runs {
 				live := r.state == "live"

@@ -80,9 +80,13 @@ func saveArtifact(t testing.TB, name string, data []byte) {
 	}
 }
 
-// calcRoots selects every calculator on a page: the calculator blocks and
-// the projection block.
-const calcRoots = `[data-seatsmith], [data-projection]`
+// calcRoots selects every calculator on a page: the calculator blocks (in
+// either form) and the projection block.
+const calcRoots = `[data-seatsmith], seatsmith-calculator, [data-projection]`
+
+// rootsJS is a JavaScript expression for every calculator's root: the
+// block itself, or the root in its shadow root.
+const rootsJS = `[...document.querySelectorAll('` + calcRoots + `')].flatMap(r => r.shadowRoot ? [...r.shadowRoot.querySelectorAll('.seatsmith')] : [r])`
 
 // overflowJS lists every visible element of a calculator that reaches past
 // the calculator's box, every element of a chart that reaches past its
@@ -105,15 +109,16 @@ const overflowJS = `(() => {
   const path = (el, root) => {
     const parts = [];
     for (let e = el; e && e !== root && parts.length < 4; e = e.parentElement) parts.unshift(name(e));
-    return '#' + root.id + ' ' + parts.join(' > ');
+    return '#' + rootID(root) + ' ' + parts.join(' > ');
   };
+  const rootID = (root) => root.id || (root.getRootNode().host || {}).id || '';
   const out = [];
   const measure = document.createElement('canvas').getContext('2d');
-  const add = (root, el, what, r, box) => out.push({calc: root.id, sel: path(el, root), what,
+  const add = (root, el, what, r, box) => out.push({calc: rootID(root), sel: path(el, root), what,
     right: Math.round(r.right - box.right), left: Math.round(box.left - r.left)});
-  for (const root of document.querySelectorAll(` + "`" + calcRoots + "`" + `)) {
+  for (const root of ` + rootsJS + `) {
     const rb = root.getBoundingClientRect();
-    if (rb.right > vw + slack || rb.left < -slack) out.push({calc: root.id, sel: '#' + root.id, what: 'page',
+    if (rb.right > vw + slack || rb.left < -slack) out.push({calc: rootID(root), sel: '#' + rootID(root), what: 'page',
       right: Math.round(rb.right - vw), left: Math.round(-rb.left)});
     for (const el of root.querySelectorAll('*')) {
       if (!el.checkVisibility({visibilityProperty: true})) continue;
@@ -131,12 +136,12 @@ const overflowJS = `(() => {
         measure.font = cs.font;
         const need = measure.measureText(el.selectedOptions[0].text).width;
         const room = el.clientWidth - parseFloat(cs.paddingLeft) - parseFloat(cs.paddingRight) - 16;
-        if (need > room) out.push({calc: root.id, sel: path(el, root), what: 'cut', right: Math.round(need - room), left: 0});
+        if (need > room) out.push({calc: rootID(root), sel: path(el, root), what: 'cut', right: Math.round(need - room), left: 0});
       }
       if (!svg && el.localName !== 'svg') {
         const ox = getComputedStyle(el).overflowX;
         if ((ox === 'auto' || ox === 'scroll') && el.scrollWidth > el.clientWidth + 1) {
-          out.push({calc: root.id, sel: path(el, root), what: 'scrolls', right: el.scrollWidth - el.clientWidth, left: 0});
+          out.push({calc: rootID(root), sel: path(el, root), what: 'scrolls', right: el.scrollWidth - el.clientWidth, left: 0});
         }
       }
     }
@@ -206,12 +211,12 @@ func offenderReport(found []offender) string {
 func (tb *tab) openFolds(live bool) {
 	tb.t.Helper()
 	tb.do(chromedp.Evaluate[chromedp.Void](`{
-  const ds = [...document.querySelectorAll('` + calcRoots + `')].flatMap(r => [...r.querySelectorAll('details')]);
+  const ds = ` + rootsJS + `.flatMap(r => [...r.querySelectorAll('details')]);
   window.__scFolds = window.__scFolds || ds.map(d => d.open);
   for (const d of ds) d.open = true;
 }`))
 	if live {
-		tb.waitFor("every seat order", `!document.querySelector('[data-role="order-pending"]')`)
+		tb.waitFor("every seat order", `!`+rootsJS+`.some(r => r.querySelector('[data-role="order-pending"]'))`)
 	}
 	tb.settle()
 }
@@ -220,7 +225,7 @@ func (tb *tab) openFolds(live bool) {
 func (tb *tab) closeFolds() {
 	tb.t.Helper()
 	tb.do(chromedp.Evaluate[chromedp.Void](`{
-  const ds = [...document.querySelectorAll('` + calcRoots + `')].flatMap(r => [...r.querySelectorAll('details')]);
+  const ds = ` + rootsJS + `.flatMap(r => [...r.querySelectorAll('details')]);
   (window.__scFolds || []).forEach((open, i) => { if (ds[i]) ds[i].open = open; });
 }`))
 	tb.settle()
@@ -302,13 +307,16 @@ func openPage(t *testing.T, bctx context.Context, origin, name string, w int64, 
 // opens and with every folded section open.
 func TestBrowserLayout(t *testing.T) {
 	bctx, origin := servedSite(t)
+	// A page of someone else's with calculators embedded is held to the
+	// same, inside their shadow roots.
+	writeHostPages(t, builtSite(t))
 	art := artifactsDir(t)
 	t.Logf("screenshots: %s", art)
 	totals := map[string]int{}
 	var mu sync.Mutex
 	for _, state := range []string{"prerendered", "live"} {
 		live := state == "live"
-		for _, name := range sitePages(t) {
+		for _, name := range append(sitePages(t), embedHost) {
 			t.Run(state+"/"+name, func(t *testing.T) {
 				ws := widthsToTest(t)
 				// One page at each width in turn: the calculator's layout

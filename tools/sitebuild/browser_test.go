@@ -223,7 +223,7 @@ func (tb *tab) waitForWithin(what, js string, d time.Duration) {
 	}
 }
 
-const allLive = `document.querySelectorAll('[data-seatsmith], [data-projection]').length > 0 && [...document.querySelectorAll('[data-seatsmith], [data-projection]')].every(e => e.dataset.state === 'live')`
+const allLive = `document.querySelectorAll('[data-seatsmith], seatsmith-calculator, [data-projection]').length > 0 && [...document.querySelectorAll('[data-seatsmith], seatsmith-calculator, [data-projection]')].every(e => e.dataset.state === 'live')`
 
 func (tb *tab) messages() []string {
 	tb.mu.Lock()
@@ -260,7 +260,9 @@ func (tb *tab) checkClean(origin string) {
 // A row is one result row: calculator, unit and seats.
 type row struct{ Calc, Unit, Seats string }
 
-const rowsJS = `JSON.stringify([...document.querySelectorAll('[data-seatsmith] tr[data-unit]')].map(r => ({Calc: r.closest('[data-seatsmith]').id, Unit: r.dataset.unit, Seats: r.dataset.seats})))`
+// rowsJS lists the result rows of every calculator, in the page or in its
+// block's shadow root.
+const rowsJS = `JSON.stringify([...document.querySelectorAll('[data-seatsmith], seatsmith-calculator')].flatMap(h => [...(h.shadowRoot || h).querySelectorAll('tr[data-unit]')].map(r => ({Calc: h.id, Unit: r.dataset.unit, Seats: r.dataset.seats}))))`
 
 func (tb *tab) rows() []row {
 	tb.t.Helper()
@@ -440,11 +442,11 @@ func TestBrowser(t *testing.T) {
 		tb.do(chromedp.Navigate(origin + "embedded-test.html"))
 		tb.waitFor("live", allLive)
 		sameRows(t, "embedded", tb.rows(), []row{{"mine", "North", "9"}, {"mine", "South", "6"}})
-		if eval[string](tb, `document.querySelector('#mine [data-claim="north"]').dataset.holds`) != "true" {
+		if eval[string](tb, `document.querySelector('#mine').shadowRoot.querySelector('[data-claim="north"]').dataset.holds`) != "true" {
 			t.Error("the embedded claim does not hold")
 		}
-		if eval[string](tb, `getComputedStyle(document.querySelector('#mine')).getPropertyValue('--seatsmith-styled').trim()`) != "1" {
-			t.Error("the bridge did not load the calculator's styles")
+		if eval[string](tb, `getComputedStyle(document.querySelector('#mine').shadowRoot.querySelector('.seatsmith')).borderTopStyle`) != "solid" {
+			t.Error("the bridge did not give the calculator its styles")
 		}
 		tb.checkClean(origin)
 	})
@@ -658,8 +660,12 @@ func TestBrowser(t *testing.T) {
 		tb := newTab(t, bctx)
 		tb.do(chromedp.Navigate(origin + "no-engine-test.html"))
 		tb.waitFor("the error state", `document.querySelector('#lost').dataset.state === 'error'`)
-		if msg := eval[string](tb, `document.querySelector('#lost [role=alert]').textContent`); !strings.Contains(msg, "could not start") {
+		if msg := eval[string](tb, `document.querySelector('#lost').shadowRoot.querySelector('[role=alert]').textContent`); !strings.Contains(msg, "could not start") || !strings.Contains(msg, "404") {
 			t.Errorf("message %q", msg)
+		}
+		// The scenario's units stay, as a plain table, under that one line.
+		if n := eval[int](tb, `document.querySelector('#lost').shadowRoot.querySelectorAll('[data-role="fallback-units"] tbody tr').length`); n != 1 {
+			t.Errorf("the plain table shows %d units, want 1", n)
 		}
 	})
 

@@ -74,11 +74,22 @@ func Build(opt Options) (*Stats, error) {
 			return nil, err
 		}
 	}
-	cssRaw, err := read(filepath.Join(opt.Src, "static", "style.css"))
+	// The site's stylesheet is its page frame followed by the calculators'
+	// own rules; other pages get the calculators' rules alone.
+	frameRaw, err := read(filepath.Join(opt.Src, "static", "style.css"))
 	if err != nil {
 		return nil, err
 	}
+	calcRaw, err := read(filepath.Join(opt.Src, "static", "calculator.css"))
+	if err != nil {
+		return nil, err
+	}
+	cssRaw := append(append(append([]byte(nil), frameRaw...), '\n'), calcRaw...)
 	cssMin, err := minifyAs(m, "text/css", cssRaw, "style.css")
+	if err != nil {
+		return nil, err
+	}
+	embedCSS, err := minifyAs(m, "text/css", calcRaw, "calculator.css")
 	if err != nil {
 		return nil, err
 	}
@@ -155,7 +166,7 @@ func Build(opt Options) (*Stats, error) {
 	files["embed/engine-worker.js"] = workerJS
 	files["embed/seatsmith.wasm"] = eng
 	files["embed/seatsmith-analysis.wasm"] = engines.Analysis
-	files["embed/seatsmith.css"] = cssMin
+	files["embed/seatsmith.css"] = embedCSS
 
 	layout, err := read(filepath.Join(opt.Src, "layout.html"))
 	if err != nil {

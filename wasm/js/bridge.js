@@ -8,6 +8,19 @@
 //     <script type="application/json">{"seats": 40, "method": "webster", "units": [...]}</script>
 //   </div>
 //
+// or, the same block, <seatsmith-calculator id="assembly" mode="compact">
+// with the JSON script inside. In a page whose stylesheet styles
+// calculators (it sets --seatsmith-styled, as the site's does) a block
+// stays in the page; anywhere else each block gets its own shadow root
+// holding the calculator and its stylesheet (seatsmith.css beside this
+// file, or <meta name="seatsmith-style">), so that neither the page's
+// styles nor the calculator's reach the other. The page themes it through
+// the inherited custom properties --seatsmith-accent, --seatsmith-ink,
+// --seatsmith-bg and --seatsmith-font. A block that cannot start (no
+// WebAssembly, no shadow DOM, an engine that cannot be fetched, as from a
+// page opened from a file) keeps what it shows (the prerendered result,
+// or the scenario's units as a plain table) with one line saying why.
+//
 // The bridge compiles the seatsmith engine (from the same folder as this
 // file unless <meta name="seatsmith-engine"> names another URL, or from an
 // inlined <script type="application/octet-stream" data-seatsmith-engine>
@@ -216,10 +229,21 @@ async function compileEngine(analysis) {
       // from a buffer, which says which.
     }
   }
-  const resp = await fetch(url);
-  if (!resp.ok) throw new Error('could not load the engine (' + resp.status + ' for ' + url + ')');
+  let resp;
+  try {
+    resp = await fetch(url);
+  } catch (e) {
+    if (location.protocol === 'file:') throw new Error(FROM_FILE);
+    throw new Error('could not fetch the engine from ' + url + ' (' + (e && e.message ? e.message : e) + '). Reload the page when the network is back.');
+  }
+  if (!resp.ok) throw new Error('could not load the engine (' + resp.status + ' for ' + url + ').');
   return WebAssembly.compile(await resp.arrayBuffer());
 }
+
+// FROM_FILE says why a page opened from a file on disk cannot fetch the
+// engine, and what to do.
+const FROM_FILE = 'the page was opened from a file, and a browser fetches the engine only from a web server. ' +
+  'Open it through one (for example go run ./tools/sitebuild serve), or use offline.html, the calculator in one file that works from disk.';
 
 // workerURL returns the URL of the engine's worker script: the page's
 // (meta), one built from the inlined runtime and worker source of a
@@ -513,18 +537,21 @@ let wentLive = false;
 
 // A Calculator makes one block live inside its root element: it keeps the
 // scenario being edited, asks the engine for results after each edit and
-// renders them into the root. The root holds the block's
-// <script type="application/json"> and, when prerendered, its editor and
-// results (data-part="editor", data-part="output").
+// renders them into the root. The block's element (host) holds its
+// <script type="application/json">; the root is the host itself in a page
+// that styles calculators (holding, when prerendered, the editor and
+// results, data-part="editor" and data-part="output"), or an element in the
+// host's shadow root.
 export class Calculator {
-  constructor(root, engine) {
+  constructor(root, engine, host) {
     this.root = root;
+    this.host = host || root;
     this.engine = engine;
-    if (!root.id) root.id = 'calculator-' + ++counter;
-    this.id = root.id;
-    const mode = root.getAttribute('data-seatsmith');
+    if (!this.host.id) this.host.id = 'calculator-' + ++counter;
+    this.id = this.host.id;
+    const mode = modeOf(this.host);
     this.mode = MODES.has(mode) ? mode : 'compact';
-    const data = root.querySelector('script[type="application/json"]');
+    const data = this.host.querySelector('script[type="application/json"]');
     this.blockText = data ? data.textContent : '';
     this.scenario = null;
     // The pinned baseline (a scenario) later edits are compared with, the
@@ -636,6 +663,13 @@ export class Calculator {
     this.alert('The engine stopped (' + message + '). It starts again with your next edit; the results shown are those of the last finished computation.');
   }
 
+  // begin starts the calculator unless it failed already; a failure shows
+  // in the calculator.
+  begin() {
+    if (!this.engine) return Promise.resolve();
+    return this.start().catch((e) => this.fail(e.message || String(e)));
+  }
+
   async start() {
     const frag = fragmentParts();
     const link = frag.has(this.id) ? { link: frag.get(this.id) } : {};
@@ -672,10 +706,20 @@ export class Calculator {
     box.textContent = text;
   }
 
+  // setState puts data-state on the root and on the block's element.
+  setState(state) {
+    this.root.setAttribute('data-state', state);
+    if (this.host !== this.root) this.host.setAttribute('data-state', state);
+  }
+
+  // fail says, in one line in place of the "not live" note, why the
+  // calculator cannot start; the numbers shown stay.
   fail(message) {
-    this.root.setAttribute('data-state', 'error');
-    this.alert('The live calculator could not start: ' + message +
-      (this.root.querySelector('[data-part="output"]') ? ' The numbers shown were computed when the page was built.' : ''));
+    this.setState('error');
+    for (const n of this.root.querySelectorAll('[data-role="static-note"], [data-role="not-live"]')) n.remove();
+    const shown = this.root.querySelector('[data-part="output"]') ? ' The numbers shown were computed when the page was built.'
+      : this.root.querySelector('[data-role="fallback-units"]') ? ' The table shows the scenario\u2019s own numbers.' : '';
+    this.alert('The live calculator could not start: ' + message + shown);
   }
 
   // replacePart puts the part built from tree in place of the current one.
@@ -716,7 +760,10 @@ export class Calculator {
     if (r.output) this.replacePart('output', r.output);
     const err = this.root.querySelector('[data-role="engine-error"]');
     if (err) err.remove();
-    this.root.setAttribute('data-state', r.state === 'live' ? 'live' : 'error');
+    if (r.editor || r.output) {
+      for (const n of this.root.querySelectorAll('[data-role="not-live"], [data-role="fallback-units"]')) n.remove();
+    }
+    this.setState(r.state === 'live' ? 'live' : 'error');
     if (!wentLive && r.state === 'live') {
       wentLive = true;
       performance.mark('seatsmith-live');
@@ -857,7 +904,8 @@ export class Calculator {
       this.fail(r.error.message);
       return r;
     }
-    const focus = document.activeElement;
+    // Inside a shadow root the document's active element is the host.
+    const focus = this.root.getRootNode().activeElement;
     const key = focus && this.root.contains(focus) ? focus.getAttribute('data-field') || focus.getAttribute('data-action') : null;
     // The link is written before the results go into the page: the browser
     // records the page's layout with each history entry, and while the new
@@ -1102,50 +1150,199 @@ export class Calculator {
   }
 }
 
-function ensureStyles(root) {
-  if (getComputedStyle(root).getPropertyValue('--seatsmith-styled').trim()) return;
-  if (document.querySelector('link[data-seatsmith-style]')) return;
-  const l = document.createElement('link');
-  l.rel = 'stylesheet';
-  l.href = metaURL('seatsmith-style', 'seatsmith.css');
-  l.setAttribute('data-seatsmith-style', '');
-  document.head.appendChild(l);
-}
-
 // PARADOX_KINDS are the claim kinds that only the analysis module checks.
 const PARADOX_KINDS = new Set(['no-alabama', 'no-quota-violation', 'population-paradox', 'no-population-paradox', 'new-states', 'no-new-states']);
 
 // needsAnalysis reports whether a block needs the analysis module: a
 // variation block (sweep, growth, admit) or a block with a paradox claim.
-function needsAnalysis(root) {
-  const mode = root.getAttribute('data-seatsmith');
+function needsAnalysis(host) {
+  const mode = modeOf(host);
   if (mode === 'sweep' || mode === 'growth' || mode === 'admit') return true;
-  const data = root.querySelector('script[type="application/json"]');
+  const b = blockDoc(host);
+  return !!b && Array.isArray(b.claims) && b.claims.some((c) => c && PARADOX_KINDS.has(c.kind));
+}
+
+// ELEMENT is the calculator's own element, <seatsmith-calculator mode="…">,
+// the same block as <div class="seatsmith" data-seatsmith="…">.
+const ELEMENT = 'seatsmith-calculator';
+
+// modeOf returns a block's kind: the element's mode attribute, or
+// data-seatsmith.
+function modeOf(host) {
+  return host.getAttribute('data-seatsmith') || host.getAttribute('mode') || 'compact';
+}
+
+// blockDoc returns a block's scenario as the page wrote it, or null.
+function blockDoc(host) {
+  const data = host.querySelector('script[type="application/json"]');
   try {
-    const b = JSON.parse(data ? data.textContent : '{}');
-    return Array.isArray(b.claims) && b.claims.some((c) => c && PARADOX_KINDS.has(c.kind));
+    const b = JSON.parse(data ? data.textContent : '');
+    return b && typeof b === 'object' && !Array.isArray(b) ? b : null;
   } catch (e) {
-    return false;
+    return null;
   }
 }
 
 // findBlocks returns the calculator blocks in scope (a document, an
-// element or a shadow root).
+// element or a shadow root): either form of block.
 export function findBlocks(scope) {
-  return [...(scope || document).querySelectorAll(ROOT)];
+  return [...(scope || document).querySelectorAll(ROOT + ', ' + ELEMENT)];
+}
+
+// styledByPage reports whether the page's own stylesheet styles
+// calculators (it sets --seatsmith-styled, as the site's does): its blocks
+// then stay in the page, as prerendered.
+function styledByPage(host) {
+  return host.localName !== ELEMENT && !!getComputedStyle(host).getPropertyValue('--seatsmith-styled').trim();
+}
+
+// The calculators' stylesheet (seatsmith.css beside this file, or <meta
+// name="seatsmith-style">), fetched once and shared by every shadow root.
+let sheet = null;
+
+function calculatorSheet() {
+  if (!sheet) {
+    const url = metaURL('seatsmith-style', 'seatsmith.css');
+    sheet = fetch(url).then((r) => {
+      if (!r.ok) throw new Error(r.status + ' for ' + url);
+      return r.text();
+    }).then((text) => {
+      const s = new CSSStyleSheet();
+      s.replaceSync(text);
+      return s;
+    });
+  }
+  return sheet;
+}
+
+// isolate gives a block its own shadow root holding the calculator's root
+// and stylesheet, so that the page's styles and the calculator's leave
+// each other alone; the page's content in the block (a line for readers
+// whose browser cannot run the calculator) is no longer shown. It returns
+// the root, or null where the browser has no shadow DOM.
+function isolate(host) {
+  if (typeof host.attachShadow !== 'function' || host.shadowRoot) return null;
+  const shadow = host.attachShadow({ mode: 'open' });
+  const root = document.createElement('div');
+  root.className = 'seatsmith';
+  root.setAttribute('data-seatsmith', modeOf(host));
+  root.setAttribute('data-state', 'static');
+  host.setAttribute('data-state', 'static');
+  const show = () => {
+    if (!root.isConnected) shadow.appendChild(root);
+  };
+  if ('adoptedStyleSheets' in shadow && typeof CSSStyleSheet.prototype.replaceSync === 'function') {
+    // The root goes in once styled, so that it never shows unstyled.
+    calculatorSheet().then((s) => {
+      shadow.adoptedStyleSheets = [...shadow.adoptedStyleSheets, s];
+    }, () => {}).then(show);
+  } else {
+    const l = document.createElement('link');
+    l.rel = 'stylesheet';
+    l.href = metaURL('seatsmith-style', 'seatsmith.css');
+    shadow.appendChild(l);
+    show();
+  }
+  return root;
+}
+
+// COUNTS names the number of each unit by the block's count member.
+const COUNTS = { population: 'Population', votes: 'Votes', students: 'Students', applications: 'Applications' };
+
+// showNotLive puts into a root that has no prerendered result the line
+// that the calculator is not live yet and the scenario's units as a plain
+// table, which stay if it cannot start.
+function showNotLive(root, host) {
+  const line = document.createElement('p');
+  line.className = 'sc-static-note';
+  line.setAttribute('data-role', 'not-live');
+  line.textContent = 'Not live yet: the calculator is starting.';
+  root.appendChild(line);
+  const b = blockDoc(host);
+  if (!b || !Array.isArray(b.units) || !b.units.length) return;
+  const t = document.createElement('table');
+  t.setAttribute('data-role', 'fallback-units');
+  const cap = document.createElement('caption');
+  cap.textContent = (typeof b.title === 'string' && b.title ? b.title + ': ' : '') +
+    (b.seats !== undefined ? String(b.seats) + ' seats' : 'the units');
+  const head = document.createElement('tr');
+  for (const h of ['Unit', COUNTS[b.count] || COUNTS.population]) {
+    const th = document.createElement('th');
+    th.scope = 'col';
+    th.textContent = h;
+    head.appendChild(th);
+  }
+  const thead = document.createElement('thead');
+  thead.appendChild(head);
+  const body = document.createElement('tbody');
+  for (const u of b.units) {
+    if (!u || typeof u !== 'object') continue;
+    const tr = document.createElement('tr');
+    const th = document.createElement('th');
+    th.scope = 'row';
+    th.textContent = String(u.name ?? '');
+    const td = document.createElement('td');
+    td.className = 'num';
+    td.textContent = String(u.population ?? '');
+    tr.append(th, td);
+    body.appendChild(tr);
+  }
+  t.append(cap, thead, body);
+  root.appendChild(t);
+}
+
+// mounted are the blocks already given a Calculator.
+const mounted = new WeakSet();
+const calcs = [];
+// pageAnalysis: the page's first blocks need the analysis module, which
+// then serves every block (it does all the calculator module does).
+let pageAnalysis = false;
+
+// NO_WASM is why a browser without WebAssembly cannot run the engine.
+const NO_WASM = 'this browser has no WebAssembly, which the engine needs. Open the page in a current browser (or one where WebAssembly is allowed).';
+
+// mount makes a Calculator of a block: in the page when the page styles
+// calculators, else in its own shadow root.
+function mount(host) {
+  if (mounted.has(host)) return null;
+  mounted.add(host);
+  let root = host;
+  let why = '';
+  if (!styledByPage(host)) {
+    root = isolate(host);
+    if (!root) {
+      // No shadow DOM: the block shows what it can in the page itself.
+      root = host;
+      for (const n of [...host.childNodes]) if (!(n.localName === 'script')) n.remove();
+      why = 'this browser is too old for it (it has no custom elements or shadow DOM). Open the page in a current browser.';
+    }
+  }
+  if (!root.querySelector('[data-part="output"]')) showNotLive(root, host);
+  if (typeof WebAssembly !== 'object' || typeof WebAssembly.compile !== 'function') why = why || NO_WASM;
+  const c = new Calculator(root, why ? null : engineFor(pageAnalysis || needsAnalysis(host)), host);
+  calcs.push(c);
+  if (why) c.fail(why);
+  return c;
 }
 
 // start makes every calculator on the page live. The engine is fetched
-// and compiled at once, while the calculators wait for it.
+// and compiled at once, while the calculators wait for it. Blocks added
+// later in <seatsmith-calculator> elements start as they join the page.
 export async function start() {
-  const roots = findBlocks(document);
-  if (!roots.length) return [];
-  ensureStyles(roots[0]);
-  const engine = engineFor(roots.some(needsAnalysis));
-  const calcs = roots.map((root) => new Calculator(root, engine));
+  const hosts = findBlocks(document);
+  pageAnalysis = hosts.some(needsAnalysis);
+  const own = hosts.map(mount).filter((c) => c);
+  if (window.customElements && !customElements.get(ELEMENT)) {
+    customElements.define(ELEMENT, class extends HTMLElement {
+      connectedCallback() {
+        const c = mount(this);
+        if (c) c.begin();
+      }
+    });
+  }
   window.addEventListener('hashchange', () => calcs.forEach((c) => c.reloadFromFragment()));
-  await Promise.all(calcs.map((c) => c.start().catch((e) => c.fail(e.message || String(e)))));
-  return calcs;
+  await Promise.all(own.map((c) => c.begin()));
+  return own;
 }
 
 if (document.readyState === 'loading') document.addEventListener('DOMContentLoaded', () => start());
