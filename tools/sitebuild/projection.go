@@ -177,11 +177,13 @@ func projectionGolden(p *page) string {
 	return b.String()
 }
 
-// projectionAssets are the projection block's own files: its stylesheet
-// and the page script, which runs the draws on the bridge's engine.
+// projectionAssets are the projection and election blocks' own files:
+// their stylesheets and page scripts, which run on the bridge's engine.
 var projectionAssets = []struct{ name, dir, mediatype string }{
 	{"projection.css", "site/static", "text/css"},
 	{"projection.js", "wasm/js", "text/javascript"},
+	{"election.css", "site/static", "text/css"},
+	{"election.js", "wasm/js", "text/javascript"},
 }
 
 // addProjectionAssets minifies and fingerprints the projection block's
@@ -197,7 +199,7 @@ func addProjectionAssets(root, src string, m *minify.M, add func(asset), bridge 
 		if err != nil {
 			return err
 		}
-		if a.name == "projection.js" {
+		if strings.HasSuffix(a.name, ".js") {
 			const imp = "from './bridge.js'"
 			if !bytes.Contains(raw, []byte(imp)) {
 				return fmt.Errorf("%s: no import %s to point at the built bridge", a.name, imp)

@@ -1,0 +1,1 @@
+import { build, engineFor } from './bridge.js';
