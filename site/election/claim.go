@@ -4,9 +4,9 @@ import (
 	"strconv"
 	"strings"
 
+	model "seatsmith/engine/election"
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
-	model "seatsmith/engine/election"
 )
 
 // A Claim is a sentence about the election that the block can check:

@@ -5,9 +5,9 @@ import (
 	"strings"
 
 	"seatsmith/engine"
+	model "seatsmith/engine/election"
 	"seatsmith/engine/input"
 	"seatsmith/engine/jsondoc"
-	model "seatsmith/engine/election"
 )
 
 // Limits of an election block: a page computes it after every keystroke,

@@ -228,7 +228,7 @@ func systemSection(c *Config, r *model.Result, sys model.System, id string) *Nod
 			case m.Excluded[d][p]:
 				td.AddText("0 (excluded)")
 			case m.Tied[d][p]:
-				td.AddText(strconv.Itoa(m.Seats[d][p]) + " (tied)").Set("data-tied", "")
+				td.AddText(strconv.Itoa(m.Seats[d][p])+" (tied)").Set("data-tied", "")
 			default:
 				td.AddText(strconv.Itoa(m.Seats[d][p]))
 			}
