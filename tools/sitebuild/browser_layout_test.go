@@ -80,9 +80,9 @@ func saveArtifact(t testing.TB, name string, data []byte) {
 	}
 }
 
-// calcRoots selects every calculator on a page: the calculator blocks and
-// the projection block.
-const calcRoots = `[data-seatsmith], [data-forecast]`
+// calcRoots selects every calculator on a page: the calculator blocks, the
+// projection blocks and the election blocks.
+const calcRoots = `[data-seatsmith], [data-projection], [data-election]`
 
 // overflowJS lists every visible element of a calculator that reaches past
 // the calculator's box, every element of a chart that reaches past its

@@ -181,7 +181,7 @@ func (tb *tab) waitFor(what, js string) {
 	}
 }
 
-const allLive = `document.querySelectorAll('[data-seatsmith], [data-projection]').length > 0 && [...document.querySelectorAll('[data-seatsmith], [data-projection]')].every(e => e.dataset.state === 'live')`
+const allLive = `document.querySelectorAll('[data-seatsmith], [data-projection], [data-election]').length > 0 && [...document.querySelectorAll('[data-seatsmith], [data-projection], [data-election]')].every(e => e.dataset.state === 'live')`
 
 func (tb *tab) messages() []string {
 	tb.mu.Lock()
