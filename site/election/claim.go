@@ -201,13 +201,13 @@ func (cl *Claim) Statement() string {
 	case "seats":
 		var parts []string
 		for i, s := range cl.Systems {
-			parts = append(parts, seatsText(cl.Seats[i])+" under "+SystemTitle(s))
+			parts = append(parts, seatsText(cl.Seats[i])+" under "+systemPhrase(s))
 		}
-		return cl.Party + " wins " + strings.Join(parts, " but ") + "."
+		return cl.Party + " wins " + listText(parts) + "."
 	case "differ":
-		return cl.Party + "'s seats differ under " + SystemTitle(cl.Systems[0]) + " and " + SystemTitle(cl.Systems[1]) + "."
+		return cl.Party + "'s seats differ under " + systemPhrase(cl.Systems[0]) + " and " + systemPhrase(cl.Systems[1]) + "."
 	case "cell-seats":
-		return cl.Party + " wins " + seatsText(cl.Seats[0]) + " in " + cl.District + " under " + SystemTitle(cl.System) + "."
+		return cl.Party + " wins " + seatsText(cl.Seats[0]) + " in " + cl.District + " under " + systemPhrase(cl.System) + "."
 	case "district-sums":
 		who := "Every district's seats"
 		if cl.District != "" {
@@ -220,7 +220,7 @@ func (cl *Claim) Statement() string {
 		}
 		return "The biproportional divisors are a valid certificate."
 	case "excluded":
-		return cl.Party + " is below the threshold and wins no seat."
+		return cl.Party + " is below the threshold."
 	}
 	return "No tie decides a seat" + underText(cl.System) + "."
 }
@@ -229,7 +229,21 @@ func underText(s model.System) string {
 	if s == 0 {
 		return " under any of the three systems"
 	}
-	return " under " + SystemTitle(s)
+	return " under " + systemPhrase(s)
+}
+
+// systemPhrase is a system's name inside a sentence.
+func systemPhrase(s model.System) string {
+	t := SystemTitle(s)
+	return strings.ToLower(t[:1]) + t[1:]
+}
+
+// listText joins "a", "b" and "c" as "a, b and c".
+func listText(xs []string) string {
+	if len(xs) < 2 {
+		return strings.Join(xs, "")
+	}
+	return strings.Join(xs[:len(xs)-1], ", ") + " and " + xs[len(xs)-1]
 }
 
 func seatsText(n int) string {
@@ -250,7 +264,7 @@ func (cl *Claim) Check(c *Config, o *Outcome) Verdict {
 		for i, s := range cl.Systems {
 			k := o.Result(s).Parties[p].Seats
 			n = append(n, k)
-			got = append(got, seatsText(k)+" under "+SystemTitle(s))
+			got = append(got, seatsText(k)+" under "+systemPhrase(s))
 			if cl.Kind == "seats" && k != cl.Seats[i] {
 				holds = false
 			}
@@ -258,7 +272,7 @@ func (cl *Claim) Check(c *Config, o *Outcome) Verdict {
 		if cl.Kind == "differ" {
 			holds = n[0] != n[1]
 		}
-		return Verdict{holds, cl.Party + " wins " + strings.Join(got, " and ")}
+		return Verdict{holds, cl.Party + " wins " + listText(got)}
 	case "cell-seats":
 		r := o.Result(cl.System)
 		d, p := c.district(cl.District), c.party(cl.Party)
@@ -268,7 +282,7 @@ func (cl *Claim) Check(c *Config, o *Outcome) Verdict {
 				k = cell.Seats
 			}
 		}
-		return Verdict{k == cl.Seats[0], cl.Party + " wins " + seatsText(k) + " in " + cl.District + " under " + SystemTitle(cl.System)}
+		return Verdict{k == cl.Seats[0], cl.Party + " wins " + seatsText(k) + " in " + cl.District + " under " + systemPhrase(cl.System)}
 	case "district-sums":
 		for _, sys := range Systems {
 			if cl.System != 0 && sys != cl.System {
@@ -282,7 +296,7 @@ func (cl *Claim) Check(c *Config, o *Outcome) Verdict {
 				}
 				if sum := m.RowSum(d); sum != r.Districts[d].Seats {
 					return Verdict{false, r.Districts[d].Name + "'s seats by party add up to " + strconv.Itoa(sum) + " of its " +
-						strconv.Itoa(r.Districts[d].Seats) + " under " + SystemTitle(sys)}
+						strconv.Itoa(r.Districts[d].Seats) + " under " + systemPhrase(sys)}
 				}
 			}
 			total := 0
@@ -290,10 +304,10 @@ func (cl *Claim) Check(c *Config, o *Outcome) Verdict {
 				total += p.Seats
 			}
 			if total+r.Unassigned != r.Seats {
-				return Verdict{false, "the parties' seats add up to " + strconv.Itoa(total) + " of " + strconv.Itoa(r.Seats) + " under " + SystemTitle(sys)}
+				return Verdict{false, "the parties' seats add up to " + strconv.Itoa(total) + " of " + strconv.Itoa(r.Seats) + " under " + systemPhrase(sys)}
 			}
 		}
-		return Verdict{true, "every sum holds"}
+		return Verdict{true, "the seats add up in every district and over the parties"}
 	case "certificate":
 		r := o.Result(model.Biproportional)
 		switch {
@@ -318,5 +332,11 @@ func (cl *Claim) Check(c *Config, o *Outcome) Verdict {
 			n += len(o.Results[i].Ties)
 		}
 	}
-	return Verdict{n == 0, strconv.Itoa(n) + " tie(s)"}
+	switch n {
+	case 0:
+		return Verdict{true, "no tie"}
+	case 1:
+		return Verdict{false, "1 tie"}
+	}
+	return Verdict{false, strconv.Itoa(n) + " ties"}
 }

@@ -104,7 +104,7 @@ func setupText(c *Config, o *Outcome) string {
 	if len(r.Thresholds) == 0 {
 		s += "No threshold: every party takes part."
 	} else {
-		s += "Threshold: " + format.SharePercent(r.Thresholds[0].Share) + " of the votes over the whole election, under all three systems"
+		s += "Threshold: " + format.SharePercent(r.Thresholds[0].Share) + " of the votes over the whole election"
 		var below []string
 		for _, p := range r.Parties {
 			if !p.Qualified {
@@ -114,7 +114,7 @@ func setupText(c *Config, o *Outcome) string {
 		if len(below) == 0 {
 			s += "; every party reaches it."
 		} else {
-			s += "; below it: " + strings.Join(below, ", ") + " (no seat anywhere)."
+			s += "; below it: " + strings.Join(below, ", ") + " (no seat under per-district D'Hondt or biproportional Sainte-Laguë; under two-tier compensation only the district seats it wins)."
 		}
 	}
 	s += " The two-tier house adds " + format.Plural(c.Compensatory, "compensatory seat") + " to the district seats."
