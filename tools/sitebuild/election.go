@@ -1,13 +1,10 @@
 package main
 
 import (
-	"errors"
 	"regexp"
 	"strconv"
 	"strings"
 
-	"seatsmith/engine/input"
-	"seatsmith/engine/jsondoc"
 	"seatsmith/site/election"
 )
 
@@ -30,52 +27,13 @@ var electionOpen = regexp.MustCompile(`<div\b[^>]*\bdata-election\b[^>]*>`)
 // blocks in p.Elections. It returns a message for every claim that does
 // not hold; bad input is an *input.Error naming page, line and field.
 func expandElections(p *page) ([]string, error) {
-	src := p.Source
-	var out strings.Builder
-	var bad []string
-	last := 0
-	ids := map[string]bool{}
-	for _, loc := range electionOpen.FindAllStringIndex(src, -1) {
-		line := lineAt(src, loc[0])
-		fail := func(field, msg string) error { return &input.Error{File: p.File, Line: line, Field: field, Msg: msg} }
-		id := ""
-		for _, m := range attrRe.FindAllStringSubmatch(src[loc[0]+4:loc[1]-1], -1) {
-			switch m[1] {
-			case "id":
-				id = m[2] + m[3]
-			case "data-state":
-				return nil, fail("data-state", "the build sets data-state; leave it out of the page source")
-			}
-		}
-		if !idRe.MatchString(id) || ids[id] {
-			return nil, fail("id", "an election block needs an id of its own on the page (a letter, then letters, digits, - or _)")
-		}
-		ids[id] = true
-		st := scriptTag.FindStringIndex(src[loc[1]:])
-		if st == nil {
-			return nil, fail("script", `an election block holds one <script type="application/json"> element with its document`)
-		}
-		bodyStart := loc[1] + st[1]
-		end := strings.Index(src[bodyStart:], "</script>")
-		if end < 0 {
-			return nil, fail("script", "the block's <script> element is never closed")
-		}
-		after := bodyStart + end + len("</script>")
-		cd := closeDiv.FindStringIndex(src[after:])
-		if cd == nil {
-			return nil, &input.Error{File: p.File, Line: lineAt(src, after), Field: "div", Msg: "an election block holds only its <script> element; close the <div> right after it"}
-		}
-		blockEnd := after + cd[1]
-		jsonLine := lineAt(src, bodyStart)
-		v, err := jsondoc.Parse([]byte(strings.Repeat("\n", jsonLine-1) + src[bodyStart:bodyStart+end]))
-		if err != nil {
-			var se *jsondoc.SyntaxError
-			if errors.As(err, &se) {
-				return nil, &input.Error{File: p.File, Line: se.Line, Msg: "the election block's JSON is malformed: " + se.Msg}
-			}
-			return nil, fail("", err.Error())
-		}
-		cfg, err := election.Parse(p.File, line, v)
+	blocks, err := scanJSONBlocks(p.File, p.Source, electionOpen, "election")
+	if err != nil || len(blocks) == 0 {
+		return nil, err
+	}
+	var bad, html []string
+	for _, b := range blocks {
+		cfg, err := election.Parse(p.File, b.Line, b.Doc)
 		if err != nil {
 			return nil, err
 		}
@@ -90,26 +48,14 @@ func expandElections(p *page) ([]string, error) {
 				if says == "" {
 					says = c.Statement()
 				}
-				bad = append(bad, p.File+":"+strconv.Itoa(c.Line)+": election "+strconv.Quote(id)+", claim "+strconv.Quote(c.ID)+
+				bad = append(bad, p.File+":"+strconv.Itoa(c.Line)+": election "+strconv.Quote(b.ID)+", claim "+strconv.Quote(c.ID)+
 					" does not hold: it says "+strconv.Quote(says)+", but "+vd.Found)
 			}
 		}
-		js := string(jsondoc.Marshal(v))
-		// The markup goes into the page template's text: no "{{" may stay,
-		// and the JSON may not close its element.
-		js = strings.ReplaceAll(strings.ReplaceAll(js, "</", `<\/`), "{{", `{\u007b`)
-		html := strings.ReplaceAll(election.Prerender(cfg, id, js, o), "{{", "{&#123;")
-		out.WriteString(src[last:loc[0]])
-		out.WriteString(html)
-		out.WriteString(strings.Repeat("\n", strings.Count(src[loc[0]:blockEnd], "\n")))
-		last = blockEnd
-		p.Elections = append(p.Elections, &electionRef{ID: id, Line: line, Config: cfg, Outcome: o})
+		html = append(html, election.Prerender(cfg, b.ID, blockJSON(b.Doc), o))
+		p.Elections = append(p.Elections, &electionRef{ID: b.ID, Line: b.Line, Config: cfg, Outcome: o})
 	}
-	if last == 0 {
-		return nil, nil
-	}
-	out.WriteString(src[last:])
-	p.Source = out.String()
+	p.Source = spliceBlocks(p.Source, blocks, html)
 	return bad, nil
 }
 
