@@ -1,6 +1,7 @@
 package election
 
 import (
+	"errors"
 	"strconv"
 	"strings"
 
@@ -140,6 +141,9 @@ func Parse(file string, line int, v *jsondoc.Value) (*Config, error) {
 func (c *Config) index() error {
 	s := &c.Source.Scenario
 	bad := func(field, msg string) error { return &input.Error{File: c.File, Line: c.Line, Field: field, Msg: msg} }
+	limit := func(key, field, msg string) error {
+		return &limitError{input.Error{File: c.File, Line: c.Line, Field: field, Msg: msg}, key}
+	}
 	districts := map[string]int{}
 	for i, d := range s.Districts {
 		districts[d.Name] = i
@@ -163,13 +167,13 @@ func (c *Config) index() error {
 	}
 	switch {
 	case len(s.Districts) > MaxDistricts:
-		return bad("districts", strconv.Itoa(len(s.Districts))+" districts is more than the "+strconv.Itoa(MaxDistricts)+" an election block shows; the command-line tool takes more")
+		return limit("districts", "districts", strconv.Itoa(len(s.Districts))+" districts is more than the "+strconv.Itoa(MaxDistricts)+" an election block shows; the command-line tool takes more")
 	case len(c.Parties) > MaxParties:
-		return bad("parties", strconv.Itoa(len(c.Parties))+" parties is more than the "+strconv.Itoa(MaxParties)+" an election block shows; the command-line tool takes more")
+		return limit("parties", "parties", strconv.Itoa(len(c.Parties))+" parties is more than the "+strconv.Itoa(MaxParties)+" an election block shows; the command-line tool takes more")
 	case len(s.Votes) > MaxCells:
-		return bad("votes", strconv.Itoa(len(s.Votes))+" vote rows is more than the "+strconv.Itoa(MaxCells)+" an election block shows; the command-line tool takes more")
+		return limit("cells", "votes", strconv.Itoa(len(s.Votes))+" vote rows is more than the "+strconv.Itoa(MaxCells)+" an election block shows; the command-line tool takes more")
 	case seats > MaxSeats:
-		return bad("districts", "a house of "+strconv.Itoa(seats)+" seats is more than the "+strconv.Itoa(MaxSeats)+" an election block apportions; the command-line tool takes more")
+		return limit("seats", "districts", "a house of "+strconv.Itoa(seats)+" seats is more than the "+strconv.Itoa(MaxSeats)+" an election block apportions; the command-line tool takes more")
 	}
 	for _, v := range s.Votes {
 		d, ok := districts[v.District]
@@ -246,4 +250,25 @@ func SystemTitle(sys model.System) string {
 		return "Two-tier compensation"
 	}
 	return "Biproportional Sainte-Laguë"
+}
+
+// A limitError is an *input.Error from one of the block's limits, which
+// key names: "districts", "parties", "cells" or "seats".
+type limitError struct {
+	err input.Error
+	key string
+}
+
+func (e *limitError) Error() string { return e.err.Error() }
+func (e *limitError) Unwrap() error { return &e.err }
+
+// LimitKey returns the key of the limit err is beyond ("districts",
+// "parties", "cells" or "seats", as MaxDistricts, MaxParties, MaxCells and
+// MaxSeats), or "" when err is not about a limit.
+func LimitKey(err error) string {
+	var le *limitError
+	if errors.As(err, &le) {
+		return le.key
+	}
+	return ""
 }

@@ -54,6 +54,11 @@ func electionCall(arg, _ *jsondoc.Value) (*jsondoc.Value, error) {
 		doc = v
 	}
 	cfg, err := election.Parse("", 0, doc)
+	if key := election.LimitKey(err); key != "" {
+		var ie *input.Error
+		errors.As(err, &ie)
+		return nil, &input.Error{Field: ie.Field, Msg: ie.Msg + " (limits().election_" + key + ")"}
+	}
 	if err != nil {
 		return nil, err
 	}

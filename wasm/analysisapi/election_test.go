@@ -29,8 +29,8 @@ func TestElectionCall(t *testing.T) {
 		{"bad votes", jsondoc.Str(strings.Replace(smallElection, `5200`, `"5,200"`, 1)), "votes"},
 		{"bad threshold", jsondoc.Str(strings.Replace(smallElection, `"5%"`, `"half"`, 1)), "threshold"},
 		{"system given", jsondoc.Str(strings.Replace(smallElection, `{"threshold"`, `{"system": "districts", "threshold"`, 1)), "system"},
-		{"too many districts", jsondoc.Str(manyDistricts(61)), "61 districts"},
-		{"too many seats", jsondoc.Str(strings.Replace(smallElection, `"seats": 5}`, `"seats": 5000}`, 1)), "5005 seats"},
+		{"too many districts", jsondoc.Str(manyDistricts(61)), "limits().election_districts"},
+		{"too many seats", jsondoc.Str(strings.Replace(smallElection, `"seats": 5}`, `"seats": 5000}`, 1)), "limits().election_seats"},
 		{"not an object", jsondoc.Str(`[1, 2]`), "object"},
 	}
 	for _, tc := range tests {
