@@ -60,7 +60,7 @@ func Election(title string, res *election.Result, data ElectionTable) *Document 
 	} else {
 		var ts []string
 		for _, t := range res.Ties {
-			ts = append(ts, electionTieText(res, t))
+			ts = append(ts, ElectionTieText(res, t))
 		}
 		d.Body = append(d.Body, List{Items: ts})
 	}
@@ -126,9 +126,9 @@ func electionSummary(res *election.Result) string {
 	return s.String()
 }
 
-// electionTieText says who tied, at which stage, for how many seats, and
+// ElectionTieText says who tied, at which stage, for how many seats, and
 // what became of them.
-func electionTieText(res *election.Result, t election.Tie) string {
+func ElectionTieText(res *election.Result, t election.Tie) string {
 	var s strings.Builder
 	s.WriteString("TIE (" + t.Stage + "): ")
 	var names []string

@@ -81,8 +81,8 @@ func saveArtifact(t testing.TB, name string, data []byte) {
 }
 
 // calcRoots selects every calculator on a page: the calculator blocks (in
-// either form) and the projection block.
-const calcRoots = `[data-seatsmith], seatsmith-calculator, [data-projection]`
+// either form), the projection blocks and the election blocks.
+const calcRoots = `[data-seatsmith], seatsmith-calculator, [data-projection], [data-election]`
 
 // rootsJS is a JavaScript expression for every calculator's root: the
 // block itself, or the root in its shadow root.

@@ -223,7 +223,7 @@ func (tb *tab) waitForWithin(what, js string, d time.Duration) {
 	}
 }
 
-const allLive = `document.querySelectorAll('[data-seatsmith], seatsmith-calculator, [data-projection]').length > 0 && [...document.querySelectorAll('[data-seatsmith], seatsmith-calculator, [data-projection]')].every(e => e.dataset.state === 'live')`
+const allLive = `document.querySelectorAll('[data-seatsmith], seatsmith-calculator, [data-projection], [data-election]').length > 0 && [...document.querySelectorAll('[data-seatsmith], seatsmith-calculator, [data-projection], [data-election]')].every(e => e.dataset.state === 'live')`
 
 func (tb *tab) messages() []string {
 	tb.mu.Lock()

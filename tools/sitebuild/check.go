@@ -26,6 +26,7 @@ func goldenText(p *page) string {
 		writeGolden(&b, br.Block, o)
 	}
 	b.WriteString(projectionGolden(p))
+	b.WriteString(electionGolden(p))
 	return b.String()
 }
 
@@ -228,7 +229,7 @@ func check(src, golden string, update bool, w io.Writer) ([]string, error) {
 	}
 	var bad []string
 	for _, p := range s.Pages {
-		if len(p.Blocks) == 0 && len(p.Projections) == 0 {
+		if len(p.Blocks) == 0 && len(p.Projections) == 0 && len(p.Elections) == 0 {
 			continue
 		}
 		got := goldenText(p)

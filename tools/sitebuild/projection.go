@@ -40,53 +40,15 @@ var projectionOpen = regexp.MustCompile(`<div\b[^>]*\bdata-projection\b[^>]*>`)
 // blocks in p.Projections. It returns a message for every claim that does
 // not hold; bad input is an *input.Error naming page, line and field.
 func expandProjections(p *page) ([]string, error) {
-	src := p.Source
+	blocks, err := scanJSONBlocks(p.File, p.Source, projectionOpen, "projection")
+	if err != nil || len(blocks) == 0 {
+		return nil, err
+	}
 	scenarios := filepath.Join(filepath.Dir(filepath.Dir(p.File)), "scenarios")
-	var out strings.Builder
-	var bad []string
-	last := 0
-	ids := map[string]bool{}
-	for _, loc := range projectionOpen.FindAllStringIndex(src, -1) {
-		line := lineAt(src, loc[0])
+	var bad, html []string
+	for _, b := range blocks {
+		line, v := b.Line, b.Doc
 		fail := func(field, msg string) error { return &input.Error{File: p.File, Line: line, Field: field, Msg: msg} }
-		id := ""
-		for _, m := range attrRe.FindAllStringSubmatch(src[loc[0]+4:loc[1]-1], -1) {
-			switch m[1] {
-			case "id":
-				id = m[2] + m[3]
-			case "data-state":
-				return nil, fail("data-state", "the build sets data-state; leave it out of the page source")
-			}
-		}
-		if !idRe.MatchString(id) || ids[id] {
-			return nil, fail("id", "a projection block needs an id of its own on the page (a letter, then letters, digits, - or _)")
-		}
-		ids[id] = true
-		rest := src[loc[1]:]
-		st := scriptTag.FindStringIndex(rest)
-		if st == nil {
-			return nil, fail("script", `a projection block holds one <script type="application/json"> element with its document`)
-		}
-		bodyStart := loc[1] + st[1]
-		end := strings.Index(src[bodyStart:], "</script>")
-		if end < 0 {
-			return nil, fail("script", "the block's <script> element is never closed")
-		}
-		after := bodyStart + end + len("</script>")
-		cd := closeDiv.FindStringIndex(src[after:])
-		if cd == nil {
-			return nil, &input.Error{File: p.File, Line: lineAt(src, after), Field: "div", Msg: "a projection block holds only its <script> element; close the <div> right after it"}
-		}
-		blockEnd := after + cd[1]
-		jsonLine := lineAt(src, bodyStart)
-		v, err := jsondoc.Parse([]byte(strings.Repeat("\n", jsonLine-1) + src[bodyStart:bodyStart+end]))
-		if err != nil {
-			var se *jsondoc.SyntaxError
-			if errors.As(err, &se) {
-				return nil, &input.Error{File: p.File, Line: se.Line, Msg: "the projection block's JSON is malformed: " + se.Msg}
-			}
-			return nil, fail("", err.Error())
-		}
 		if v.Kind == jsondoc.Object {
 			if f := v.Get("counts_file"); f != nil && f.Kind == jsondoc.String {
 				if strings.ContainsAny(f.Text, `/\`) || strings.HasPrefix(f.Text, ".") {
@@ -122,27 +84,14 @@ func expandProjections(p *page) ([]string, error) {
 				if says == "" {
 					says = c.Statement()
 				}
-				bad = append(bad, p.File+":"+strconv.Itoa(line)+": projection "+strconv.Quote(id)+", claim "+strconv.Quote(c.ID)+
+				bad = append(bad, p.File+":"+strconv.Itoa(line)+": projection "+strconv.Quote(b.ID)+", claim "+strconv.Quote(c.ID)+
 					" does not hold with seed "+strconv.FormatUint(cfg.Seed, 10)+": it says "+strconv.Quote(says)+", but "+vd.Found)
 			}
 		}
-		js := string(jsondoc.Marshal(v))
-		// The markup goes into the page template's text: no "{{" may stay,
-		// and the JSON may not close its element.
-		js = strings.ReplaceAll(strings.ReplaceAll(js, "</", `<\/`), "{{", `{\u007b`)
-		html := projection.Prerender(cfg, id, js, s)
-		html = strings.ReplaceAll(html, "{{", "{&#123;")
-		out.WriteString(src[last:loc[0]])
-		out.WriteString(html)
-		out.WriteString(strings.Repeat("\n", strings.Count(src[loc[0]:blockEnd], "\n")))
-		last = blockEnd
-		p.Projections = append(p.Projections, &projectionRef{ID: id, Line: line, Config: cfg, Summary: s})
+		html = append(html, projection.Prerender(cfg, b.ID, blockJSON(v), s))
+		p.Projections = append(p.Projections, &projectionRef{ID: b.ID, Line: line, Config: cfg, Summary: s})
 	}
-	if last == 0 {
-		return nil, nil
-	}
-	out.WriteString(src[last:])
-	p.Source = out.String()
+	p.Source = spliceBlocks(p.Source, blocks, html)
 	return bad, nil
 }
 
@@ -177,11 +126,13 @@ func projectionGolden(p *page) string {
 	return b.String()
 }
 
-// projectionAssets are the projection block's own files: its stylesheet
-// and the page script, which runs the draws on the bridge's engine.
+// projectionAssets are the projection and election blocks' own files:
+// their stylesheets and page scripts, which run on the bridge's engine.
 var projectionAssets = []struct{ name, dir, mediatype string }{
 	{"projection.css", "site/static", "text/css"},
 	{"projection.js", "wasm/js", "text/javascript"},
+	{"election.css", "site/static", "text/css"},
+	{"election.js", "wasm/js", "text/javascript"},
 }
 
 // addProjectionAssets minifies and fingerprints the projection block's
@@ -197,7 +148,7 @@ func addProjectionAssets(root, src string, m *minify.M, add func(asset), bridge 
 		if err != nil {
 			return err
 		}
-		if a.name == "projection.js" {
+		if strings.HasSuffix(a.name, ".js") {
 			const imp = "from './bridge.js'"
 			if !bytes.Contains(raw, []byte(imp)) {
 				return fmt.Errorf("%s: no import %s to point at the built bridge", a.name, imp)

@@ -22,6 +22,8 @@ type page struct {
 	Outcomes []*calc.Outcome
 	// Projections are the page's projection blocks (see projection.go).
 	Projections []*projectionRef
+	// Elections are the page's election blocks (see election.go).
+	Elections []*electionRef
 }
 
 // A site is every page of the site sources.
@@ -76,6 +78,11 @@ func loadPage(file string) (*page, []string, error) {
 	if err != nil {
 		return nil, nil, err
 	}
+	electionBad, err := expandElections(p)
+	if err != nil {
+		return nil, nil, err
+	}
+	projectionBad = append(projectionBad, electionBad...)
 	p.Blocks, err = scanBlocks(file, p.Source)
 	if err != nil {
 		return nil, nil, err
@@ -121,15 +128,20 @@ func (p *page) claimIDs() map[string]bool {
 			ids[c.ID] = true
 		}
 	}
+	for _, e := range p.Elections {
+		for _, c := range e.Config.Claims {
+			ids[c.ID] = true
+		}
+	}
 	return ids
 }
 
 // engine returns the asset name of the WebAssembly module the page's
-// blocks need: the analysis module for variation blocks, paradox claims
-// and projections, the calculator module for calculators alone, and ""
+// blocks need: the analysis module for variation blocks, paradox claims,
+// projections and elections, the calculator module for calculators alone, and ""
 // for a page without blocks.
 func (p *page) engine() string {
-	if len(p.Projections) > 0 {
+	if len(p.Projections) > 0 || len(p.Elections) > 0 {
 		return "seatsmith-analysis.wasm"
 	}
 	for _, br := range p.Blocks {

@@ -2,6 +2,7 @@ package analysisapi
 
 import (
 	"seatsmith/site/calc"
+	"seatsmith/site/election"
 	"seatsmith/site/projection"
 	"seatsmith/wasm/api"
 )
@@ -9,7 +10,7 @@ import (
 // Module returns the functions and limits of the analysis module: every
 // function of the calculator module, its calculator serving variation
 // blocks too (sweep, growth and admit; see calc.UseVariations), and sweep,
-// projectStart, projectRun, projectResult and projectDrop.
+// projectStart, projectRun, projectResult, projectDrop and election.
 func Module() ([]api.Function, []api.Limit) {
 	calc.UseVariations()
 	fns := append(api.Calculator(),
@@ -18,6 +19,7 @@ func Module() ([]api.Function, []api.Limit) {
 		api.Function{Name: "projectRun", Call: projectRun},
 		api.Function{Name: "projectResult", Call: projectResult},
 		api.Function{Name: "projectDrop", Call: projectDrop},
+		api.Function{Name: "election", Call: electionCall},
 	)
 	limits := append(api.Limits(),
 		api.Limit{Key: "sweep_cells", Value: MaxSweepCells},
@@ -25,6 +27,10 @@ func Module() ([]api.Function, []api.Limit) {
 		api.Limit{Key: "draws", Value: projection.MaxDraws},
 		api.Limit{Key: "draws_per_call", Value: maxChunk},
 		api.Limit{Key: "projection_units", Value: projection.MaxUnits},
+		api.Limit{Key: "election_districts", Value: election.MaxDistricts},
+		api.Limit{Key: "election_parties", Value: election.MaxParties},
+		api.Limit{Key: "election_cells", Value: election.MaxCells},
+		api.Limit{Key: "election_seats", Value: election.MaxSeats},
 	)
 	return fns, limits
 }

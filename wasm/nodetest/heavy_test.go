@@ -6,6 +6,7 @@ import (
 	"os"
 	"os/exec"
 	"path/filepath"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -28,6 +29,14 @@ func unitsJS(n string) string {
 	return `Array.from({length: ` + n + `}, (_, i) => ({name: "U" + i, population: 1000 + (i * 7919) % 100000}))`
 }
 
+// electionJS is a JavaScript expression for an election block's document
+// as JSON text: d districts of seats seats each, p parties standing in
+// every district with invented votes.
+func electionJS(d, p, seats int) string {
+	return `JSON.stringify({compensatory: 10, districts: Array.from({length: ` + strconv.Itoa(d) + `}, (_, i) => ({name: "D" + i, seats: ` + strconv.Itoa(seats) + `})),
+ votes: Array.from({length: ` + strconv.Itoa(d*p) + `}, (_, k) => ({district: "D" + Math.floor(k / ` + strconv.Itoa(p) + `), party: "P" + (k % ` + strconv.Itoa(p) + `), votes: 1000 + (k * 7919) % 100000}))})`
+}
+
 // The heavy requests a page could send: each returns a result or an error
 // value naming the limit it is beyond, and the engine answers the next
 // call. No timing is asserted; the times are logged.
@@ -47,6 +56,10 @@ func TestHeavyRequestsUnderNode(t *testing.T) {
 		{"a sweep with a name of 10^6 characters", "sweep", `[{from: 1, to: 400, units: [{name: "x".repeat(1e6), population: 5}, {name: "B", population: 7}]}]`, "", "name_length"},
 		{"a sweep of 10^6 results", "sweep", `[{from: 1, to: 100, methods: ["hamilton"], units: ` + unitsJS("10000") + `}]`, "sweep", ""},
 		{"a sweep beyond 10^6 results", "sweep", `[{from: 1, to: 101, units: ` + unitsJS("10000") + `}]`, "", "sweep_cells"},
+		{"an election of 60 districts and 20 parties", "election", `[{doc: ` + electionJS(60, 20, 80) + `}]`, "", ""},
+		{"an election of 61 districts", "election", `[{doc: ` + electionJS(61, 2, 1) + `}]`, "", "election_districts"},
+		{"an election of 21 parties", "election", `[{doc: ` + electionJS(2, 21, 1) + `}]`, "", "election_parties"},
+		{"an election of 5,050 seats", "election", `[{doc: ` + electionJS(60, 2, 84) + `}]`, "", "election_seats"},
 	}
 	dir, node := modules(t)
 	runHeavy(t, node, dir, wasmbuild.Calculator.File, calc)
