@@ -5,6 +5,7 @@ import (
 	"bytes"
 	"errors"
 	"io"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -164,7 +165,7 @@ func (s *Source) readSection(file string, sec section) error {
 		if k == "name" {
 			k = "district"
 		}
-		if !contains(known, k) {
+		if !slices.Contains(known, k) {
 			return &input.Error{File: file, Line: sec.line, Field: "column " + strconv.Itoa(i+1),
 				Msg: "unknown column " + strconv.Quote(h) + " in a " + kind + " section; its columns are " + strings.Join(known, ", ")}
 		}

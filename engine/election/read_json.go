@@ -3,6 +3,7 @@ package election
 import (
 	"errors"
 	"io"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -62,7 +63,7 @@ func FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 		return nil, bad(v, "", "an election scenario is a JSON object with kind \"election\", districts and votes")
 	}
 	for _, f := range v.Fields {
-		if !contains(electionMembers, f.Key) {
+		if !slices.Contains(electionMembers, f.Key) {
 			return nil, bad(f.Value, f.Key, "unknown member; an election scenario has "+strings.Join(electionMembers, ", "))
 		}
 		src.fields[f.Key] = place{file, lineOf(f.Value)}
@@ -270,7 +271,7 @@ func checkMembers(x *jsondoc.Value, what string, members []string) error {
 		return &fieldErr{x, "", "a" + what + " is an object with " + strings.Join(members, ", ")}
 	}
 	for _, f := range x.Fields {
-		if !contains(members, f.Key) {
+		if !slices.Contains(members, f.Key) {
 			return &fieldErr{f.Value, f.Key, "unknown member; a" + what + " has " + strings.Join(members, ", ")}
 		}
 	}
@@ -414,7 +415,7 @@ func thresholdsOf(file string, x *jsondoc.Value) ([]Threshold, error) {
 			return t, bad(y, field, "must be a share such as \"5%\", or an object {share, scope, base}")
 		}
 		for _, f := range y.Fields {
-			if !contains(thresholdMembers, f.Key) {
+			if !slices.Contains(thresholdMembers, f.Key) {
 				return t, bad(f.Value, field+"."+f.Key, "unknown member; a threshold has "+strings.Join(thresholdMembers, ", "))
 			}
 		}
@@ -494,15 +495,6 @@ func parseCount(text string) (engine.Decimal, error) {
 		return engine.Decimal{}, errors.New(input.NumberProblem("count", text, err))
 	}
 	return d, nil
-}
-
-func contains(list []string, s string) bool {
-	for _, x := range list {
-		if x == s {
-			return true
-		}
-	}
-	return false
 }
 
 func lineOf(v *jsondoc.Value) int {

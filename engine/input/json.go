@@ -4,6 +4,7 @@ import (
 	"bufio"
 	"errors"
 	"io"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -73,7 +74,7 @@ func (o Options) FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 		return nil, bad(line(v), "", "a scenario is a JSON object with a units member")
 	}
 	for _, f := range v.Fields {
-		if !contains(scenarioMembers, f.Key) {
+		if !slices.Contains(scenarioMembers, f.Key) {
 			return nil, bad(line(f.Value), f.Key, "unknown member; a scenario has "+strings.Join(scenarioMembers, ", "))
 		}
 		src.fieldLines[f.Key] = line(f.Value)
@@ -190,7 +191,7 @@ func unitFromDoc(x *jsondoc.Value, o Options) (engine.Unit, *Error) {
 		return u, &Error{Msg: "a unit is an object with name and population"}
 	}
 	for _, f := range x.Fields {
-		if !contains(unitMembers, f.Key) {
+		if !slices.Contains(unitMembers, f.Key) {
 			return u, &Error{Line: line(f.Value), Field: f.Key, Msg: "unknown member; a unit has " + strings.Join(unitMembers, ", ")}
 		}
 	}
@@ -279,15 +280,6 @@ func ParseShare(s string) (engine.Decimal, error) {
 		return engine.Decimal{}, errors.New(q + " is more than the whole")
 	}
 	return d, nil
-}
-
-func contains(list []string, s string) bool {
-	for _, x := range list {
-		if x == s {
-			return true
-		}
-	}
-	return false
 }
 
 func line(v *jsondoc.Value) int {

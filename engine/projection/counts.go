@@ -5,6 +5,7 @@ import (
 	"errors"
 	"io"
 	"math"
+	"slices"
 	"sort"
 	"strconv"
 	"strings"
@@ -131,7 +132,7 @@ func readCSV(file string, r io.Reader, opt input.Options) (*Counts, error) {
 	col := map[string]int{}
 	for i, h := range header {
 		k := strings.ToLower(strings.TrimSpace(h))
-		if !contains(csvColumns, k) {
+		if !slices.Contains(csvColumns, k) {
 			return nil, bad(1, "column "+strconv.Itoa(i+1), "unknown column "+strconv.Quote(h)+
 				"; the columns are name, population, optional date (one row per dated count), rse, min and max")
 		}
@@ -282,7 +283,7 @@ func countsFromDoc(file string, v *jsondoc.Value, opt input.Options) (*Counts, e
 		return nil, bad(lineOf(v), "", "a counts document is a JSON object with a units member")
 	}
 	for _, f := range v.Fields {
-		if !contains(docMembers, f.Key) {
+		if !slices.Contains(docMembers, f.Key) {
 			return nil, bad(lineOf(f.Value), f.Key, "unknown member; a counts document has "+strings.Join(docMembers, ", "))
 		}
 	}
@@ -315,7 +316,7 @@ func countsFromDoc(file string, v *jsondoc.Value, opt input.Options) (*Counts, e
 			return nil, bad(lineOf(x), field, "a unit is an object with a name and a population or counts")
 		}
 		for _, f := range x.Fields {
-			if !contains(unitMembers, f.Key) {
+			if !slices.Contains(unitMembers, f.Key) {
 				return nil, bad(lineOf(f.Value), field+"."+f.Key, "unknown member; a unit has "+strings.Join(unitMembers, ", "))
 			}
 		}
@@ -467,12 +468,3 @@ func wholeSeats(s string) (int, error) {
 }
 
 func csvError(file string, err error) error { return input.CSVErrorOf(file, err) }
-
-func contains(list []string, s string) bool {
-	for _, x := range list {
-		if x == s {
-			return true
-		}
-	}
-	return false
-}

@@ -1,6 +1,7 @@
 package calc
 
 import (
+	"slices"
 	"strconv"
 	"strings"
 
@@ -100,7 +101,7 @@ func readVariation(file string, doc *jsondoc.Value, vm *variationMode) (*jsondoc
 	sdoc := jsondoc.NewObject()
 	sdoc.Line = doc.Line
 	for _, f := range doc.Fields {
-		if !contains(vm.members, f.Key) {
+		if !slices.Contains(vm.members, f.Key) {
 			sdoc.Fields = append(sdoc.Fields, f)
 		}
 	}
@@ -286,13 +287,4 @@ func wholeOf(v *jsondoc.Value) (int, bool) {
 		n = n*10 + int(t[i]-'0')
 	}
 	return n, true
-}
-
-func contains(list []string, s string) bool {
-	for _, x := range list {
-		if x == s {
-			return true
-		}
-	}
-	return false
 }

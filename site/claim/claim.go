@@ -1,6 +1,7 @@
 package claim
 
 import (
+	"slices"
 	"strconv"
 	"strings"
 
@@ -153,7 +154,7 @@ func parseOne(x *jsondoc.Value) (Claim, *input.Error) {
 		return c, &input.Error{Msg: "a claim is an object with id, kind and unit"}
 	}
 	for _, f := range x.Fields {
-		if !contains(members, f.Key) {
+		if !slices.Contains(members, f.Key) {
 			return c, &input.Error{Line: f.Value.Line, Field: f.Key, Msg: "unknown member; a claim has " + strings.Join(members, ", ")}
 		}
 	}
@@ -299,13 +300,4 @@ func whole(v *jsondoc.Value, key string) (int, *input.Error) {
 		}
 	}
 	return 0, &input.Error{Line: v.Line, Field: key, Msg: "must be a whole number"}
-}
-
-func contains(list []string, s string) bool {
-	for _, x := range list {
-		if x == s {
-			return true
-		}
-	}
-	return false
 }
