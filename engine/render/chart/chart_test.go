@@ -14,9 +14,9 @@ import (
 
 // TestStyleMatchesTheSite: a chart standing alone looks as it does on the
 // pages: every colour and dash its style gives a unit's class is the one
-// the site's stylesheet gives it.
+// the calculators' stylesheet gives it.
 func TestStyleMatchesTheSite(t *testing.T) {
-	css, err := os.ReadFile(filepath.Join("..", "..", "..", "site", "content", "static", "style.css"))
+	css, err := os.ReadFile(filepath.Join("..", "..", "..", "site", "content", "static", "calculator.css"))
 	if err != nil {
 		t.Fatal(err)
 	}
