@@ -16,11 +16,13 @@ import (
 // embedPage writes a page of the built site holding one calculator block
 // (invented numbers) and returns its name. Its content has the side
 // padding of a host page's, into which a calculator on a phone reaches by
-// 0.3rem.
+// 0.3rem. The page styles calculators itself (it loads the calculators' stylesheet
+// and sets --seatsmith-styled), so its calculator stays in the page, where
+// the tests' selectors reach it; TestBrowserEmbed covers the shadow root.
 func embedPage(t *testing.T, dir, name, id, block string) string {
 	t.Helper()
 	html := `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>` + name + `</title>
-<style>main { padding: 0 1rem; }</style>
+<link rel="stylesheet" href="embed/seatsmith.css"><style>main { padding: 0 1rem; } :root { --seatsmith-styled: 1; }</style>
 <script type="module" src="embed/bridge.js"></script></head><body><main>
 <h1>` + name + `</h1>
 <div class="seatsmith" id="` + id + `" data-seatsmith="compact">
