@@ -29,8 +29,9 @@ const (
 
 // hostCSS is the host page's own stylesheet: the rules a calculator used to
 // be restyled by, and the rules its stylesheet used to restyle a page with.
-const hostCSS = `* { box-sizing: content-box; }
-body { margin: 2.5rem; font: 19px/1.9 Georgia, "Times New Roman", serif; color: #2b2118; background: #fbf3e4; letter-spacing: 0.02em; text-align: justify; }
+const hostCSS = `html { font-size: 62.5%; }
+* { box-sizing: content-box; }
+body { margin: 25px; font: 19px/1.9 Georgia, "Times New Roman", serif; color: #2b2118; background: #fbf3e4; letter-spacing: 0.02em; text-align: justify; }
 h1 { font-size: 2.4rem; margin: 0 0 1rem; color: #7a1f2b; }
 h2 { font-size: 1.1rem; text-transform: uppercase; color: #7a1f2b; }
 p { max-width: 32rem; color: #a00000; }
@@ -179,6 +180,17 @@ func TestBrowserEmbed(t *testing.T) {
   const rs = getComputedStyle(r); return [cs.color, rs.letterSpacing, rs.textAlign, rs.boxSizing].join(' | '); })()`)
 		if strings.Contains(inside, "rgb(160, 0, 0)") || !strings.Contains(inside, "| normal | start | border-box") {
 			t.Errorf("%s: the page's styles reach inside: %s", id, inside)
+		}
+	}
+	// The host's root font size (62.5%: ten pixels a rem) does not shrink
+	// the calculators: they follow the reader's default font size.
+	medium := eval[string](tb, `(() => { const s = document.createElement('span'); s.style.fontSize = 'medium'; document.body.append(s); const v = getComputedStyle(s).fontSize; s.remove(); return v; })()`)
+	for _, id := range []string{"harbour", "school"} {
+		if got := eval[string](tb, `getComputedStyle(`+inShadow(id, ".seatsmith")+`).fontSize`); got != medium {
+			t.Errorf("%s: the calculator's font size is %s, want the reader's default %s", id, got, medium)
+		}
+		if got := eval[string](tb, `getComputedStyle(`+inShadow(id, "table.sc-results")+`).fontSize`); got == "9.3px" {
+			t.Errorf("%s: the results table's font size follows the host's root: %s", id, got)
 		}
 	}
 	// The themed calculator takes the host's accent and font; the other

@@ -89,7 +89,7 @@ func Build(opt Options) (*Stats, error) {
 	if err != nil {
 		return nil, err
 	}
-	embedCSS, err := minifyAs(m, "text/css", calcRaw, "calculator.css")
+	embedCSS, err := minifyAs(m, "text/css", rootFree(calcRaw), "calculator.css")
 	if err != nil {
 		return nil, err
 	}

@@ -1215,6 +1215,17 @@ function calculatorSheet() {
   return sheet;
 }
 
+// defaultFontSize is the reader's default font size (the keyword medium,
+// which no page's root rule changes) in pixels, measured in shadow.
+function defaultFontSize(shadow) {
+  const probe = document.createElement('span');
+  probe.style.fontSize = 'medium';
+  shadow.appendChild(probe);
+  const size = getComputedStyle(probe).fontSize;
+  probe.remove();
+  return /^[0-9.]+px$/.test(size) ? size : '16px';
+}
+
 // isolate gives a block its own shadow root holding the calculator's root
 // and stylesheet, so that the page's styles and the calculator's leave
 // each other alone; the page's content in the block (a line for readers
@@ -1231,16 +1242,23 @@ function isolate(host) {
   const show = () => {
     if (!root.isConnected) shadow.appendChild(root);
   };
+  // The stylesheet's lengths follow --sc-root-size, not the host page's
+  // root font size: it is the reader's default font size, measured here.
+  const rootSize = ':host { --sc-root-size: ' + defaultFontSize(shadow) + '; }';
   if ('adoptedStyleSheets' in shadow && typeof CSSStyleSheet.prototype.replaceSync === 'function') {
+    const own = new CSSStyleSheet();
+    own.replaceSync(rootSize);
     // The root goes in once styled, so that it never shows unstyled.
     calculatorSheet().then((s) => {
-      shadow.adoptedStyleSheets = [...shadow.adoptedStyleSheets, s];
+      shadow.adoptedStyleSheets = [...shadow.adoptedStyleSheets, s, own];
     }, () => {}).then(show);
   } else {
     const l = document.createElement('link');
     l.rel = 'stylesheet';
     l.href = metaURL('seatsmith-style', 'seatsmith.css');
-    shadow.appendChild(l);
+    const st = document.createElement('style');
+    st.textContent = rootSize;
+    shadow.append(l, st);
     show();
   }
   return root;
