@@ -57,7 +57,7 @@ func IsElectionDoc(v *jsondoc.Value) bool {
 func FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 	src := newSource(file)
 	bad := func(x *jsondoc.Value, field, msg string) error {
-		return &input.Error{File: file, Line: lineOf(x), Field: field, Msg: msg}
+		return &input.Error{File: file, Line: jsondoc.LineOf(x), Field: field, Msg: msg}
 	}
 	if v == nil || v.Kind != jsondoc.Object {
 		return nil, bad(v, "", "an election scenario is a JSON object with kind \"election\", districts and votes")
@@ -66,7 +66,7 @@ func FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 		if !slices.Contains(electionMembers, f.Key) {
 			return nil, bad(f.Value, f.Key, "unknown member; an election scenario has "+strings.Join(electionMembers, ", "))
 		}
-		src.fields[f.Key] = place{file, lineOf(f.Value)}
+		src.fields[f.Key] = place{file, jsondoc.LineOf(f.Value)}
 		src.Given[f.Key] = true
 	}
 	s := &src.Scenario
@@ -209,7 +209,7 @@ func FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 			return nil, located(file, "districts", k, x, err)
 		}
 		s.Districts = append(s.Districts, d)
-		src.parts["districts"] = append(src.parts["districts"], place{file, lineOf(x)})
+		src.parts["districts"] = append(src.parts["districts"], place{file, jsondoc.LineOf(x)})
 	}
 	ps, err := items(list{"parties", MaxParties})
 	if err != nil {
@@ -221,7 +221,7 @@ func FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 			return nil, located(file, "parties", k, x, err)
 		}
 		s.Parties = append(s.Parties, p)
-		src.parts["parties"] = append(src.parts["parties"], place{file, lineOf(x)})
+		src.parts["parties"] = append(src.parts["parties"], place{file, jsondoc.LineOf(x)})
 	}
 	if v.Get("votes").IsNull() {
 		return nil, bad(v, "votes", "missing: an election scenario needs a votes array")
@@ -236,7 +236,7 @@ func FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 			return nil, located(file, "votes", k, x, err)
 		}
 		s.Votes = append(s.Votes, vt)
-		src.parts["votes"] = append(src.parts["votes"], place{file, lineOf(x)})
+		src.parts["votes"] = append(src.parts["votes"], place{file, jsondoc.LineOf(x)})
 	}
 	return src, nil
 }
@@ -253,11 +253,11 @@ func (e *fieldErr) Error() string { return e.field + ": " + e.msg }
 func located(file, part string, k int, entry *jsondoc.Value, err error) error {
 	var fe *fieldErr
 	if !errors.As(err, &fe) {
-		return &input.Error{File: file, Line: lineOf(entry), Field: part + "[" + strconv.Itoa(k) + "]", Msg: err.Error()}
+		return &input.Error{File: file, Line: jsondoc.LineOf(entry), Field: part + "[" + strconv.Itoa(k) + "]", Msg: err.Error()}
 	}
-	l := lineOf(fe.x)
+	l := jsondoc.LineOf(fe.x)
 	if l == 0 {
-		l = lineOf(entry)
+		l = jsondoc.LineOf(entry)
 	}
 	f := part + "[" + strconv.Itoa(k) + "]"
 	if fe.field != "" {
@@ -401,7 +401,7 @@ func thresholdsOf(file string, x *jsondoc.Value) ([]Threshold, error) {
 	one := func(y *jsondoc.Value, field string) (Threshold, error) {
 		var t Threshold
 		bad := func(z *jsondoc.Value, f, msg string) error {
-			return &input.Error{File: file, Line: lineOf(z), Field: f, Msg: msg}
+			return &input.Error{File: file, Line: jsondoc.LineOf(z), Field: f, Msg: msg}
 		}
 		if y.Kind == jsondoc.String || y.Kind == jsondoc.Number {
 			sh, err := input.ParseShare(y.Text)
@@ -497,21 +497,11 @@ func parseCount(text string) (engine.Decimal, error) {
 	return d, nil
 }
 
-func lineOf(v *jsondoc.Value) int {
-	if v == nil {
-		return 0
-	}
-	return v.Line
-}
-
+// msgOf is err's message without its place.
 func msgOf(err error) string {
-	var ee *engine.Error
-	if errors.As(err, &ee) {
-		return ee.Msg
-	}
 	var e *Error
 	if errors.As(err, &e) {
 		return e.Msg
 	}
-	return err.Error()
+	return engine.ErrorMsg(err)
 }

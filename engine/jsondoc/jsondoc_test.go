@@ -153,3 +153,24 @@ func TestParseDuplicateKeys(t *testing.T) {
 		t.Fatalf("a repeated key: %v", err)
 	}
 }
+
+func TestLineOf(t *testing.T) {
+	v, err := Parse([]byte("{\n  \"a\": 1,\n  \"b\":\n    [2]\n}"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct {
+		v    *Value
+		want int
+	}{
+		{v, 1},
+		{v.Get("a"), 2},
+		{v.Get("b"), 4},
+		{v.Get("missing"), 0},
+		{Int(3), 0},
+	} {
+		if got := LineOf(c.v); got != c.want {
+			t.Errorf("LineOf(%v) = %d, want %d", c.v, got, c.want)
+		}
+	}
+}

@@ -39,6 +39,15 @@ type Value struct {
 	Line   int      // the line the value starts on, when parsed (1-based)
 }
 
+// LineOf is the line v starts on, or 0 for a nil value or one not
+// parsed.
+func LineOf(v *Value) int {
+	if v == nil {
+		return 0
+	}
+	return v.Line
+}
+
 // A Field is one member of an object.
 type Field struct {
 	Key   string
