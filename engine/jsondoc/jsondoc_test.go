@@ -174,3 +174,21 @@ func TestLineOf(t *testing.T) {
 		}
 	}
 }
+
+func TestScalarText(t *testing.T) {
+	for _, c := range []struct {
+		v    *Value
+		want string
+	}{
+		{Str("North"), "North"},
+		{Num("1.50"), "1.50"},
+		{Boolean(true), ""},
+		{NullValue(), ""},
+		{NewArray(Int(1)), ""},
+		{nil, ""},
+	} {
+		if got := ScalarText(c.v); got != c.want {
+			t.Errorf("ScalarText(%v) = %q, want %q", c.v, got, c.want)
+		}
+	}
+}

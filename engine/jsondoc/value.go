@@ -147,3 +147,16 @@ func (v *Value) Get(key string) *Value {
 
 // IsNull reports whether v is missing or null.
 func (v *Value) IsNull() bool { return v == nil || v.Kind == Null }
+
+// ScalarText is the text of a string or a number (a number's exact
+// literal), or "" for any other value or none.
+func ScalarText(v *Value) string {
+	if v == nil {
+		return ""
+	}
+	switch v.Kind {
+	case String, Number:
+		return v.Text
+	}
+	return ""
+}
