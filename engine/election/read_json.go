@@ -71,7 +71,7 @@ func FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 	}
 	s := &src.Scenario
 	if x := v.Get("version"); !x.IsNull() {
-		n, err := wholeOf(x)
+		n, err := input.Whole(x)
 		if err != nil {
 			return nil, bad(x, "version", err.Error())
 		}
@@ -132,7 +132,7 @@ func FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 		if x.IsNull() {
 			continue
 		}
-		k, err := wholeOf(x)
+		k, err := input.Whole(x)
 		if err == nil && (k < 0 || k > engine.MaxSeats) {
 			err = errors.New("must be between 0 and " + strconv.Itoa(engine.MaxSeats))
 		}
@@ -297,7 +297,7 @@ func districtOf(x *jsondoc.Value) (District, error) {
 	}
 	d.Name = name
 	if y := x.Get("seats"); !y.IsNull() {
-		k, err := wholeOf(y)
+		k, err := input.Whole(y)
 		if err == nil && (k < 0 || k > engine.MaxSeats) {
 			err = errors.New("must be between 0 and " + strconv.Itoa(engine.MaxSeats))
 		}
@@ -334,7 +334,7 @@ func partyOf(x *jsondoc.Value) (Party, error) {
 	}
 	p.Name = name
 	if y := x.Get("wins"); !y.IsNull() {
-		k, err := wholeOf(y)
+		k, err := input.Whole(y)
 		if err == nil && (k < 0 || k > engine.MaxSeats) {
 			err = errors.New("must be between 0 and " + strconv.Itoa(engine.MaxSeats))
 		}
@@ -383,7 +383,7 @@ func voteOf(x *jsondoc.Value) (Vote, error) {
 	}
 	v.Votes = d
 	if y := x.Get("wins"); !y.IsNull() {
-		k, err := wholeOf(y)
+		k, err := input.Whole(y)
 		if err == nil && (k < 0 || k > engine.MaxSeats) {
 			err = errors.New("must be between 0 and " + strconv.Itoa(engine.MaxSeats))
 		}
@@ -466,18 +466,6 @@ func thresholdsOf(file string, x *jsondoc.Value) ([]Threshold, error) {
 		return nil, err
 	}
 	return []Threshold{t}, nil
-}
-
-// wholeOf reads a whole number from a number or a string.
-func wholeOf(x *jsondoc.Value) (int, error) {
-	if x.Kind != jsondoc.Number && x.Kind != jsondoc.String {
-		return 0, errors.New("must be a whole number")
-	}
-	n, err := strconv.Atoi(strings.TrimSpace(x.Text))
-	if err != nil {
-		return 0, errors.New(strconv.Quote(x.Text) + " is not a whole number")
-	}
-	return n, nil
 }
 
 // decimalOf reads an exact non-negative decimal from a number or a string.

@@ -80,7 +80,7 @@ func (o Options) FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 		src.fieldLines[f.Key] = jsondoc.LineOf(f.Value)
 	}
 	if x := v.Get("version"); !x.IsNull() {
-		n, err := whole(x)
+		n, err := Whole(x)
 		if err != nil {
 			return nil, bad(jsondoc.LineOf(x), "version", err.Error())
 		}
@@ -107,7 +107,7 @@ func (o Options) FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 		if x.IsNull() {
 			continue
 		}
-		n, err := whole(x)
+		n, err := Whole(x)
 		if err == nil && (n < 0 || n > engine.MaxSeats) {
 			err = errors.New("must be between 0 and " + strconv.Itoa(engine.MaxSeats))
 		}
@@ -223,7 +223,7 @@ func unitFromDoc(x *jsondoc.Value, o Options) (engine.Unit, *Error) {
 		if v.IsNull() {
 			continue
 		}
-		k, err := whole(v)
+		k, err := Whole(v)
 		if err == nil && (k < 0 || k > engine.MaxSeats) {
 			err = errors.New("must be between 0 and " + strconv.Itoa(engine.MaxSeats))
 		}
@@ -235,8 +235,8 @@ func unitFromDoc(x *jsondoc.Value, o Options) (engine.Unit, *Error) {
 	return u, nil
 }
 
-// whole reads a whole number from a number or a string.
-func whole(x *jsondoc.Value) (int, error) {
+// Whole reads a whole number from a number or a string.
+func Whole(x *jsondoc.Value) (int, error) {
 	if x.Kind != jsondoc.Number && x.Kind != jsondoc.String {
 		return 0, errors.New("must be a whole number")
 	}
