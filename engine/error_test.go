@@ -110,3 +110,18 @@ func TestParseMethod(t *testing.T) {
 		t.Errorf("ParseMethod(plurality) error %v", err)
 	}
 }
+
+func TestErrorMsg(t *testing.T) {
+	for _, c := range []struct {
+		err  error
+		want string
+	}{
+		{&Error{Unit: 1, Name: "North", Field: "population", Msg: "must be positive"}, "must be positive"},
+		{errors.Join(errors.New("reading"), &Error{Unit: -1, Field: "seats", Msg: "too many"}), "too many"},
+		{errors.New("plain"), "plain"},
+	} {
+		if got := ErrorMsg(c.err); got != c.want {
+			t.Errorf("ErrorMsg(%v) = %q, want %q", c.err, got, c.want)
+		}
+	}
+}

@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"errors"
 	"math/big"
 	"strconv"
 	"strings"
@@ -69,6 +70,16 @@ func (e *Error) Error() string {
 	}
 	b.WriteString(e.Msg)
 	return b.String()
+}
+
+// ErrorMsg is err's message without its place: an *Error's Msg, or else
+// err's text.
+func ErrorMsg(err error) string {
+	var e *Error
+	if errors.As(err, &e) {
+		return e.Msg
+	}
+	return err.Error()
 }
 
 func scenarioError(field, msg string) *Error { return &Error{Unit: -1, Field: field, Msg: msg} }

@@ -57,7 +57,7 @@ func IsElectionDoc(v *jsondoc.Value) bool {
 func FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 	src := newSource(file)
 	bad := func(x *jsondoc.Value, field, msg string) error {
-		return &input.Error{File: file, Line: lineOf(x), Field: field, Msg: msg}
+		return &input.Error{File: file, Line: jsondoc.LineOf(x), Field: field, Msg: msg}
 	}
 	if v == nil || v.Kind != jsondoc.Object {
 		return nil, bad(v, "", "an election scenario is a JSON object with kind \"election\", districts and votes")
@@ -66,12 +66,12 @@ func FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 		if !slices.Contains(electionMembers, f.Key) {
 			return nil, bad(f.Value, f.Key, "unknown member; an election scenario has "+strings.Join(electionMembers, ", "))
 		}
-		src.fields[f.Key] = place{file, lineOf(f.Value)}
+		src.fields[f.Key] = place{file, jsondoc.LineOf(f.Value)}
 		src.Given[f.Key] = true
 	}
 	s := &src.Scenario
 	if x := v.Get("version"); !x.IsNull() {
-		n, err := wholeOf(x)
+		n, err := input.Whole(x)
 		if err != nil {
 			return nil, bad(x, "version", err.Error())
 		}
@@ -132,7 +132,7 @@ func FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 		if x.IsNull() {
 			continue
 		}
-		k, err := wholeOf(x)
+		k, err := input.Whole(x)
 		if err == nil && (k < 0 || k > engine.MaxSeats) {
 			err = errors.New("must be between 0 and " + strconv.Itoa(engine.MaxSeats))
 		}
@@ -209,7 +209,7 @@ func FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 			return nil, located(file, "districts", k, x, err)
 		}
 		s.Districts = append(s.Districts, d)
-		src.parts["districts"] = append(src.parts["districts"], place{file, lineOf(x)})
+		src.parts["districts"] = append(src.parts["districts"], place{file, jsondoc.LineOf(x)})
 	}
 	ps, err := items(list{"parties", MaxParties})
 	if err != nil {
@@ -221,7 +221,7 @@ func FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 			return nil, located(file, "parties", k, x, err)
 		}
 		s.Parties = append(s.Parties, p)
-		src.parts["parties"] = append(src.parts["parties"], place{file, lineOf(x)})
+		src.parts["parties"] = append(src.parts["parties"], place{file, jsondoc.LineOf(x)})
 	}
 	if v.Get("votes").IsNull() {
 		return nil, bad(v, "votes", "missing: an election scenario needs a votes array")
@@ -236,7 +236,7 @@ func FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 			return nil, located(file, "votes", k, x, err)
 		}
 		s.Votes = append(s.Votes, vt)
-		src.parts["votes"] = append(src.parts["votes"], place{file, lineOf(x)})
+		src.parts["votes"] = append(src.parts["votes"], place{file, jsondoc.LineOf(x)})
 	}
 	return src, nil
 }
@@ -253,11 +253,11 @@ func (e *fieldErr) Error() string { return e.field + ": " + e.msg }
 func located(file, part string, k int, entry *jsondoc.Value, err error) error {
 	var fe *fieldErr
 	if !errors.As(err, &fe) {
-		return &input.Error{File: file, Line: lineOf(entry), Field: part + "[" + strconv.Itoa(k) + "]", Msg: err.Error()}
+		return &input.Error{File: file, Line: jsondoc.LineOf(entry), Field: part + "[" + strconv.Itoa(k) + "]", Msg: err.Error()}
 	}
-	l := lineOf(fe.x)
+	l := jsondoc.LineOf(fe.x)
 	if l == 0 {
-		l = lineOf(entry)
+		l = jsondoc.LineOf(entry)
 	}
 	f := part + "[" + strconv.Itoa(k) + "]"
 	if fe.field != "" {
@@ -297,7 +297,7 @@ func districtOf(x *jsondoc.Value) (District, error) {
 	}
 	d.Name = name
 	if y := x.Get("seats"); !y.IsNull() {
-		k, err := wholeOf(y)
+		k, err := input.Whole(y)
 		if err == nil && (k < 0 || k > engine.MaxSeats) {
 			err = errors.New("must be between 0 and " + strconv.Itoa(engine.MaxSeats))
 		}
@@ -334,7 +334,7 @@ func partyOf(x *jsondoc.Value) (Party, error) {
 	}
 	p.Name = name
 	if y := x.Get("wins"); !y.IsNull() {
-		k, err := wholeOf(y)
+		k, err := input.Whole(y)
 		if err == nil && (k < 0 || k > engine.MaxSeats) {
 			err = errors.New("must be between 0 and " + strconv.Itoa(engine.MaxSeats))
 		}
@@ -383,7 +383,7 @@ func voteOf(x *jsondoc.Value) (Vote, error) {
 	}
 	v.Votes = d
 	if y := x.Get("wins"); !y.IsNull() {
-		k, err := wholeOf(y)
+		k, err := input.Whole(y)
 		if err == nil && (k < 0 || k > engine.MaxSeats) {
 			err = errors.New("must be between 0 and " + strconv.Itoa(engine.MaxSeats))
 		}
@@ -401,7 +401,7 @@ func thresholdsOf(file string, x *jsondoc.Value) ([]Threshold, error) {
 	one := func(y *jsondoc.Value, field string) (Threshold, error) {
 		var t Threshold
 		bad := func(z *jsondoc.Value, f, msg string) error {
-			return &input.Error{File: file, Line: lineOf(z), Field: f, Msg: msg}
+			return &input.Error{File: file, Line: jsondoc.LineOf(z), Field: f, Msg: msg}
 		}
 		if y.Kind == jsondoc.String || y.Kind == jsondoc.Number {
 			sh, err := input.ParseShare(y.Text)
@@ -468,18 +468,6 @@ func thresholdsOf(file string, x *jsondoc.Value) ([]Threshold, error) {
 	return []Threshold{t}, nil
 }
 
-// wholeOf reads a whole number from a number or a string.
-func wholeOf(x *jsondoc.Value) (int, error) {
-	if x.Kind != jsondoc.Number && x.Kind != jsondoc.String {
-		return 0, errors.New("must be a whole number")
-	}
-	n, err := strconv.Atoi(strings.TrimSpace(x.Text))
-	if err != nil {
-		return 0, errors.New(strconv.Quote(x.Text) + " is not a whole number")
-	}
-	return n, nil
-}
-
 // decimalOf reads an exact non-negative decimal from a number or a string.
 func decimalOf(x *jsondoc.Value) (engine.Decimal, error) {
 	if x.Kind != jsondoc.Number && x.Kind != jsondoc.String {
@@ -497,21 +485,11 @@ func parseCount(text string) (engine.Decimal, error) {
 	return d, nil
 }
 
-func lineOf(v *jsondoc.Value) int {
-	if v == nil {
-		return 0
-	}
-	return v.Line
-}
-
+// msgOf is err's message without its place.
 func msgOf(err error) string {
-	var ee *engine.Error
-	if errors.As(err, &ee) {
-		return ee.Msg
-	}
 	var e *Error
 	if errors.As(err, &e) {
 		return e.Msg
 	}
-	return err.Error()
+	return engine.ErrorMsg(err)
 }

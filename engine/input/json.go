@@ -71,29 +71,29 @@ func (o Options) FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 		return &Error{File: file, Line: line, Field: field, Msg: msg}
 	}
 	if v == nil || v.Kind != jsondoc.Object {
-		return nil, bad(line(v), "", "a scenario is a JSON object with a units member")
+		return nil, bad(jsondoc.LineOf(v), "", "a scenario is a JSON object with a units member")
 	}
 	for _, f := range v.Fields {
 		if !slices.Contains(scenarioMembers, f.Key) {
-			return nil, bad(line(f.Value), f.Key, "unknown member; a scenario has "+strings.Join(scenarioMembers, ", "))
+			return nil, bad(jsondoc.LineOf(f.Value), f.Key, "unknown member; a scenario has "+strings.Join(scenarioMembers, ", "))
 		}
-		src.fieldLines[f.Key] = line(f.Value)
+		src.fieldLines[f.Key] = jsondoc.LineOf(f.Value)
 	}
 	if x := v.Get("version"); !x.IsNull() {
-		n, err := whole(x)
+		n, err := Whole(x)
 		if err != nil {
-			return nil, bad(line(x), "version", err.Error())
+			return nil, bad(jsondoc.LineOf(x), "version", err.Error())
 		}
 		if n != Version {
-			return nil, bad(line(x), "version", "this is a version "+strconv.Itoa(n)+" document; this seatsmith reads version "+strconv.Itoa(Version))
+			return nil, bad(jsondoc.LineOf(x), "version", "this is a version "+strconv.Itoa(n)+" document; this seatsmith reads version "+strconv.Itoa(Version))
 		}
 	}
 	if x := v.Get("title"); !x.IsNull() {
 		if x.Kind != jsondoc.String {
-			return nil, bad(line(x), "title", "must be a string")
+			return nil, bad(jsondoc.LineOf(x), "title", "must be a string")
 		}
 		if msg := textProblem(x.Text); msg != "" {
-			return nil, bad(line(x), "title", "the text "+msg)
+			return nil, bad(jsondoc.LineOf(x), "title", "the text "+msg)
 		}
 		src.Title = x.Text
 	}
@@ -107,80 +107,80 @@ func (o Options) FromDoc(file string, v *jsondoc.Value) (*Source, error) {
 		if x.IsNull() {
 			continue
 		}
-		n, err := whole(x)
+		n, err := Whole(x)
 		if err == nil && (n < 0 || n > engine.MaxSeats) {
 			err = errors.New("must be between 0 and " + strconv.Itoa(engine.MaxSeats))
 		}
 		if err != nil {
-			return nil, bad(line(x), it.key, err.Error())
+			return nil, bad(jsondoc.LineOf(x), it.key, err.Error())
 		}
 		*it.dst = n
 		src.Given[it.key] = true
 	}
 	if x := v.Get("method"); !x.IsNull() {
 		if x.Kind != jsondoc.String {
-			return nil, bad(line(x), "method", "must be a string such as \"webster\"")
+			return nil, bad(jsondoc.LineOf(x), "method", "must be a string such as \"webster\"")
 		}
 		m, err := engine.ParseMethod(x.Text)
 		if err != nil {
-			return nil, bad(line(x), "method", errMsg(err))
+			return nil, bad(jsondoc.LineOf(x), "method", engine.ErrorMsg(err))
 		}
 		sc.Method = m
 		src.Given["method"] = true
 	}
 	if x := v.Get("threshold"); !x.IsNull() {
 		if x.Kind != jsondoc.String && x.Kind != jsondoc.Number {
-			return nil, bad(line(x), "threshold", "must be a share such as 0.05 or \"5%\"")
+			return nil, bad(jsondoc.LineOf(x), "threshold", "must be a share such as 0.05 or \"5%\"")
 		}
 		th, err := ParseShare(x.Text)
 		if err != nil {
-			return nil, bad(line(x), "threshold", err.Error())
+			return nil, bad(jsondoc.LineOf(x), "threshold", err.Error())
 		}
 		sc.Threshold = th
 		src.Given["threshold"] = true
 	}
 	if x := v.Get("tie"); !x.IsNull() {
 		if x.Kind != jsondoc.String {
-			return nil, bad(line(x), "tie", "must be a string: none, order or lot:SEED")
+			return nil, bad(jsondoc.LineOf(x), "tie", "must be a string: none, order or lot:SEED")
 		}
 		t, err := engine.ParseTieRule(x.Text)
 		if err != nil {
-			return nil, bad(line(x), "tie", errMsg(err))
+			return nil, bad(jsondoc.LineOf(x), "tie", engine.ErrorMsg(err))
 		}
 		sc.Tie = t
 		src.Given["tie"] = true
 	}
 	us := v.Get("units")
 	if us.IsNull() {
-		return nil, bad(line(v), "units", "missing: a scenario needs a units array")
+		return nil, bad(jsondoc.LineOf(v), "units", "missing: a scenario needs a units array")
 	}
 	if us.Kind != jsondoc.Array {
-		return nil, bad(line(us), "units", "must be an array of units")
+		return nil, bad(jsondoc.LineOf(us), "units", "must be an array of units")
 	}
 	if len(us.Items) == 0 {
-		return nil, bad(line(us), "units", "empty: a scenario needs at least one unit")
+		return nil, bad(jsondoc.LineOf(us), "units", "empty: a scenario needs at least one unit")
 	}
 	if len(us.Items) > engine.MaxUnits {
-		return nil, bad(line(us), "units", "more than "+strconv.Itoa(engine.MaxUnits)+" units")
+		return nil, bad(jsondoc.LineOf(us), "units", "more than "+strconv.Itoa(engine.MaxUnits)+" units")
 	}
 	names := newNameSeen(o)
 	for k, x := range us.Items {
 		u, err := unitFromDoc(x, o)
 		if err == nil {
 			if msg := names.check(k, strings.TrimSpace(x.Get("name").Text), u.Name, src.UnitLine); msg != "" {
-				err = &Error{Line: line(x.Get("name")), Field: "name", Msg: msg}
+				err = &Error{Line: jsondoc.LineOf(x.Get("name")), Field: "name", Msg: msg}
 			}
 		}
 		if err != nil {
 			err.File = file
 			if err.Line == 0 {
-				err.Line = line(x)
+				err.Line = jsondoc.LineOf(x)
 			}
 			err.Field = "units[" + strconv.Itoa(k) + "]." + err.Field
 			return nil, err
 		}
 		sc.Units = append(sc.Units, u)
-		src.unitLines = append(src.unitLines, line(x))
+		src.unitLines = append(src.unitLines, jsondoc.LineOf(x))
 	}
 	return src, nil
 }
@@ -192,15 +192,15 @@ func unitFromDoc(x *jsondoc.Value, o Options) (engine.Unit, *Error) {
 	}
 	for _, f := range x.Fields {
 		if !slices.Contains(unitMembers, f.Key) {
-			return u, &Error{Line: line(f.Value), Field: f.Key, Msg: "unknown member; a unit has " + strings.Join(unitMembers, ", ")}
+			return u, &Error{Line: jsondoc.LineOf(f.Value), Field: f.Key, Msg: "unknown member; a unit has " + strings.Join(unitMembers, ", ")}
 		}
 	}
 	n := x.Get("name")
 	if n.IsNull() || n.Kind != jsondoc.String || strings.TrimSpace(n.Text) == "" {
-		return u, &Error{Line: line(n), Field: "name", Msg: "missing or empty: every unit needs a name (a string)"}
+		return u, &Error{Line: jsondoc.LineOf(n), Field: "name", Msg: "missing or empty: every unit needs a name (a string)"}
 	}
 	if msg := textProblem(n.Text); msg != "" {
-		return u, &Error{Line: line(n), Field: "name", Msg: "the text " + msg}
+		return u, &Error{Line: jsondoc.LineOf(n), Field: "name", Msg: "the text " + msg}
 	}
 	u.Name = o.name(n.Text)
 	p := x.Get("population")
@@ -208,11 +208,11 @@ func unitFromDoc(x *jsondoc.Value, o Options) (engine.Unit, *Error) {
 		return u, &Error{Field: "population", Msg: strconv.Quote(u.Name) + ": missing"}
 	}
 	if p.Kind != jsondoc.Number && p.Kind != jsondoc.String {
-		return u, &Error{Line: line(p), Field: "population", Msg: strconv.Quote(u.Name) + ": must be a number or a string holding one"}
+		return u, &Error{Line: jsondoc.LineOf(p), Field: "population", Msg: strconv.Quote(u.Name) + ": must be a number or a string holding one"}
 	}
 	d, err := engine.ParseDecimal(p.Text)
 	if err != nil {
-		return u, &Error{Line: line(p), Field: "population", Msg: PopulationProblem(u.Name, p.Text, err)}
+		return u, &Error{Line: jsondoc.LineOf(p), Field: "population", Msg: PopulationProblem(u.Name, p.Text, err)}
 	}
 	u.Population = d
 	for _, b := range []struct {
@@ -223,20 +223,20 @@ func unitFromDoc(x *jsondoc.Value, o Options) (engine.Unit, *Error) {
 		if v.IsNull() {
 			continue
 		}
-		k, err := whole(v)
+		k, err := Whole(v)
 		if err == nil && (k < 0 || k > engine.MaxSeats) {
 			err = errors.New("must be between 0 and " + strconv.Itoa(engine.MaxSeats))
 		}
 		if err != nil {
-			return u, &Error{Line: line(v), Field: b.key, Msg: strconv.Quote(u.Name) + ": " + err.Error()}
+			return u, &Error{Line: jsondoc.LineOf(v), Field: b.key, Msg: strconv.Quote(u.Name) + ": " + err.Error()}
 		}
 		*b.dst = &k
 	}
 	return u, nil
 }
 
-// whole reads a whole number from a number or a string.
-func whole(x *jsondoc.Value) (int, error) {
+// Whole reads a whole number from a number or a string.
+func Whole(x *jsondoc.Value) (int, error) {
 	if x.Kind != jsondoc.Number && x.Kind != jsondoc.String {
 		return 0, errors.New("must be a whole number")
 	}
@@ -280,19 +280,4 @@ func ParseShare(s string) (engine.Decimal, error) {
 		return engine.Decimal{}, errors.New(q + " is more than the whole")
 	}
 	return d, nil
-}
-
-func line(v *jsondoc.Value) int {
-	if v == nil {
-		return 0
-	}
-	return v.Line
-}
-
-func errMsg(err error) string {
-	var ee *engine.Error
-	if errors.As(err, &ee) {
-		return ee.Msg
-	}
-	return err.Error()
 }

@@ -153,3 +153,42 @@ func TestParseDuplicateKeys(t *testing.T) {
 		t.Fatalf("a repeated key: %v", err)
 	}
 }
+
+func TestLineOf(t *testing.T) {
+	v, err := Parse([]byte("{\n  \"a\": 1,\n  \"b\":\n    [2]\n}"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct {
+		v    *Value
+		want int
+	}{
+		{v, 1},
+		{v.Get("a"), 2},
+		{v.Get("b"), 4},
+		{v.Get("missing"), 0},
+		{Int(3), 0},
+	} {
+		if got := LineOf(c.v); got != c.want {
+			t.Errorf("LineOf(%v) = %d, want %d", c.v, got, c.want)
+		}
+	}
+}
+
+func TestScalarText(t *testing.T) {
+	for _, c := range []struct {
+		v    *Value
+		want string
+	}{
+		{Str("North"), "North"},
+		{Num("1.50"), "1.50"},
+		{Boolean(true), ""},
+		{NullValue(), ""},
+		{NewArray(Int(1)), ""},
+		{nil, ""},
+	} {
+		if got := ScalarText(c.v); got != c.want {
+			t.Errorf("ScalarText(%v) = %q, want %q", c.v, got, c.want)
+		}
+	}
+}

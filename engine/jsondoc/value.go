@@ -39,6 +39,15 @@ type Value struct {
 	Line   int      // the line the value starts on, when parsed (1-based)
 }
 
+// LineOf is the line v starts on, or 0 for a nil value or one not
+// parsed.
+func LineOf(v *Value) int {
+	if v == nil {
+		return 0
+	}
+	return v.Line
+}
+
 // A Field is one member of an object.
 type Field struct {
 	Key   string
@@ -138,3 +147,16 @@ func (v *Value) Get(key string) *Value {
 
 // IsNull reports whether v is missing or null.
 func (v *Value) IsNull() bool { return v == nil || v.Kind == Null }
+
+// ScalarText is the text of a string or a number (a number's exact
+// literal), or "" for any other value or none.
+func ScalarText(v *Value) string {
+	if v == nil {
+		return ""
+	}
+	switch v.Kind {
+	case String, Number:
+		return v.Text
+	}
+	return ""
+}

@@ -280,23 +280,23 @@ func countsFromDoc(file string, v *jsondoc.Value, opt input.Options) (*Counts, e
 		return &input.Error{File: file, Line: line, Field: field, Msg: msg}
 	}
 	if v == nil || v.Kind != jsondoc.Object {
-		return nil, bad(lineOf(v), "", "a counts document is a JSON object with a units member")
+		return nil, bad(jsondoc.LineOf(v), "", "a counts document is a JSON object with a units member")
 	}
 	for _, f := range v.Fields {
 		if !slices.Contains(docMembers, f.Key) {
-			return nil, bad(lineOf(f.Value), f.Key, "unknown member; a counts document has "+strings.Join(docMembers, ", "))
+			return nil, bad(jsondoc.LineOf(f.Value), f.Key, "unknown member; a counts document has "+strings.Join(docMembers, ", "))
 		}
 	}
 	c := &Counts{File: file, Given: map[string]bool{}, fieldLines: map[string]int{}}
 	us := v.Get("units")
 	if us.IsNull() {
-		return nil, bad(lineOf(v), "units", "missing: a counts document needs a units array")
+		return nil, bad(jsondoc.LineOf(v), "units", "missing: a counts document needs a units array")
 	}
 	if us.Kind != jsondoc.Array {
-		return nil, bad(lineOf(us), "units", "must be an array of units")
+		return nil, bad(jsondoc.LineOf(us), "units", "must be an array of units")
 	}
 	if len(us.Items) > engine.MaxUnits {
-		return nil, bad(lineOf(us), "units", "more than "+strconv.Itoa(engine.MaxUnits)+" units")
+		return nil, bad(jsondoc.LineOf(us), "units", "more than "+strconv.Itoa(engine.MaxUnits)+" units")
 	}
 	// The scenario-level members and each unit's name, population and
 	// bounds are read by the scenario reader, from a copy of the document
@@ -313,24 +313,24 @@ func countsFromDoc(file string, v *jsondoc.Value, opt input.Options) (*Counts, e
 	for k, x := range us.Items {
 		field := "units[" + strconv.Itoa(k) + "]"
 		if x.Kind != jsondoc.Object {
-			return nil, bad(lineOf(x), field, "a unit is an object with a name and a population or counts")
+			return nil, bad(jsondoc.LineOf(x), field, "a unit is an object with a name and a population or counts")
 		}
 		for _, f := range x.Fields {
 			if !slices.Contains(unitMembers, f.Key) {
-				return nil, bad(lineOf(f.Value), field+"."+f.Key, "unknown member; a unit has "+strings.Join(unitMembers, ", "))
+				return nil, bad(jsondoc.LineOf(f.Value), field+"."+f.Key, "unknown member; a unit has "+strings.Join(unitMembers, ", "))
 			}
 		}
-		s := Series{Line: lineOf(x)}
+		s := Series{Line: jsondoc.LineOf(x)}
 		if n := x.Get("name"); n != nil && n.Kind == jsondoc.String {
 			s.Name = strings.TrimSpace(n.Text)
 		}
 		pop, counts := x.Get("population"), x.Get("counts")
 		switch {
 		case !pop.IsNull() && !counts.IsNull():
-			return nil, bad(lineOf(counts), field+".counts", strconv.Quote(s.Name)+": give a population or counts, not both")
+			return nil, bad(jsondoc.LineOf(counts), field+".counts", strconv.Quote(s.Name)+": give a population or counts, not both")
 		case !counts.IsNull():
 			if counts.Kind != jsondoc.Array || len(counts.Items) == 0 {
-				return nil, bad(lineOf(counts), field+".counts", strconv.Quote(s.Name)+": must be an array of {date, population}")
+				return nil, bad(jsondoc.LineOf(counts), field+".counts", strconv.Quote(s.Name)+": must be an array of {date, population}")
 			}
 			c.Dated = true
 			for j, cx := range counts.Items {
@@ -352,11 +352,11 @@ func countsFromDoc(file string, v *jsondoc.Value, opt input.Options) (*Counts, e
 		}
 		if r := x.Get("rse"); !r.IsNull() {
 			if r.Kind != jsondoc.Number && r.Kind != jsondoc.String {
-				return nil, bad(lineOf(r), field+".rse", strconv.Quote(s.Name)+": must be a share such as 0.02 or \"2%\"")
+				return nil, bad(jsondoc.LineOf(r), field+".rse", strconv.Quote(s.Name)+": must be a share such as 0.02 or \"2%\"")
 			}
 			f, err := ParseRSE(r.Text)
 			if err != nil {
-				return nil, bad(lineOf(r), field+".rse", strconv.Quote(s.Name)+": "+err.Error())
+				return nil, bad(jsondoc.LineOf(r), field+".rse", strconv.Quote(s.Name)+": "+err.Error())
 			}
 			s.RSE = &f
 		}
@@ -391,46 +391,39 @@ func countsFromDoc(file string, v *jsondoc.Value, opt input.Options) (*Counts, e
 	}
 	c.Scenario.Units = nil
 	for _, f := range v.Fields {
-		c.fieldLines[f.Key] = lineOf(f.Value)
+		c.fieldLines[f.Key] = jsondoc.LineOf(f.Value)
 	}
 	return c, nil
 }
 
 func countFromDoc(x *jsondoc.Value, name string) (Count, *input.Error) {
-	cnt := Count{Line: lineOf(x)}
+	cnt := Count{Line: jsondoc.LineOf(x)}
 	if x.Kind != jsondoc.Object {
-		return cnt, &input.Error{Line: lineOf(x), Msg: strconv.Quote(name) + ": a count is an object {date, population}"}
+		return cnt, &input.Error{Line: jsondoc.LineOf(x), Msg: strconv.Quote(name) + ": a count is an object {date, population}"}
 	}
 	for _, f := range x.Fields {
 		if f.Key != "date" && f.Key != "population" {
-			return cnt, &input.Error{Line: lineOf(f.Value), Field: f.Key, Msg: strconv.Quote(name) + ": unknown member; a count has date and population"}
+			return cnt, &input.Error{Line: jsondoc.LineOf(f.Value), Field: f.Key, Msg: strconv.Quote(name) + ": unknown member; a count has date and population"}
 		}
 	}
 	d := x.Get("date")
 	if d.IsNull() || d.Kind != jsondoc.String {
-		return cnt, &input.Error{Line: lineOf(x), Field: "date", Msg: strconv.Quote(name) + ": missing: every count needs a date string such as \"2030-04-01\""}
+		return cnt, &input.Error{Line: jsondoc.LineOf(x), Field: "date", Msg: strconv.Quote(name) + ": missing: every count needs a date string such as \"2030-04-01\""}
 	}
 	date, err := ParseDate(d.Text)
 	if err != nil {
-		return cnt, &input.Error{Line: lineOf(d), Field: "date", Msg: strconv.Quote(name) + ": " + err.Error()}
+		return cnt, &input.Error{Line: jsondoc.LineOf(d), Field: "date", Msg: strconv.Quote(name) + ": " + err.Error()}
 	}
 	p := x.Get("population")
 	if p.IsNull() || (p.Kind != jsondoc.Number && p.Kind != jsondoc.String) {
-		return cnt, &input.Error{Line: lineOf(x), Field: "population", Msg: strconv.Quote(name) + ": missing: every count needs a population (a number or a string holding one)"}
+		return cnt, &input.Error{Line: jsondoc.LineOf(x), Field: "population", Msg: strconv.Quote(name) + ": missing: every count needs a population (a number or a string holding one)"}
 	}
 	pop, perr := engine.ParseDecimal(p.Text)
 	if perr != nil {
-		return cnt, &input.Error{Line: lineOf(p), Field: "population", Msg: input.PopulationProblem(name, p.Text, perr)}
+		return cnt, &input.Error{Line: jsondoc.LineOf(p), Field: "population", Msg: input.PopulationProblem(name, p.Text, perr)}
 	}
 	cnt.Date, cnt.Dated, cnt.Population = date, true, pop
 	return cnt, nil
-}
-
-func lineOf(v *jsondoc.Value) int {
-	if v == nil {
-		return 0
-	}
-	return v.Line
 }
 
 // ParseRSE reads a relative standard error: a share such as 0.02 or .02,

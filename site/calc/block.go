@@ -108,7 +108,7 @@ func ParseBlock(file, id string, mode Mode, v *jsondoc.Value) (_ *Block, err err
 	b := &Block{File: file, ID: id, Mode: mode}
 	defer func() { err = b.Count.speakErr(err) }()
 	if v == nil || v.Kind != jsondoc.Object {
-		return nil, &input.Error{File: file, Line: line(v), Msg: "a calculator block holds one JSON object: a scenario with seats, method and units"}
+		return nil, &input.Error{File: file, Line: jsondoc.LineOf(v), Msg: "a calculator block holds one JSON object: a scenario with seats, method and units"}
 	}
 	doc := jsondoc.NewObject()
 	doc.Line = v.Line
@@ -125,7 +125,7 @@ func ParseBlock(file, id string, mode Mode, v *jsondoc.Value) (_ *Block, err err
 		return nil, err
 	}
 	b.Count = c
-	vm, ierr := variationOf(file, line(v), mode)
+	vm, ierr := variationOf(file, jsondoc.LineOf(v), mode)
 	if ierr != nil {
 		return nil, ierr
 	}
@@ -143,7 +143,7 @@ func ParseBlock(file, id string, mode Mode, v *jsondoc.Value) (_ *Block, err err
 	}
 	if err := checkBlockSize(src.Title, &src.Scenario); err != nil {
 		e := err.(*input.Error)
-		e.File, e.Line = file, line(v)
+		e.File, e.Line = file, jsondoc.LineOf(v)
 		return nil, e
 	}
 	b.Source = src
@@ -151,7 +151,7 @@ func ParseBlock(file, id string, mode Mode, v *jsondoc.Value) (_ *Block, err err
 	if mode != Sweep {
 		for _, need := range []string{"seats", "method"} {
 			if !src.Given[need] {
-				return nil, &input.Error{File: file, Line: line(v), Field: need, Msg: "missing: a " + blockWord(mode) + " must give seats and method"}
+				return nil, &input.Error{File: file, Line: jsondoc.LineOf(v), Field: need, Msg: "missing: a " + blockWord(mode) + " must give seats and method"}
 			}
 		}
 		if _, err := engine.Allot(&src.Scenario, 0); err != nil {
@@ -159,7 +159,7 @@ func ParseBlock(file, id string, mode Mode, v *jsondoc.Value) (_ *Block, err err
 		}
 	}
 	if mode == Sweep && !v.Get("compare").IsNull() {
-		return nil, &input.Error{File: file, Line: line(v.Get("compare")), Field: "compare", Msg: "a sweep block names the methods it sweeps in methods"}
+		return nil, &input.Error{File: file, Line: jsondoc.LineOf(v.Get("compare")), Field: "compare", Msg: "a sweep block names the methods it sweeps in methods"}
 	}
 	cs, err := claim.Parse(v.Get("claims"))
 	if err != nil {
@@ -196,15 +196,15 @@ func ParseBlock(file, id string, mode Mode, v *jsondoc.Value) (_ *Block, err err
 	}
 	if x := v.Get("compare"); !x.IsNull() {
 		if x.Kind != jsondoc.Array || len(x.Items) == 0 {
-			return nil, &input.Error{File: file, Line: line(x), Field: "compare", Msg: "must be a non-empty array of method ids"}
+			return nil, &input.Error{File: file, Line: jsondoc.LineOf(x), Field: "compare", Msg: "must be a non-empty array of method ids"}
 		}
 		for i, mv := range x.Items {
 			if mv.Kind != jsondoc.String {
-				return nil, &input.Error{File: file, Line: line(mv), Field: "compare[" + strconv.Itoa(i) + "]", Msg: "must be a method id such as \"webster\""}
+				return nil, &input.Error{File: file, Line: jsondoc.LineOf(mv), Field: "compare[" + strconv.Itoa(i) + "]", Msg: "must be a method id such as \"webster\""}
 			}
 			m, err := engine.ParseMethod(mv.Text)
 			if err != nil {
-				return nil, &input.Error{File: file, Line: line(mv), Field: "compare[" + strconv.Itoa(i) + "]",
+				return nil, &input.Error{File: file, Line: jsondoc.LineOf(mv), Field: "compare[" + strconv.Itoa(i) + "]",
 					Msg: "unknown method " + strconv.Quote(mv.Text) + "; known: " + strings.Join(engine.MethodIDs(), ", ")}
 			}
 			b.Compare = append(b.Compare, m)
@@ -226,11 +226,4 @@ func blockWord(m Mode) string {
 		return "admit block"
 	}
 	return "calculator block"
-}
-
-func line(v *jsondoc.Value) int {
-	if v == nil {
-		return 0
-	}
-	return v.Line
 }

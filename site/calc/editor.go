@@ -215,38 +215,11 @@ func growthControls(fs *Node, b *Block, doc *jsondoc.Value, id func(string) stri
 	grid.Add(numberField(id("min"), "Minimum seats per unit", "min", docText(doc, "min"), "0"))
 	fs.Add(grid)
 	fs.Add(advancedFields(b, doc, id))
-	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Units")
-	t := El("table", "class", "sc-units sc-units-growth")
-	t.Add(Wrap("caption", "Units and their two counts. A blank later count keeps the first."))
-	t.Add(El("thead").Add(El("tr").Add(
-		Wrap("th", "#", "scope", "col"),
-		Wrap("th", "Name", "scope", "col"),
-		Wrap("th", "First count", "scope", "col"),
-		Wrap("th", "Later count", "scope", "col"),
-		El("th", "scope", "col").Add(Wrap("span", "Remove", "class", "sc-vh")),
-	)))
-	body := El("tbody")
-	if us := doc.Get("units"); us != nil && us.Kind == jsondoc.Array {
-		for k, u := range us.Items {
-			n := strconv.Itoa(k + 1)
-			key := "units." + strconv.Itoa(k) + "."
-			cell := func(field, label, mode, cls string) *Node {
-				return El("td").Add(El("input", "type", "text", "class", cls, "data-field", key+field, "value", docText(u, field),
-					"aria-label", label+" of unit "+n, "inputmode", mode, "autocomplete", "off", "spellcheck", "false"))
-			}
-			row := El("tr", "data-row", strconv.Itoa(k))
-			row.Add(Wrap("td", n, "class", "num sc-idx"))
-			row.Add(cell("name", "Name", "text", "sc-in-name"))
-			row.Add(cell("population", "First count", "decimal", "sc-in-pop num"))
-			row.Add(cell("later", "Later count", "decimal", "sc-in-pop num"))
-			row.Add(El("td").Add(Wrap("button", "×", "type", "button", "class", "sc-remove", "data-action", "remove-unit",
-				"data-index", strconv.Itoa(k), "aria-label", "Remove unit "+n)))
-			body.Add(row)
-		}
-	}
-	t.Add(body)
-	wrap.Add(Stackable(t))
-	fs.Add(wrap)
+	fs.Add(editableUnits("sc-units sc-units-growth", "Units and their two counts. A blank later count keeps the first.", doc, []unitColumn{
+		{"Name", "Name", "name", "text", "sc-in-name"},
+		{"First count", "First count", "population", "decimal", "sc-in-pop num"},
+		{"Later count", "Later count", "later", "decimal", "sc-in-pop num"},
+	}))
 	fs.Add(unitActions())
 	fs.Add(El("div", "class", "sc-actions sc-export").Add(linkButton()))
 }
@@ -342,33 +315,43 @@ func methodField(id, val string) *Node {
 }
 
 func unitsTable(b *Block, doc *jsondoc.Value) *Node {
+	return editableUnits("sc-units", "Units: names and "+b.Count.Nouns()+". A blank minimum or maximum uses the default above.", doc, []unitColumn{
+		{"Name", "Name", "name", "text", "sc-in-name"},
+		{b.Count.Head(), b.Count.Head(), "population", "decimal", "sc-in-pop num"},
+		{"Min", "Minimum seats", "min", "numeric", "sc-in-bound num"},
+		{"Max", "Maximum seats", "max", "numeric", "sc-in-bound num"},
+	})
+}
+
+// A unitColumn is one column of inputs in a units table: its heading, the
+// label of each of its inputs (with "of unit N" added), the unit's member
+// it edits, the input mode and the input's class.
+type unitColumn struct{ head, label, field, mode, class string }
+
+// editableUnits lays out a units table of the given class and caption: a
+// row a unit of doc, numbered, with an input for each column and a button
+// that removes the unit.
+func editableUnits(class, caption string, doc *jsondoc.Value, cols []unitColumn) *Node {
 	wrap := El("div", "class", "sc-scroll", "role", "region", "tabindex", "0", "aria-label", "Units")
-	t := El("table", "class", "sc-units")
-	t.Add(Wrap("caption", "Units: names and "+b.Count.Nouns()+". A blank minimum or maximum uses the default above."))
-	t.Add(El("thead").Add(El("tr").Add(
-		Wrap("th", "#", "scope", "col"),
-		Wrap("th", "Name", "scope", "col"),
-		Wrap("th", b.Count.Head(), "scope", "col"),
-		Wrap("th", "Min", "scope", "col"),
-		Wrap("th", "Max", "scope", "col"),
-		El("th", "scope", "col").Add(Wrap("span", "Remove", "class", "sc-vh")),
-	)))
+	t := El("table", "class", class)
+	t.Add(Wrap("caption", caption))
+	head := El("tr").Add(Wrap("th", "#", "scope", "col"))
+	for _, c := range cols {
+		head.Add(Wrap("th", c.head, "scope", "col"))
+	}
+	head.Add(El("th", "scope", "col").Add(Wrap("span", "Remove", "class", "sc-vh")))
+	t.Add(El("thead").Add(head))
 	body := El("tbody")
-	us := doc.Get("units")
-	if us != nil && us.Kind == jsondoc.Array {
+	if us := doc.Get("units"); us != nil && us.Kind == jsondoc.Array {
 		for k, u := range us.Items {
 			n := strconv.Itoa(k + 1)
 			key := "units." + strconv.Itoa(k) + "."
-			cell := func(field, label, mode, cls string) *Node {
-				return El("td").Add(El("input", "type", "text", "class", cls, "data-field", key+field, "value", docText(u, field),
-					"aria-label", label+" of unit "+n, "inputmode", mode, "autocomplete", "off", "spellcheck", "false"))
-			}
 			row := El("tr", "data-row", strconv.Itoa(k))
 			row.Add(Wrap("td", n, "class", "num sc-idx"))
-			row.Add(cell("name", "Name", "text", "sc-in-name"))
-			row.Add(cell("population", b.Count.Head(), "decimal", "sc-in-pop num"))
-			row.Add(cell("min", "Minimum seats", "numeric", "sc-in-bound num"))
-			row.Add(cell("max", "Maximum seats", "numeric", "sc-in-bound num"))
+			for _, c := range cols {
+				row.Add(El("td").Add(El("input", "type", "text", "class", c.class, "data-field", key+c.field, "value", docText(u, c.field),
+					"aria-label", c.label+" of unit "+n, "inputmode", c.mode, "autocomplete", "off", "spellcheck", "false")))
+			}
 			row.Add(El("td").Add(Wrap("button", "×", "type", "button", "class", "sc-remove", "data-action", "remove-unit",
 				"data-index", strconv.Itoa(k), "aria-label", "Remove unit "+n)))
 			body.Add(row)

@@ -113,7 +113,7 @@ func readVariation(file string, doc *jsondoc.Value, vm *variationMode) (*jsondoc
 
 // badMember places a message at a member of a block's document.
 func badMember(file string, v *jsondoc.Value, field, msg string) *input.Error {
-	return &input.Error{File: file, Line: line(v), Field: field, Msg: msg}
+	return &input.Error{File: file, Line: jsondoc.LineOf(v), Field: field, Msg: msg}
 }
 
 // readSweep reads a sweep block's from, to and methods.

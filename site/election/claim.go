@@ -57,10 +57,7 @@ func parseClaims(c *Config, v *jsondoc.Value) ([]Claim, error) {
 		cl := Claim{Line: l}
 		var seats *jsondoc.Value
 		for _, f := range x.Fields {
-			t := ""
-			if f.Value.Kind == jsondoc.String || f.Value.Kind == jsondoc.Number {
-				t = f.Value.Text
-			}
+			t := jsondoc.ScalarText(f.Value)
 			switch f.Key {
 			case "id":
 				cl.ID = t

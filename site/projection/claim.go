@@ -58,7 +58,7 @@ func parseClaims(file string, line int, v *jsondoc.Value) ([]Claim, error) {
 		var c Claim
 		hasP, hasSeats := false, false
 		for _, f := range x.Fields {
-			t := scalarText(f.Value)
+			t := jsondoc.ScalarText(f.Value)
 			switch f.Key {
 			case "id":
 				c.ID = t

@@ -77,7 +77,7 @@ func Parse(file string, line int, v *jsondoc.Value) (*Config, error) {
 	c := &Config{File: file, Line: line, Growth: model.Linear, Error: model.Normal, Draws: 2000, Seed: 1}
 	for _, f := range v.Fields {
 		x := f.Value
-		text := scalarText(x)
+		text := jsondoc.ScalarText(x)
 		switch f.Key {
 		case "title":
 			c.Title = text
@@ -163,18 +163,6 @@ func Parse(file string, line int, v *jsondoc.Value) (*Config, error) {
 		return nil, bad("target", "missing: give the date to project to")
 	}
 	return c, nil
-}
-
-// scalarText is a string's text or a number's digits ("" otherwise).
-func scalarText(v *jsondoc.Value) string {
-	if v == nil {
-		return ""
-	}
-	switch v.Kind {
-	case jsondoc.String, jsondoc.Number:
-		return v.Text
-	}
-	return ""
 }
 
 // Study reads the counts and prepares the study (no draws made yet).

@@ -1,7 +1,6 @@
 package main
 
 import (
-	"flag"
 	"strings"
 
 	"golang.org/x/text/unicode/norm"
@@ -37,26 +36,14 @@ Options:
 `
 
 func runAdmit(e *env, args []string) int {
-	fs := flag.NewFlagSet("admit", flag.ContinueOnError)
-	fs.SetOutput(e.stderr)
-	var sf scenarioFlags
-	var of outputFlags
-	sf.bind(fs, false)
-	of.bind(fs, "text", "csv", "json", "markdown")
-	method := fs.String("method", "all", methodListHelp)
+	opts := newMethodsFlags(e, "admit", admitHelp, methodListHelp, "text", "csv", "json", "markdown")
+	fs := opts.fs
 	name := fs.String("name", "", "the new unit's name")
 	pop := fs.String("population", "", "the new unit's population (a whole number or exact decimal)")
 	added := fs.Int("added", -1, "seats added for the new unit (default: its fair share)")
-	fs.Usage = helpFunc(fs, e.stdout, admitHelp)
-	if code, done := parseArgs(fs, args); done {
+	ms, code, done := opts.parse(e, args)
+	if done {
 		return code
-	}
-	if err := of.check("text", "csv", "json", "markdown"); err != nil {
-		return fail(e, "admit", err)
-	}
-	ms, err := methodList(*method)
-	if err != nil {
-		return fail(e, "admit", err)
 	}
 	if strings.TrimSpace(*name) == "" {
 		return fail(e, "admit", usageError("-name: give the new unit's name"))
@@ -88,7 +75,7 @@ func runAdmit(e *env, args []string) int {
 	if a.First() == nil {
 		return fail(e, "admit", src.Locate(a.Errors[0]))
 	}
-	err = of.encode(e, format.Admit(src.Title, a))
+	err = opts.of.encode(e, format.Admit(src.Title, a))
 	if err != nil {
 		return fail(e, "admit", err)
 	}

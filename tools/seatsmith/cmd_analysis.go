@@ -32,6 +32,48 @@ func methodList(s string) ([]engine.Method, error) {
 
 const methodListHelp = "methods: all (the default), or ids separated by commas, such as webster,huntington-hill"
 
+// methodsFlags are the options of a command that applies a list of
+// methods to one scenario: the scenario's options (without -method), the
+// output's, and -method as a list.
+type methodsFlags struct {
+	fs      *flag.FlagSet
+	sf      scenarioFlags
+	of      outputFlags
+	method  *string
+	formats []string
+}
+
+// newMethodsFlags makes the flag set of the command name with its help
+// text, the scenario's and the output's options (in formats) and -method
+// (described by methodHelp). The command adds its own options to fs.
+func newMethodsFlags(e *env, name, help, methodHelp string, formats ...string) *methodsFlags {
+	fs := flag.NewFlagSet(name, flag.ContinueOnError)
+	fs.SetOutput(e.stderr)
+	f := &methodsFlags{fs: fs, formats: formats}
+	f.sf.bind(fs, false)
+	f.of.bind(fs, formats...)
+	f.method = fs.String("method", "all", methodHelp)
+	fs.Usage = helpFunc(fs, e.stdout, help)
+	return f
+}
+
+// parse parses the command line as parseArgs does, then checks the format
+// and reads the methods. It returns done when the command should stop at
+// once with the given status (help shown, or bad options, reported).
+func (f *methodsFlags) parse(e *env, args []string) (ms []engine.Method, status int, done bool) {
+	if status, done := parseArgs(f.fs, args); done {
+		return nil, status, true
+	}
+	if err := f.of.check(f.formats...); err != nil {
+		return nil, fail(e, f.fs.Name(), err), true
+	}
+	ms, err := methodList(*f.method)
+	if err != nil {
+		return nil, fail(e, f.fs.Name(), err), true
+	}
+	return ms, 0, false
+}
+
 // parseArgs parses the command line, with options and file arguments in
 // any order ("allot FILE -seats 5" as "allot -seats 5 FILE"); after "--"
 // everything is a file argument. It returns done when the command should

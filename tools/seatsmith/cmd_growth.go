@@ -1,7 +1,6 @@
 package main
 
 import (
-	"flag"
 	"os"
 	"strconv"
 	"strings"
@@ -40,23 +39,11 @@ Options:
 `
 
 func runGrowth(e *env, args []string) int {
-	fs := flag.NewFlagSet("growth", flag.ContinueOnError)
-	fs.SetOutput(e.stderr)
-	var sf scenarioFlags
-	var of outputFlags
-	sf.bind(fs, false)
-	of.bind(fs, "text", "csv", "json", "markdown")
-	method := fs.String("method", "all", methodListHelp)
-	fs.Usage = helpFunc(fs, e.stdout, growthHelp)
-	if code, done := parseArgs(fs, args); done {
+	opts := newMethodsFlags(e, "growth", growthHelp, methodListHelp, "text", "csv", "json", "markdown")
+	fs := opts.fs
+	ms, code, done := opts.parse(e, args)
+	if done {
 		return code
-	}
-	if err := of.check("text", "csv", "json", "markdown"); err != nil {
-		return fail(e, "growth", err)
-	}
-	ms, err := methodList(*method)
-	if err != nil {
-		return fail(e, "growth", err)
 	}
 	if fs.NArg() != 2 {
 		return fail(e, "growth", usageError("expected two files, BEFORE and AFTER, got "+strconv.Itoa(fs.NArg())))
@@ -76,7 +63,7 @@ func runGrowth(e *env, args []string) int {
 	if g.First() == nil {
 		return fail(e, "growth", src.Locate(g.Errors[0]))
 	}
-	err = of.encode(e, format.Growth(src.Title, g))
+	err = opts.of.encode(e, format.Growth(src.Title, g))
 	if err != nil {
 		return fail(e, "growth", err)
 	}

@@ -67,26 +67,14 @@ Options:
 `
 
 func runHouse(e *env, args []string) int {
-	fs := flag.NewFlagSet("house", flag.ContinueOnError)
-	fs.SetOutput(e.stderr)
-	var sf scenarioFlags
-	var of outputFlags
-	sf.bind(fs, false)
-	of.bind(fs, "text", "csv", "json", "markdown")
-	method := fs.String("method", "all", methodListHelp+"; with -ratio or -base, one method")
+	opts := newMethodsFlags(e, "house", houseHelp, methodListHelp+"; with -ratio or -base, one method", "text", "csv", "json", "markdown")
+	fs := opts.fs
 	rule := fs.String("rule", "", "house-size rule: cube-root or smallest-unit")
 	ratio := fs.String("ratio", "", "one seat per this many people (a statutory ratio); the house size is the result")
 	base := fs.Int("base", 0, "seats every unit receives before the rest of -seats is apportioned")
-	fs.Usage = helpFunc(fs, e.stdout, houseHelp)
-	if code, done := parseArgs(fs, args); done {
+	ms, code, done := opts.parse(e, args)
+	if done {
 		return code
-	}
-	if err := of.check("text", "csv", "json", "markdown"); err != nil {
-		return fail(e, "house", err)
-	}
-	ms, err := methodList(*method)
-	if err != nil {
-		return fail(e, "house", err)
 	}
 	n := 0
 	for _, f := range []string{"rule", "ratio", "base"} {
@@ -102,9 +90,9 @@ func runHouse(e *env, args []string) int {
 	}
 	switch {
 	case given(fs, "ratio"):
-		return houseRatio(e, fs, &of, *ratio, ms)
+		return houseRatio(e, fs, &opts.of, *ratio, ms)
 	case given(fs, "base"):
-		return houseBase(e, fs, &of, *base, ms)
+		return houseBase(e, fs, &opts.of, *base, ms)
 	}
 	r, err := analysis.ParseSizeRule(*rule)
 	if err != nil {
@@ -127,7 +115,7 @@ func runHouse(e *env, args []string) int {
 	if c.First() == nil {
 		return fail(e, "house", src.Locate(c.Errors[0]))
 	}
-	err = of.encode(e, format.House(src.Title, hs, c))
+	err = opts.of.encode(e, format.House(src.Title, hs, c))
 	if err != nil {
 		return fail(e, "house", err)
 	}

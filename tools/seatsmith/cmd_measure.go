@@ -1,8 +1,6 @@
 package main
 
 import (
-	"flag"
-
 	"seatsmith/engine/analysis"
 	"seatsmith/engine/format"
 )
@@ -38,25 +36,13 @@ Options:
 `
 
 func runMeasure(e *env, args []string) int {
-	fs := flag.NewFlagSet("measure", flag.ContinueOnError)
-	fs.SetOutput(e.stderr)
-	var sf scenarioFlags
-	var of outputFlags
-	sf.bind(fs, false)
-	of.bind(fs, "text", "csv", "json", "markdown")
-	method := fs.String("method", "all", methodListHelp)
-	fs.Usage = helpFunc(fs, e.stdout, measureHelp)
-	if code, done := parseArgs(fs, args); done {
+	opts := newMethodsFlags(e, "measure", measureHelp, methodListHelp, "text", "csv", "json", "markdown")
+	fs := opts.fs
+	ms, code, done := opts.parse(e, args)
+	if done {
 		return code
 	}
-	if err := of.check("text", "csv", "json", "markdown"); err != nil {
-		return fail(e, "measure", err)
-	}
-	ms, err := methodList(*method)
-	if err != nil {
-		return fail(e, "measure", err)
-	}
-	src, err := sf.load(e, fs)
+	src, err := opts.sf.load(e, fs)
 	if err != nil {
 		return fail(e, "measure", err)
 	}
@@ -64,7 +50,7 @@ func runMeasure(e *env, args []string) int {
 	if set.Comparison.First() == nil {
 		return fail(e, "measure", src.Locate(set.Comparison.Errors[0]))
 	}
-	err = of.encode(e, format.Measures(src.Title, set))
+	err = opts.of.encode(e, format.Measures(src.Title, set))
 	if err != nil {
 		return fail(e, "measure", err)
 	}

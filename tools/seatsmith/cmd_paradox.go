@@ -40,26 +40,14 @@ Options:
 `
 
 func runParadox(e *env, args []string) int {
-	fs := flag.NewFlagSet("paradox", flag.ContinueOnError)
-	fs.SetOutput(e.stderr)
-	var sf scenarioFlags
-	var of outputFlags
-	sf.bind(fs, false)
-	of.bind(fs, "text", "csv", "json", "markdown")
-	method := fs.String("method", "all", methodListHelp)
+	opts := newMethodsFlags(e, "paradox", paradoxHelp, methodListHelp, "text", "csv", "json", "markdown")
+	fs := opts.fs
 	from := fs.Int("from", 1, "smallest house size")
 	to := fs.Int("to", 0, "largest house size (default: the house size)")
 	limit := fs.Int("limit", 20, "findings of each kind listed per method in text and markdown (0: all)")
-	fs.Usage = helpFunc(fs, e.stdout, paradoxHelp)
-	if code, done := parseArgs(fs, args); done {
+	ms, code, done := opts.parse(e, args)
+	if done {
 		return code
-	}
-	if err := of.check("text", "csv", "json", "markdown"); err != nil {
-		return fail(e, "paradox", err)
-	}
-	ms, err := methodList(*method)
-	if err != nil {
-		return fail(e, "paradox", err)
 	}
 	if *limit < 0 {
 		return fail(e, "paradox", usageError("-limit: cannot be negative"))
@@ -68,8 +56,7 @@ func runParadox(e *env, args []string) int {
 	if set == nil {
 		return code
 	}
-	err = of.encode(e, format.Paradoxes(src.Title, set, *limit))
-	if err != nil {
+	if err := opts.of.encode(e, format.Paradoxes(src.Title, set, *limit)); err != nil {
 		return fail(e, "paradox", err)
 	}
 	return tieNote(e, "paradox", set.Unsettled())

@@ -1,8 +1,6 @@
 package main
 
 import (
-	"flag"
-
 	"seatsmith/engine/format"
 )
 
@@ -37,32 +35,19 @@ Options:
 `
 
 func runSweep(e *env, args []string) int {
-	fs := flag.NewFlagSet("sweep", flag.ContinueOnError)
-	fs.SetOutput(e.stderr)
-	var sf scenarioFlags
-	var of outputFlags
-	sf.bind(fs, false)
-	of.bind(fs, "text", "csv", "json", "markdown", "svg")
-	method := fs.String("method", "all", methodListHelp)
+	opts := newMethodsFlags(e, "sweep", sweepHelp, methodListHelp, "text", "csv", "json", "markdown", "svg")
+	fs := opts.fs
 	from := fs.Int("from", 1, "smallest house size")
 	to := fs.Int("to", 0, "largest house size (default: the house size)")
-	fs.Usage = helpFunc(fs, e.stdout, sweepHelp)
-	if code, done := parseArgs(fs, args); done {
+	ms, code, done := opts.parse(e, args)
+	if done {
 		return code
-	}
-	if err := of.check("text", "csv", "json", "markdown", "svg"); err != nil {
-		return fail(e, "sweep", err)
-	}
-	ms, err := methodList(*method)
-	if err != nil {
-		return fail(e, "sweep", err)
 	}
 	set, src, code := sweepFromFlags(e, "sweep", fs, ms, *from, *to)
 	if set == nil {
 		return code
 	}
-	err = of.encode(e, format.Sweep(src.Title, set))
-	if err != nil {
+	if err := opts.of.encode(e, format.Sweep(src.Title, set)); err != nil {
 		return fail(e, "sweep", err)
 	}
 	return tieNote(e, "sweep", set.Unsettled())

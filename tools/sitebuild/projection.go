@@ -127,8 +127,11 @@ func projectionGolden(p *page) string {
 }
 
 // projectionAssets are the projection and election blocks' own files:
-// their stylesheets and page scripts, which run on the bridge's engine.
+// their stylesheets and page scripts, which run on the bridge's engine,
+// and the script the page scripts share (before them, so that their
+// imports of it can be pointed at its built name).
 var projectionAssets = []struct{ name, dir, mediatype string }{
+	{"blocks.js", "wasm/js", "text/javascript"},
 	{"projection.css", "site/static", "text/css"},
 	{"projection.js", "wasm/js", "text/javascript"},
 	{"election.css", "site/static", "text/css"},
@@ -136,9 +139,11 @@ var projectionAssets = []struct{ name, dir, mediatype string }{
 }
 
 // addProjectionAssets minifies and fingerprints the projection block's
-// files and hands each to add. The page script's import of the bridge is
-// pointed at the bridge's fingerprinted name, beside it in assets/.
+// files and hands each to add. A script's imports of the bridge and of the
+// scripts built before it are pointed at their fingerprinted names, beside
+// it in assets/.
 func addProjectionAssets(root, src string, m *minify.M, add func(asset), bridge asset) error {
+	built := map[string]string{"bridge.js": path.Base(bridge.Path)}
 	for _, a := range projectionAssets {
 		dir := filepath.Join(root, a.dir)
 		if a.dir == "site/static" {
@@ -149,17 +154,45 @@ func addProjectionAssets(root, src string, m *minify.M, add func(asset), bridge 
 			return err
 		}
 		if strings.HasSuffix(a.name, ".js") {
-			const imp = "from './bridge.js'"
-			if !bytes.Contains(raw, []byte(imp)) {
-				return fmt.Errorf("%s: no import %s to point at the built bridge", a.name, imp)
+			if raw, err = pointImports(a.name, raw, built); err != nil {
+				return err
 			}
-			raw = bytes.Replace(raw, []byte(imp), []byte("from './"+path.Base(bridge.Path)+"'"), 1)
 		}
 		min, err := minifyAs(m, a.mediatype, raw, a.name)
 		if err != nil {
 			return err
 		}
-		add(fingerprint("assets", a.name, min))
+		f := fingerprint("assets", a.name, min)
+		if strings.HasSuffix(a.name, ".js") {
+			built[a.name] = path.Base(f.Path)
+		}
+		add(f)
 	}
 	return nil
+}
+
+// pointImports points a page script's imports of the scripts in built (by
+// source name) at their built names. The script must import the bridge,
+// and nothing that is not built.
+func pointImports(name string, raw []byte, built map[string]string) ([]byte, error) {
+	const from = "from './"
+	if !bytes.Contains(raw, []byte(from+"bridge.js'")) {
+		return nil, fmt.Errorf("%s: no import %sbridge.js' to point at the built bridge", name, from)
+	}
+	var out []byte
+	for {
+		i := bytes.Index(raw, []byte(from))
+		if i < 0 {
+			return append(out, raw...), nil
+		}
+		out = append(out, raw[:i+len(from)]...)
+		raw = raw[i+len(from):]
+		j := bytes.IndexByte(raw, '\'')
+		to, ok := built[string(raw[:max(j, 0)])]
+		if !ok {
+			return nil, fmt.Errorf("%s: an import of %s%s, which is not built before it", name, from, raw[:max(j, 0)])
+		}
+		out = append(out, to...)
+		raw = raw[j:]
+	}
 }

@@ -12,7 +12,8 @@
 // engine computed it here) or "error" (the message is in the element with
 // role="alert"; the results shown are the last good ones).
 
-import { build, engineFor } from './bridge.js';
+import { engineFor } from './bridge.js';
+import { errorText, readDoc, showView, startBlocks } from './blocks.js';
 
 const PAUSE = 150; // ms after the last keystroke before computing
 
@@ -20,8 +21,7 @@ class Block {
   constructor(root) {
     this.root = root;
     this.id = root.id;
-    const script = root.querySelector(':scope > script[type="application/json"]');
-    this.doc = JSON.parse(script.textContent);
+    this.doc = readDoc(root);
     this.form = root.querySelector('[data-role="election-form"]');
     this.error = root.querySelector('[data-role="election-error"]');
     this.timer = 0;
@@ -68,7 +68,7 @@ class Block {
     try {
       r = await engineFor(true).call('election', [{ block: this.id, doc: JSON.stringify(this.current()) }], { owner: this });
     } catch (err) {
-      r = { error: { message: String(err && err.message ? err.message : err) } };
+      r = { error: { message: errorText(err) } };
     }
     if (r === null) return; // superseded by a later edit
     if (!r || r.error) {
@@ -76,26 +76,13 @@ class Block {
       return;
     }
     try {
-      this.show(r.view, r.claims);
+      showView(this.root, 'election-output', r.view, r.claims);
     } catch (err) {
-      this.fail(String(err && err.message ? err.message : err));
+      this.fail(errorText(err));
       return;
     }
     this.showError('');
     this.root.setAttribute('data-state', 'live');
-  }
-
-  show(view, claims) {
-    const out = this.root.querySelector('[data-role="election-output"]');
-    const fresh = build(view);
-    if (out) out.replaceWith(fresh);
-    else this.root.appendChild(fresh);
-    for (const c of claims || []) {
-      for (const ref of document.querySelectorAll('[data-claim-ref="' + CSS.escape(c.id) + '"]')) {
-        ref.setAttribute('data-holds', c.holds ? 'true' : 'false');
-        ref.title = c.found;
-      }
-    }
   }
 
   showError(text) {
@@ -109,18 +96,4 @@ class Block {
   }
 }
 
-function init() {
-  for (const root of document.querySelectorAll('div[data-election]')) {
-    let b;
-    try {
-      b = new Block(root);
-    } catch (err) {
-      root.setAttribute('data-state', 'error');
-      continue;
-    }
-    b.compute();
-  }
-}
-
-if (document.readyState === 'loading') document.addEventListener('DOMContentLoaded', init);
-else init();
+startBlocks('div[data-election]', Block, 'compute');

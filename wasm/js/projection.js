@@ -13,14 +13,14 @@
 // the element with role="alert"); data-progress counts the draws made in
 // the current run.
 
-import { build, engineFor } from './bridge.js';
+import { engineFor } from './bridge.js';
+import { errorText, readDoc, showView, startBlocks } from './blocks.js';
 
 class Block {
   constructor(root) {
     this.root = root;
     this.id = root.id;
-    const script = root.querySelector(':scope > script[type="application/json"]');
-    this.doc = JSON.parse(script.textContent);
+    this.doc = readDoc(root);
     this.form = root.querySelector('[data-role="projection-form"]');
     this.runButton = root.querySelector('[data-role="projection-run"]');
     this.cancelButton = root.querySelector('[data-role="projection-cancel"]');
@@ -74,7 +74,7 @@ class Block {
     try {
       r = await engineFor(true).project(this.config(), this.id, { owner: this, progress });
     } catch (err) {
-      r = { error: { message: String(err && err.message ? err.message : err) } };
+      r = { error: { message: errorText(err) } };
     }
     if (r === null) return; // cancelled, or another run started
     this.running = false;
@@ -84,9 +84,9 @@ class Block {
     }
     this.finish();
     try {
-      this.show(r.view, r.claims);
+      showView(this.root, 'projection-output', r.view, r.claims);
     } catch (err) {
-      this.fail(String(err && err.message ? err.message : err));
+      this.fail(errorText(err));
       return;
     }
     this.setProgress(r.done, r.done);
@@ -117,19 +117,6 @@ class Block {
     this.root.setAttribute('data-progress', String(done));
   }
 
-  show(view, claims) {
-    const out = this.root.querySelector('[data-role="projection-output"]');
-    const fresh = build(view);
-    if (out) out.replaceWith(fresh);
-    else this.root.appendChild(fresh);
-    for (const c of claims || []) {
-      for (const ref of document.querySelectorAll('[data-claim-ref="' + CSS.escape(c.id) + '"]')) {
-        ref.setAttribute('data-holds', c.holds ? 'true' : 'false');
-        ref.title = c.found;
-      }
-    }
-  }
-
   showError(text) {
     this.error.textContent = text;
     this.error.hidden = !text;
@@ -143,18 +130,4 @@ class Block {
   }
 }
 
-function init() {
-  for (const root of document.querySelectorAll('div[data-projection]')) {
-    let b;
-    try {
-      b = new Block(root);
-    } catch (err) {
-      root.setAttribute('data-state', 'error');
-      continue;
-    }
-    b.start();
-  }
-}
-
-if (document.readyState === 'loading') document.addEventListener('DOMContentLoaded', init);
-else init();
+startBlocks('div[data-projection]', Block, 'start');
