@@ -165,8 +165,11 @@ func TestQuickMargins(t *testing.T) {
 		pending, auto bool
 	}{
 		{`{"seats": 40, "method": "huntington-hill", "units": [{"name": "A", "population": 2694457}, {"name": "B", "population": 2079562}]}`, false, false},
-		{`{"seats": 40, "method": "hamilton", "units": [{"name": "A", "population": 2694457}, {"name": "B", "population": 2079562}]}`, true, false},
-		{`{"seats": 31, "method": "hamilton", "units": [{"name": "A", "population": 461}, {"name": "B", "population": 1214}]}`, true, true},
+		// Hamilton's margins are counted in closed form: never left out.
+		{`{"seats": 40, "method": "hamilton", "units": [{"name": "A", "population": 2694457}, {"name": "B", "population": 2079562}]}`, false, false},
+		// With a minimum they are proven stretch by stretch: left out.
+		{`{"seats": 40, "method": "hamilton", "min": 1, "units": [{"name": "A", "population": 2694457}, {"name": "B", "population": 2079562}]}`, true, false},
+		{`{"seats": 31, "method": "hamilton", "min": 1, "units": [{"name": "A", "population": 461}, {"name": "B", "population": 1214}]}`, true, true},
 		{`{"seats": 30, "method": "jefferson", "threshold": "5%", "units": [{"name": "A", "population": 380000}, {"name": "B", "population": 49000}]}`, true, true},
 	}
 	for _, c := range cases {

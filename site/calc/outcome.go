@@ -50,10 +50,11 @@ type Outcome struct {
 	Admit  *AdmitOutcome
 }
 
-// Costly margins are filled in without being asked only for small
-// scenarios: at most autoMarginUnits units and a total of at most
-// autoMarginTotal. The search behind them grows with both (for nine
-// provinces of millions it takes seconds in a browser).
+// Costly margins (engine.Scenario.CostlyMargins) are filled in without
+// being asked only for small scenarios: at most autoMarginUnits units and
+// a total of at most autoMarginTotal. Their cost grows much faster than
+// the units (by Hamilton's method with bounds, about 0.8 s natively at
+// 100 units, several times that in a browser).
 const (
 	autoMarginUnits = 12
 	autoMarginTotal = 1_000_000
@@ -76,9 +77,9 @@ func Run(b *Block, doc *jsondoc.Value) *Outcome { return RunWith(b, doc, Options
 // Options say what a run may leave out to answer a reader's edit quickly.
 // The zero Options leave out nothing.
 type Options struct {
-	// QuickMargins leaves out the margins where they are costly: for
-	// largest-remainder methods and with a threshold, where every margin
-	// comes from a search of exact apportionments. The browser shows such
+	// QuickMargins leaves out the margins where they are costly
+	// (engine.Scenario.CostlyMargins: a largest-remainder method with
+	// minimums or maximums, or a threshold). The browser shows such
 	// a result at once while the reader types and asks for the margins
 	// when they pause.
 	QuickMargins bool
@@ -93,11 +94,6 @@ func RunWith(b *Block, doc *jsondoc.Value, opt Options) *Outcome {
 	o := run(b, doc, opt)
 	o.Problem = b.Count.relabel(o.Problem)
 	return o
-}
-
-// costlyMargins reports whether s's margins need a search.
-func costlyMargins(s *engine.Scenario) bool {
-	return !s.Method.IsDivisor() || !s.Threshold.IsZero()
 }
 
 func run(b *Block, doc *jsondoc.Value, opt Options) *Outcome {
@@ -139,7 +135,7 @@ func run(b *Block, doc *jsondoc.Value, opt Options) *Outcome {
 		detail &^= engine.WithOrder
 		o.OrderPending = b.Mode == Full && src.Scenario.Method.IsDivisor()
 	}
-	if opt.QuickMargins && costlyMargins(&src.Scenario) {
+	if opt.QuickMargins && src.Scenario.CostlyMargins() {
 		detail &^= engine.WithMargins
 		o.MarginsPending = true
 	}

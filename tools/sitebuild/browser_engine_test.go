@@ -35,9 +35,9 @@ func (tb *tab) workerTarget() *target.Info {
 	return nil
 }
 
-// bigScenario is a calculator scenario of n units by method, as a link's
-// fragment for calculator id.
-func bigScenario(id string, n, seats int, method string) string {
+// bigScenario is a calculator scenario of n units by method, each with at
+// least min seats, as a link's fragment for calculator id.
+func bigScenario(id string, n, seats int, method string, min int) string {
 	type unit struct {
 		Name       string `json:"name"`
 		Population string `json:"population"`
@@ -45,8 +45,12 @@ func bigScenario(id string, n, seats int, method string) string {
 	s := struct {
 		Seats  string `json:"seats"`
 		Method string `json:"method"`
+		Min    string `json:"min,omitempty"`
 		Units  []unit `json:"units"`
 	}{Seats: strconv.Itoa(seats), Method: method}
+	if min > 0 {
+		s.Min = strconv.Itoa(min)
+	}
 	for i := 0; i < n; i++ {
 		s.Units = append(s.Units, unit{"District " + strconv.Itoa(i+1), strconv.Itoa(10000 + (i*7919)%90000)})
 	}
@@ -68,9 +72,10 @@ func TestBrowserEngine(t *testing.T) {
 
 	t.Run("an edit while long work runs", func(t *testing.T) {
 		tb := newTabFor(t, bctx, 3*time.Minute)
-		// Two thousand units by Hamilton's method: their margins are a
-		// search of apportionments for every unit.
-		tb.do(chromedp.Navigate(origin + "calculator.html" + bigScenario("workbench", 2000, 4000, "hamilton")))
+		// Two thousand units by Hamilton's method with a minimum of one
+		// seat: their margins are proven stretch by stretch for every
+		// unit, minutes of work.
+		tb.do(chromedp.Navigate(origin + "calculator.html" + bigScenario("workbench", 2000, 4000, "hamilton", 1)))
 		tb.waitFor("live", allLive)
 		tb.waitFor("the margins button", `!!document.querySelector('#workbench [data-action="margins"]')`)
 		tb.do(chromedp.Click(chromedp.CSS(`#workbench [data-action="margins"]`)))

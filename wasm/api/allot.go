@@ -18,10 +18,10 @@ import (
 //
 //	margins  true: every gain and lose margin, for at most
 //	         MaxMarginUnits units, and for at most MaxSearchedMargins
-//	         where they need a search (largest-remainder methods,
-//	         thresholds); false: none. By default the closed-form margins
-//	         (divisor methods without a threshold) for at most
-//	         AutoMarginUnits units, the searched ones for at most
+//	         where they are costly (engine.Scenario.CostlyMargins: a
+//	         largest-remainder method with minimums or maximums, or a
+//	         threshold); false: none. By default the others for at most
+//	         AutoMarginUnits units, the costly ones for at most
 //	         AutoSearchedMargins.
 //	order    true: the seat order of a divisor method; false: none. By
 //	         default only for a house of at most AutoOrderSeats seats.
@@ -107,11 +107,11 @@ func allotDetail(s *engine.Scenario, margins, order *bool) (engine.Detail, []str
 	var d engine.Detail
 	var skipped []string
 	n := len(s.Units)
-	search := !s.Method.IsDivisor() || !s.Threshold.IsZero()
+	search := s.CostlyMargins()
 	asked := margins != nil && *margins
 	switch {
 	case asked && search && n > MaxSearchedMargins:
-		return 0, nil, &input.Error{Field: "margins", Msg: "these margins are a search of apportionments for every unit; " +
+		return 0, nil, &input.Error{Field: "margins", Msg: "these margins (a largest-remainder method with minimums or maximums, or a threshold) are proven stretch by stretch for every unit; " +
 			tooManyText(n, MaxSearchedMargins, "units") + " (limits().searched_margin_units) for which allot computes them"}
 	case asked && n > MaxMarginUnits:
 		return 0, nil, &input.Error{Field: "margins", Msg: tooManyText(n, MaxMarginUnits, "units") +

@@ -29,8 +29,9 @@
 // Every function checks its request against the limits in limits.go
 // before it computes anything and refuses a request beyond one with an
 // error naming it; limits() lists them. Memory for a request is bounded by
-// design: allot computes the costly parts of an explanation (margins that
-// need a search, the seat order) only on request or for small inputs, and
+// design: allot computes the costly parts of an explanation (the margins
+// engine.Scenario.CostlyMargins names, the seat order) only on request or
+// for small inputs, and
 // writes its document unit by unit.
 //
 // Built for the host the package's functions and conversion are tested

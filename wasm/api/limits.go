@@ -40,21 +40,22 @@ const (
 	MaxDepth  = jsondoc.MaxDepth
 	// MaxMarginUnits is the most units for which allot computes the
 	// margins on request, and AutoMarginUnits the most for which it
-	// computes them unasked. (The closed-form margins of divisor methods
-	// take the engine about 0.2 s natively at 10,000 units of a house of
-	// 100,000, but grow faster than the units beyond.)
+	// computes them unasked. (The closed-form margins take the engine
+	// about 0.1 s natively at 20,000 units by Hamilton's method, 0.003 s
+	// by Webster's.)
 	MaxMarginUnits  = 20_000
 	AutoMarginUnits = 10_000
 	// MaxSearchedMargins is the most units for which allot computes, on
-	// request, the margins that need a search of apportionments
-	// (largest-remainder methods, and any method with a threshold): every
-	// probe of the search apportions the whole scenario again, about a
-	// second natively at 300 units by Hamilton's method.
-	MaxSearchedMargins = 300
+	// request, the costly margins (engine.Scenario.CostlyMargins: a
+	// largest-remainder method with minimums or maximums, or a
+	// threshold), whose time grows much faster than the units: by
+	// Hamilton's method with minimum 1 and maximum 5, about 0.8 s natively
+	// at 100 units and 3 s at 300, and several times that in WebAssembly.
+	MaxSearchedMargins = 150
 	// AutoSearchedMargins is the most units for which allot computes
 	// those margins without being asked; AutoOrderSeats the largest house
 	// for which it lists the seat order without being asked.
-	AutoSearchedMargins = 100
+	AutoSearchedMargins = 30
 	AutoOrderSeats      = 1_000
 )
 

@@ -39,7 +39,8 @@ func TestLimitsRefused(t *testing.T) {
 		{"text", "readCSV", jsondoc.Str("name,population\n" + strings.Repeat("x", MaxText)), nil, "text_bytes"},
 		{"csv rows", "readCSV", jsondoc.Str("name,population\n" + strings.Repeat("A,1\n", MaxUnits+1)), nil, "units"},
 		{"margins", "allot", scenarioOf(MaxMarginUnits+1, 100_000, "huntington-hill"), bool(true), "margin_units"},
-		{"searched margins", "allot", scenarioOf(MaxSearchedMargins+1, 1000, "hamilton"), bool(true), "searched_margin_units"},
+		{"costly margins", "allot", scenarioOf(MaxSearchedMargins+1, 1000, "hamilton").Set("min", jsondoc.Int(1)), bool(true), "searched_margin_units"},
+		{"threshold margins", "allot", scenarioOf(MaxSearchedMargins+1, 1000, "webster").Set("threshold", jsondoc.Str("0.001")), bool(true), "searched_margin_units"},
 	} {
 		got := Invoke(fn(t, tc.fn), tc.arg, tc.opts)
 		e := got.Get("error")
@@ -79,20 +80,27 @@ func TestAllotDetail(t *testing.T) {
 	for _, tc := range []struct {
 		n, seats int
 		method   string
+		min      int
 		margins  *bool
 		skipped  string
 	}{
-		{10, 100, "webster", nil, ""},
-		{AutoMarginUnits + 1, AutoOrderSeats, "webster", nil, "margins"},
-		{10, AutoOrderSeats + 1, "webster", nil, "order"},
-		{AutoSearchedMargins, 500, "hamilton", nil, ""},
-		{AutoSearchedMargins + 1, 500, "hamilton", nil, "margins"},
+		{10, 100, "webster", 0, nil, ""},
+		{AutoMarginUnits + 1, AutoOrderSeats, "webster", 0, nil, "margins"},
+		{10, AutoOrderSeats + 1, "webster", 0, nil, "order"},
+		{AutoMarginUnits, 2 * AutoMarginUnits, "hamilton", 0, nil, ""},
+		{AutoMarginUnits + 1, 2 * AutoMarginUnits, "hamilton", 0, nil, "margins"},
+		{AutoSearchedMargins, 500, "hamilton", 1, nil, ""},
+		{AutoSearchedMargins + 1, 500, "hamilton", 1, nil, "margins"},
 	} {
 		var opts *jsondoc.Value
 		if tc.margins != nil {
 			opts = object(jsondoc.Field{Key: "margins", Value: jsondoc.Boolean(*tc.margins)})
 		}
-		got := call(t, "allot", scenarioOf(tc.n, tc.seats, tc.method), opts)
+		doc := scenarioOf(tc.n, tc.seats, tc.method)
+		if tc.min > 0 {
+			doc.Set("min", jsondoc.Int(tc.min))
+		}
+		got := call(t, "allot", doc, opts)
 		if e := got.Get("error"); e != nil {
 			t.Errorf("%d units by %s: %s", tc.n, tc.method, jsondoc.Marshal(e))
 			continue

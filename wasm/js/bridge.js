@@ -673,8 +673,9 @@ export class Calculator {
   async start() {
     const frag = fragmentParts();
     const link = frag.has(this.id) ? { link: frag.get(this.id) } : {};
-    // Margins that need a search come at once for a small scenario (as the
-    // page prerendered them) and on request for a large one.
+    // Costly margins (bounds under largest remainders, thresholds) come
+    // at once for a small scenario (as the page prerendered them) and on
+    // request for a large one.
     let r = await this.ask(Object.assign({ editor: true, margins: false }, link));
     const linkError = r && r.link_error;
     if (r && !r.fatal) this.keep(r);
@@ -893,7 +894,7 @@ export class Calculator {
   }
 
   // refresh recomputes after an edit and resolves to the answer (null when
-  // superseded). Margins that need a search (largest remainders,
+  // superseded). Costly margins (bounds under largest remainders,
   // thresholds) are left out so that typing stays quick, and asked for
   // once the reader pauses.
   async refresh(withEditor, extra, long) {

@@ -44,7 +44,9 @@ func TestHeavyRequestsUnderNode(t *testing.T) {
 	calc := []heavyCase{
 		{"100,000 units by Hamilton", "allot", `[{seats: 100000, method: "hamilton", units: ` + unitsJS("100000") + `}]`, "allotment", ""},
 		{"100,000 units by Huntington–Hill", "allot", `[{seats: 100000, method: "huntington-hill", units: ` + unitsJS("100000") + `}]`, "allotment", ""},
-		{"Hamilton with margins at 2,000 units", "allot", `[{seats: 4000, method: "hamilton", units: ` + unitsJS("2000") + `}, {margins: true}]`, "", "searched_margin_units"},
+		{"Hamilton with margins at 2,000 units", "allot", `[{seats: 4000, method: "hamilton", units: ` + unitsJS("2000") + `}, {margins: true}]`, "allotment", ""},
+		{"Hamilton with margins at 20,000 units", "allot", `[{seats: 40000, method: "hamilton", units: ` + unitsJS("20000") + `}, {margins: true}]`, "allotment", ""},
+		{"Hamilton with minimums, margins at 2,000 units", "allot", `[{seats: 4000, method: "hamilton", min: 1, units: ` + unitsJS("2000") + `}, {margins: true}]`, "", "searched_margin_units"},
 		{"Huntington–Hill with margins at 100,000 units", "allot", `[{seats: 100000, method: "huntington-hill", units: ` + unitsJS("100000") + `}, {margins: true}]`, "", "margin_units"},
 		{"100,001 units", "allot", `[{seats: 100000, method: "webster", units: ` + unitsJS("100001") + `}]`, "", "units"},
 		{"a name of 10^6 characters", "allot", `[{seats: 10, method: "webster", units: [{name: "x".repeat(1e6), population: 5}, {name: "B", population: 7}]}]`, "", "name_length"},
