@@ -135,10 +135,16 @@ func (w *marginWorker) nextWhole(i, dir int, lo uint64) uint64 {
 		switch {
 		case w.pr.m == Droop:
 			next = min(next, droopWholeChange(x, w.q.pops, pos, p, tot.float(), pow10(w.pr.places), dir))
+			if len(x.place) > 0 {
+				next = min(next, w.orderChange(x, pos, dir))
+			}
 		case tot.hi != 0:
 			return lo + 1
 		default:
 			next = min(next, hareWholeChange(x, w.q.pops, pos, p, tot.lo, dir))
+			if len(x.place) > 0 {
+				next = min(next, w.orderChange(x, pos, dir))
+			}
 		}
 	}
 	if next == ^uint64(0) || next > ^uint64(0)-lo {
@@ -262,6 +268,83 @@ func hareWholeChange(x *lrPassTrace, pops []uint64, pos int, p, t uint64, dir in
 		}
 	}
 	return best
+}
+
+// orderChange guesses after how many more people of change (dir) the pass
+// x next ranks a unit whose remainder seat decides a bound on the other
+// side of a unit of another role (where boundsHold would fail), unit i at
+// position pos. With the whole parts fixed, every remainder is about
+// linear in the change d. Under Hamilton its numerator over the pass's
+// total is r_u + dir·d·c_u, where c_u = -f_u for another unit (the total
+// grows by d) and S - f_i for unit i. Under the Droop quota the quota
+// grows by about d/(S+1) people, so the remainder p_u - f_u·Q changes by
+// dir·d·c_u/(S+1), where c_u = -f_u for another unit and S+1 - f_i for
+// unit i. The guess pairs every unit with a seat with the strongest unit
+// without one in each role, and every unit without a seat with the
+// weakest with one, in floating point: a guess for nextWhole, which only
+// tells the search where to look; the proof of each stretch is exact. It
+// returns ^uint64(0) when no pair crosses.
+func (w *marginWorker) orderChange(x *lrPassTrace, pos, dir int) uint64 {
+	pr := w.pr
+	w.roles = resize(w.roles, len(x.units))
+	win, lose := [3]int{-1, -1, -1}, [3]int{-1, -1, -1}
+	for j, u := range x.units {
+		if x.place[j] == 3 {
+			continue
+		}
+		g := pr.remainderRole(u, x.whole[j])
+		w.roles[j] = g
+		if x.win[j] {
+			if k := win[g]; k < 0 || x.rems[j].cmp(x.rems[k]) <= 0 {
+				win[g] = j
+			}
+		} else if k := lose[g]; k < 0 || x.rems[j].cmp(x.rems[k]) > 0 {
+			lose[g] = j
+		}
+	}
+	s, scale := float64(x.seats), 1.0
+	if pr.m == Droop {
+		s = float64(x.seats) + 1
+		scale = s
+	}
+	slope := func(j int) float64 {
+		if j == pos {
+			return s - float64(x.whole[j])
+		}
+		return -float64(x.whole[j])
+	}
+	best := math.Inf(1)
+	// cross notes where b, now below a, would rise to it.
+	cross := func(a, b int) {
+		if k := float64(dir) * (slope(b) - slope(a)); k > 0 {
+			d := math.Max(1, math.Ceil((x.rems[a].float()-x.rems[b].float())*scale/k))
+			best = math.Min(best, d)
+		}
+	}
+	free := int8(seatFree)
+	for j := range x.units {
+		if x.place[j] == 3 {
+			continue
+		}
+		g := w.roles[j]
+		if x.win[j] {
+			for gl, y := range lose {
+				if y >= 0 && (g != free || int8(gl) != free) {
+					cross(j, y)
+				}
+			}
+		} else {
+			for gw, a := range win {
+				if a >= 0 && (g != free || int8(gw) != free) {
+					cross(a, j)
+				}
+			}
+		}
+	}
+	if best >= 1<<63 {
+		return ^uint64(0)
+	}
+	return uint64(best)
 }
 
 // Kinds of stretch the two runs prove.

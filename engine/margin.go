@@ -88,7 +88,6 @@ func (pr *problem) margins(o *outcome, res *Result) {
 	wg.Wait()
 }
 
-// anyBounds reports whether some unit has a minimum or a maximum.
 // CostlyMargins reports whether the margins of s cost more than the
 // closed forms, whose time grows about as fast as the number of units: a
 // largest-remainder method where some unit has a minimum or a maximum (the
@@ -96,10 +95,10 @@ func (pr *problem) margins(o *outcome, res *Result) {
 // are proven stretch by stretch), or a threshold (the units taking part
 // change at known populations, and each stretch between starts from an
 // apportionment). Measured natively on one processor, two seats a unit:
-// by Hamilton with minimum 1 and maximum 5, 0.8 s at 100 units, 3.1 s at
-// 300; by the Droop quota with minimum 1, 61 s at 1,000 units; with a
-// threshold about 10 ms at 300 units and 0.4 s at 2,000. Without them,
-// Hamilton's margins for 20,000 units take 0.1 s.
+// by Hamilton with minimum 1 and maximum 5, 0.05–0.07 s at 100 units,
+// 0.3–0.4 s at 300; by the Droop quota with minimum 1, 0.9–1.0 s at 300;
+// with a threshold about 10 ms at 300 units and 0.4 s at 2,000. Without
+// them, Hamilton's margins for 20,000 units take 0.1 s.
 func (s *Scenario) CostlyMargins() bool {
 	if !s.Threshold.IsZero() {
 		return true
@@ -118,6 +117,7 @@ func (s *Scenario) CostlyMargins() bool {
 	return false
 }
 
+// anyBounds reports whether some unit has a minimum or a maximum.
 func (pr *problem) anyBounds() bool {
 	for j := range pr.pops {
 		if pr.min[j] > 0 || pr.max[j] != noCap {

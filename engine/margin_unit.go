@@ -25,7 +25,8 @@ type marginWorker struct {
 	tr      [2]lrTrace
 	trPop   [2]uint64 // unit i's population in each run
 	rems    []u128
-	bounded bool // some unit has a bound: the passes can change
+	roles   []int8 // remainder roles of a pass's units (bounded.go)
+	bounded bool   // some unit has a bound: the passes can change
 	// Without a threshold: the units taking part, always the same, and
 	// their population.
 	all      []int

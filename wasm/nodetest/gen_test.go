@@ -100,9 +100,9 @@ func randomScenario(r *rand.Rand, k int) *jsondoc.Value {
 	n := 1 + r.IntN(60)
 	h := 1 + r.IntN(1000)
 	if m.IsLargestRemainder() {
-		// The exact margin search of the largest-remainder methods costs
-		// seconds a scenario at 60 units (natively, and more in
-		// WebAssembly); smaller tables keep the suite fast.
+		// Largest-remainder margins with minimums or maximums are proven
+		// stretch by stretch, tenths of a second a scenario at 60 units in
+		// WebAssembly; smaller tables keep the suite fast.
 		n = 1 + r.IntN(maxRemainderUnits)
 	}
 	v := jsondoc.NewObject()
