@@ -103,18 +103,7 @@ func (s *Scenario) CostlyMargins() bool {
 	if !s.Threshold.IsZero() {
 		return true
 	}
-	if !s.Method.IsLargestRemainder() {
-		return false
-	}
-	if s.Min > 0 || s.Max > 0 {
-		return true
-	}
-	for _, u := range s.Units {
-		if (u.Min != nil && *u.Min > 0) || u.Max != nil {
-			return true
-		}
-	}
-	return false
+	return s.Method.IsLargestRemainder() && s.HasBounds()
 }
 
 // anyBounds reports whether some unit has a minimum or a maximum.

@@ -341,7 +341,7 @@ func TestPermutation(t *testing.T) {
 				}
 				for k, i := range perm {
 					a, b := r1.Units[i], r2.Units[k]
-					marginsMayDiffer := m.IsLargestRemainder() && hasAnyBounds(s)
+					marginsMayDiffer := m.IsLargestRemainder() && s.HasBounds()
 					if a.Seats != b.Seats || a.Tied != b.Tied ||
 						(!marginsMayDiffer && (decPtr(a.Gain) != decPtr(b.Gain) || decPtr(a.Lose) != decPtr(b.Lose))) {
 						t.Fatalf("unit %s: %+v vs permuted %+v", a.Name, a, b)
@@ -568,17 +568,4 @@ func checkValue(t *rapid.T, v Value, m Method, p *big.Rat, a int, high bool) {
 	if c := l.Cmp(r); (high && c > 0) || (!high && c < 0) {
 		t.Fatalf("bound %s (high=%v) on the wrong side of p/s(%d) with p=%s", v.Text, high, a, p.FloatString(3))
 	}
-}
-
-// hasAnyBounds reports whether any unit of s has a minimum or a maximum.
-func hasAnyBounds(s *Scenario) bool {
-	if s.Min > 0 || s.Max > 0 {
-		return true
-	}
-	for _, u := range s.Units {
-		if (u.Min != nil && *u.Min > 0) || u.Max != nil {
-			return true
-		}
-	}
-	return false
 }

@@ -41,6 +41,20 @@ type Scenario struct {
 	Tie TieRule
 }
 
+// HasBounds reports whether some unit of s has a minimum above zero or a
+// maximum, its own or the scenario's.
+func (s *Scenario) HasBounds() bool {
+	if s.Min > 0 || s.Max > 0 {
+		return true
+	}
+	for _, u := range s.Units {
+		if (u.Min != nil && *u.Min > 0) || u.Max != nil {
+			return true
+		}
+	}
+	return false
+}
+
 // An Error describes what is wrong with a scenario. Unit is the index of the
 // unit at fault, or -1 when the error concerns the scenario as a whole; Field
 // names the offending field ("population", "name", "min", "max", "seats",

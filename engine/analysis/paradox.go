@@ -176,7 +176,7 @@ func FindQuotaViolations(sw *engine.SweepResult, s *engine.Scenario) []QuotaViol
 			out = append(out, QuotaViolation{sw.Method, z.House, i, sw.Names[i], a, q, l, u, false})
 		}
 	}
-	if len(out) > 0 && hasBounds(s) {
+	if len(out) > 0 && s.HasBounds() {
 		markBounds(out, sw, s)
 	}
 	return out
@@ -229,19 +229,6 @@ func (t *quotaTest) within(i, a, h int) bool {
 	t.side.SetInt64(int64(a - 1))
 	t.side.Mul(&t.side, &t.total)
 	return t.side.Cmp(&t.ph) < 0 // not above the upper quota
-}
-
-// hasBounds reports whether any unit of s has a minimum or a maximum.
-func hasBounds(s *engine.Scenario) bool {
-	if s.Min > 0 || s.Max > 0 {
-		return true
-	}
-	for _, u := range s.Units {
-		if (u.Min != nil && *u.Min > 0) || u.Max != nil {
-			return true
-		}
-	}
-	return false
 }
 
 // markBounds sets Bounds on the violations that the bounds of s cause:
