@@ -146,7 +146,14 @@ func (pr *problem) closedMargins(seats []int, res *Result) {
 	for i := range res.Units {
 		u := &res.Units[i]
 		u.Gain = pr.marginDecimal(pr.gainClosed(i, seats[i], held))
-		u.Lose = pr.marginDecimal(pr.loseClosed(i, seats[i], open))
+		x, ok := pr.loseClosed(i, seats[i], open)
+		if ok && x == pr.pops[i] && pr.checkFeasibleWith(i, 0) != nil {
+			// The unit drops a seat only at no people, where the others'
+			// bounds cannot all be met: there is no apportionment to
+			// lose the seat in.
+			ok = false
+		}
+		u.Lose = pr.marginDecimal(x, ok)
 	}
 }
 

@@ -110,3 +110,20 @@ func TestMarginCases(t *testing.T) {
 		})
 	}
 }
+
+// A unit whose seat drops only at no people, where the others' maximums
+// cannot fill the house, has no lose margin: there is no apportionment in
+// which it loses the seat (a case the brute-force property test found).
+func TestLoseMarginNeedsApportionment(t *testing.T) {
+	c := marginCase{
+		m: ModifiedSainteLague, seats: 5, tie: TieRule{Kind: TieByLot, Seed: 3},
+		units: []caseUnit{{pop: "0.1", min: -1, max: 2}, {pop: "0.1", min: -1, max: 2}, unitPop("0"), unitPop("0.1")},
+	}
+	res, err := Allot(c.scenario(t), WithMargins)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if u := res.Units[3]; u.Lose != nil {
+		t.Errorf("%s holds %d seats and has a lose margin of %s; without people the others cannot be apportioned", u.Name, u.Seats, u.Lose)
+	}
+}
