@@ -71,8 +71,19 @@ import (
 // meet the wish of dir, over which the units taking part stay the same.
 func (w *marginWorker) boundedStretch(i, a, dir int, x, e uint64) (uint64, bool) {
 	meets := func(s int) bool { return s >= 0 && ((dir > 0 && s > a) || (dir < 0 && s < a)) }
+	// failed is the least change at which a probe found the passes
+	// different from lo's, its run kept in w.tr[2]; the next stretch
+	// starts there, and takes the run instead of making it again.
+	failed := uint64(0)
 	for lo := x; lo <= e; {
-		s := w.traceAt(i, dir, lo, 0)
+		var s int
+		if failed == lo && lo > x {
+			w.tr[0], w.tr[2] = w.tr[2], w.tr[0]
+			w.trPop[0], w.trSeats[0] = w.trPop[2], w.trSeats[2]
+			s = w.trSeats[0]
+		} else {
+			s = w.traceAt(i, dir, lo, 0)
+		}
 		if meets(s) {
 			return lo, true
 		}
@@ -87,6 +98,11 @@ func (w *marginWorker) boundedStretch(i, a, dir int, x, e uint64) (uint64, bool)
 			w.traceAt(i, dir, y, 1)
 			k := w.certify(i)
 			if k == certifyNone {
+				// leastWhere's failing probes only fall: the last is
+				// where the stretch ends.
+				w.tr[1], w.tr[2] = w.tr[2], w.tr[1]
+				w.trPop[2], w.trSeats[2] = w.trPop[1], w.trSeats[1]
+				failed = y
 				return true
 			}
 			last, kind = y, k
@@ -355,11 +371,12 @@ const (
 )
 
 // traceAt runs the procedure with unit i's population after the change y,
-// recording it in w.tr[k], and returns unit i's outright seats (-1 when
+// recording it in w.tr[k] (with the population in w.trPop[k] and the
+// seats in w.trSeats[k]), and returns unit i's outright seats (-1 when
 // there is no apportionment).
 func (w *marginWorker) traceAt(i, dir int, y uint64, k int) int {
 	w.setPop(i, w.popAt(i, dir, y))
-	w.trPop[k] = w.q.pops[i]
+	w.trPop[k], w.trSeats[k] = w.q.pops[i], -1
 	t := &w.tr[k]
 	t.reset()
 	if w.q.checkFeasible() != nil {
@@ -372,6 +389,7 @@ func (w *marginWorker) traceAt(i, dir int, y uint64, k int) int {
 	if err != nil {
 		return -1
 	}
+	w.trSeats[k] = o.seats[i]
 	return o.seats[i]
 }
 

@@ -22,8 +22,9 @@ type marginWorker struct {
 	pass    claimPass
 	group   []int8
 	floor   []int
-	tr      [2]lrTrace
-	trPop   [2]uint64 // unit i's population in each run
+	tr      [3]lrTrace // lo's run, a probe's, and the least failing probe's
+	trPop   [3]uint64  // unit i's population in each run
+	trSeats [3]int     // and its seats, -1 for none
 	rems    []u128
 	roles   []int8 // remainder roles of a pass's units (bounded.go)
 	bounded bool   // some unit has a bound: the passes can change
