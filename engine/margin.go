@@ -95,8 +95,8 @@ func (pr *problem) margins(o *outcome, res *Result) {
 // are proven stretch by stretch), or a threshold (the units taking part
 // change at known populations, and each stretch between starts from an
 // apportionment). Measured natively on one processor, two seats a unit:
-// by Hamilton with minimum 1 and maximum 5, 0.05–0.07 s at 100 units,
-// 0.3–0.4 s at 300; by the Droop quota with minimum 1, 0.9–1.0 s at 300;
+// by Hamilton with minimum 1 and maximum 5, 0.03–0.07 s at 100 units,
+// 0.23–0.27 s at 300; by the Droop quota with minimum 1, 0.3–0.7 s at 300;
 // with a threshold about 10 ms at 300 units and 0.4 s at 2,000. Without
 // them, Hamilton's margins for 20,000 units take 0.1 s.
 func (s *Scenario) CostlyMargins() bool {
