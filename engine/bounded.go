@@ -48,8 +48,10 @@ import (
 // in between decides differently.
 //
 // A stretch as long as it can be proven is found by galloping and
-// bisection from where a whole part is next due to change; the next
-// stretch starts where the passes change.
+// bisection from a guess of its end: where a whole part is next due to
+// change, or where a remainder that decides a bound next crosses one of
+// another role (nextWhole, orderChange). The next stretch starts where the
+// passes change, from the run that found the change.
 //
 // How many stretches: each but the last ends where the next change
 // decides differently (the proof is exact), at a change of a whole part,

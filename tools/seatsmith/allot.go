@@ -25,9 +25,9 @@ and how many people each unit is from gaining or losing a seat.
 The margins and the seat order are the costly parts. On large inputs they
 are left out unless asked for, with a note on standard error saying so:
 the margins with more than 100,000 units (more than 1,000 for
-largest-remainder methods or with a threshold, where each margin is a
-search of complete apportionments), the seat order with more than 100,000
-seats. -margins and -order ask for them at any size; -margins=false and
+largest-remainder methods with minimums or maximums, or with a threshold,
+where each margin is proven stretch by stretch with complete
+apportionments), the seat order with more than 100,000 seats. -margins and -order ask for them at any size; -margins=false and
 -order=false leave them out at any size. CSV never needs the seat order.
 
 Examples:
@@ -155,12 +155,14 @@ func runCompare(e *env, args []string) int {
 // Sizes above which allot leaves out the costly parts of the explanation
 // unless asked for them.
 const (
-	// autoMarginUnits: closed-form margins (divisor methods without a
-	// threshold) cost a pass over the units.
+	// autoMarginUnits: margins in closed form or counted (divisor methods,
+	// largest remainders without bounds; no threshold) cost about a pass
+	// over the units each.
 	autoMarginUnits = 100_000
-	// autoSearchUnits: the other margins are searches in which every probe
-	// is a complete apportionment, so their cost grows with the square of
-	// the number of units.
+	// autoSearchUnits: the costly margins (engine.Scenario.CostlyMargins)
+	// are proven stretch by stretch, each stretch with complete
+	// apportionments, so their cost grows faster than the square of the
+	// number of units.
 	autoSearchUnits = 1_000
 	// autoOrderSeats: the seat order holds one entry per seat.
 	autoOrderSeats = 100_000
@@ -182,7 +184,7 @@ type detailPlan struct {
 func planDetail(s *engine.Scenario, format string, marginsAsked, margins, orderAsked, order bool) detailPlan {
 	var p detailPlan
 	n := len(s.Units)
-	search := !s.Method.IsDivisor() || !s.Threshold.IsZero()
+	search := s.CostlyMargins()
 	switch {
 	case marginsAsked && margins:
 		p.detail |= engine.WithMargins
@@ -190,7 +192,7 @@ func planDetail(s *engine.Scenario, format string, marginsAsked, margins, orderA
 		p.skipped = append(p.skipped, "margins")
 	case search && n > autoSearchUnits:
 		p.skipped = append(p.skipped, "margins")
-		p.notes = append(p.notes, strconv.Itoa(n)+" units: gain and lose margins left out (each is a search of complete apportionments, "+
+		p.notes = append(p.notes, strconv.Itoa(n)+" units: gain and lose margins left out (each is proven stretch by stretch with complete apportionments, "+
 			"for every unit); give -margins to compute them")
 	case n > autoMarginUnits:
 		p.skipped = append(p.skipped, "margins")

@@ -26,7 +26,8 @@ func TestPlanDetail(t *testing.T) {
 		{"small remainder", engine.Scenario{Method: engine.Hamilton, Seats: 40, Units: units(10)}, "json", false, false, false, false, engine.WithMargins, "", 0},
 		{"many units divisor", engine.Scenario{Method: engine.Jefferson, Seats: 40, Units: units(autoMarginUnits + 1)}, "text", false, false, false, false, engine.WithOrder, "margins", 1},
 		{"divisor closed forms at 10^5", engine.Scenario{Method: engine.Jefferson, Seats: 40, Units: units(autoMarginUnits)}, "csv", false, false, false, false, engine.WithMargins, "", 0},
-		{"remainder searches", engine.Scenario{Method: engine.Droop, Seats: 40, Units: units(autoSearchUnits + 1)}, "csv", false, false, false, false, 0, "margins", 1},
+		{"remainder counts", engine.Scenario{Method: engine.Droop, Seats: 40, Units: units(autoSearchUnits + 1)}, "csv", false, false, false, false, engine.WithMargins, "", 0},
+		{"remainder with bounds", engine.Scenario{Method: engine.Droop, Seats: 40, Min: 1, Units: units(autoSearchUnits + 1)}, "csv", false, false, false, false, 0, "margins", 1},
 		{"threshold searches", engine.Scenario{Method: engine.Webster, Seats: 40, Threshold: th, Units: units(autoSearchUnits + 1)}, "csv", false, false, false, false, 0, "margins", 1},
 		{"asked for margins", engine.Scenario{Method: engine.Droop, Seats: 40, Units: units(autoSearchUnits + 1)}, "csv", true, true, false, false, engine.WithMargins, "", 0},
 		{"refused margins", engine.Scenario{Method: engine.Webster, Seats: 40, Units: units(3)}, "json", true, false, false, false, engine.WithOrder, "margins", 0},
@@ -42,8 +43,8 @@ func TestPlanDetail(t *testing.T) {
 	}
 }
 
-// TestAllotLargeInput: on a table with more units than margins are
-// searched for, allot says on standard error what it left out and how to
+// TestAllotLargeInput: on a table with more units than costly margins are
+// computed for unasked (Hamilton's method with a minimum), allot says on standard error what it left out and how to
 // ask for it, and JSON lists it; -margins asks for them.
 func TestAllotLargeInput(t *testing.T) {
 	var b strings.Builder
@@ -51,7 +52,7 @@ func TestAllotLargeInput(t *testing.T) {
 	for i := 0; i < autoSearchUnits+1; i++ {
 		b.WriteString("district-" + strconv.Itoa(i) + "," + strconv.Itoa(1000+i*37%5000) + "\n")
 	}
-	out, errOut, code := cli(t, b.String(), "allot", "-method", "hamilton", "-seats", "500", "-format", "json", "-")
+	out, errOut, code := cli(t, b.String(), "allot", "-method", "hamilton", "-min", "1", "-seats", "1500", "-format", "json", "-")
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
@@ -71,14 +72,14 @@ func TestAllotLargeInput(t *testing.T) {
 	// Text and Markdown say it above the table, so that the dashes in the
 	// margin columns are not read as "cannot happen".
 	for _, format := range []string{"text", "markdown"} {
-		out, _, code := cli(t, b.String(), "allot", "-method", "hamilton", "-seats", "500", "-format", format, "-")
+		out, _, code := cli(t, b.String(), "allot", "-method", "hamilton", "-min", "1", "-seats", "1500", "-format", format, "-")
 		if code != 0 || !strings.Contains(out, "margins were not computed") {
 			t.Errorf("%s output (exit %d) does not say the margins were left out: %.300s", format, code, out)
 		}
 	}
 	// Asked for, on a smaller table, margins come back without a note.
 	small := strings.Join(strings.SplitAfter(b.String(), "\n")[:60], "")
-	out, errOut, code = cli(t, small, "allot", "-method", "hamilton", "-seats", "100", "-margins", "-format", "csv", "-")
+	out, errOut, code = cli(t, small, "allot", "-method", "hamilton", "-min", "1", "-seats", "100", "-margins", "-format", "csv", "-")
 	if code != 0 || errOut != "" {
 		t.Fatalf("exit %d: %s", code, errOut)
 	}
