@@ -371,21 +371,6 @@ func (p *prepared) bigDecimal(x *big.Int) (engine.Decimal, bool) {
 	return engine.Decimal{Coef: x.Uint64(), Places: p.places}, true
 }
 
-// decimalText writes a scaled total exactly.
-func (p *prepared) decimalText(x *big.Int) string {
-	s := x.String()
-	if p.places == 0 {
-		return s
-	}
-	k := int(p.places)
-	for len(s) <= k {
-		s = "0" + s
-	}
-	s = s[:len(s)-k] + "." + s[len(s)-k:]
-	s = strings.TrimRight(s, "0")
-	return strings.TrimSuffix(s, ".")
-}
-
 // partyTotal is party j's votes over the whole election.
 func (p *prepared) partyTotal(j int) *big.Int {
 	t := new(big.Int).SetUint64(p.nat[j])

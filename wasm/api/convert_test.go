@@ -86,7 +86,7 @@ func TestFromJS(t *testing.T) {
 		msg   string // a part of the error's message
 	}{
 		{name: "scalars", in: fakeArr(fakeNull(), fakeUndef(), &fake{k: jsBoolean, b: true}, fakeNum(12), fakeStr("x\"y")), want: `[null,null,true,12,"x\"y"]`},
-		{name: "integers exactly", in: fakeArr(fakeNum(1e12), fakeNum(9007199254740993), fakeNum(1e21), fakeNum(-0.0), fakeNum(3)), want: `[1000000000000,9007199254740992,1000000000000000000000,0,3]`},
+		{name: "integers exactly", in: fakeArr(fakeNum(1e12), fakeNum(9007199254740993), fakeNum(1e21), fakeNum(math.Copysign(0, -1)), fakeNum(3)), want: `[1000000000000,9007199254740992,1000000000000000000000,0,3]`},
 		{name: "decimals as JavaScript shows them", in: fakeArr(fakeNum(0.1), fakeNum(1250.75), fakeNum(1e-7), fakeNum(-2.5)), want: `[0.1,1250.75,0.0000001,-2.5]`},
 		{name: "bigint digits", in: fakeObj("p", &fake{k: jsBigInt, s: "123456789012345678901"}), want: `{"p":123456789012345678901}`},
 		{name: "undefined members left out", in: fakeObj("a", fakeNum(1), "b", fakeUndef(), "c", fakeStr("")), want: `{"a":1,"c":""}`},
