@@ -40,6 +40,7 @@ func (pr *problem) newMarginWorker(tab *claimTable) *marginWorker {
 	w.q.eligible = append([]bool(nil), pr.eligible...)
 	w.q.tie = TieRule{} // outright seats: ties left open
 	w.q.quotas = nil
+	w.q.probe = true
 	w.bounded = pr.anyBounds()
 	if pr.m.IsLargestRemainder() && pr.threshold.IsZero() {
 		for j, el := range pr.eligible {

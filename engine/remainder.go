@@ -85,7 +85,9 @@ func (pr *problem) lrPass(units []int, seats int, total u128, whole []int) (*lrR
 	}
 	switch pr.m {
 	case Hamilton:
-		r.quota = new(big.Rat).SetFrac(r.total.big(), new(big.Int).Mul(big.NewInt(int64(seats)), bigU(pow10(pr.places))))
+		if !pr.probe {
+			r.quota = new(big.Rat).SetFrac(r.total.big(), new(big.Int).Mul(big.NewInt(int64(seats)), bigU(pow10(pr.places))))
+		}
 		if r.total.hi == 0 && !forceBig {
 			sum = r.hareFloors(pr.pops, uint64(seats))
 			break
@@ -101,7 +103,9 @@ func (pr *problem) lrPass(units []int, seats int, total u128, whole []int) (*lrR
 	case Droop:
 		scale := pow10(pr.places)
 		q := droopQuota(r.total, seats, scale) // in scaled units
-		r.quota = new(big.Rat).SetFrac(q.big(), bigU(scale))
+		if !pr.probe {
+			r.quota = new(big.Rat).SetFrac(q.big(), bigU(scale))
+		}
 		if q.hi == 0 && !forceBig {
 			sum = r.droopFloors(pr.pops, q.lo)
 		} else {

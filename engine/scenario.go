@@ -118,6 +118,10 @@ type problem struct {
 	threshold Decimal
 	quotas    *quotaMemo // nil but in AllotMethods
 	trace     *lrTrace   // nil but in the margins' searches
+	// probe is set in the margins' copies of the problem, whose
+	// apportionments only count seats: the passes leave out their quotas
+	// as rationals, which only the explanation reads.
+	probe bool
 }
 
 func (pr *problem) n() int { return len(pr.pops) }
